@@ -1,0 +1,19 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const packages = ['material', 'rainflow', 'notch', 'mean-stress', 'miner', 'engine', 'cli'];
+
+export default defineConfig({
+  resolve: {
+    // Tests run against src/ without a build; test/dist-smoke.test.ts checks the built output.
+    alias: packages.map((name) => ({
+      find: `@loopwise/${name}`,
+      replacement: fileURLToPath(new URL(`./packages/${name}/src/index.ts`, import.meta.url)),
+    })),
+  },
+  test: {
+    include: ['packages/*/test/**/*.test.ts', 'test/**/*.test.ts'],
+    setupFiles: ['./test/setup.ts'],
+    testTimeout: 60_000,
+  },
+});
