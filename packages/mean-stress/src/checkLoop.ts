@@ -1,0 +1,42 @@
+import type { LoopColumns } from './Loop';
+import { MeanStressError } from './MeanStressError';
+
+/** Internal: throws MeanStressError('invalid-loop') unless the loop's extremes are finite and ordered. */
+export function checkLoop(sMax: number, sMin: number, eMax: number, eMin: number, index: number | undefined): void {
+  if (sMax >= sMin && eMax >= eMin && sMax < Infinity && sMin > -Infinity && eMax < Infinity && eMin > -Infinity) return;
+  const fields = [
+    ['sigmaMax', sMax],
+    ['sigmaMin', sMin],
+    ['epsilonMax', eMax],
+    ['epsilonMin', eMin],
+  ] as const;
+  for (const [field, value] of fields) {
+    if (!Number.isFinite(value)) throw new MeanStressError('invalid-loop', field, value, 'must be a finite number', index);
+  }
+  if (sMax < sMin) {
+    throw new MeanStressError('invalid-loop', 'sigmaMin', sMin, `must be <= sigmaMax (${sMax})`, index);
+  }
+  throw new MeanStressError('invalid-loop', 'epsilonMin', eMin, `must be <= epsilonMax (${eMax})`, index);
+}
+
+/** Internal: checks that the columns and output have a common length and returns it. */
+export function checkColumns(loops: LoopColumns, out: Float64Array, flags: Uint8Array | undefined): number {
+  const count = loops.sigmaMax.length;
+  for (const field of ['sigmaMin', 'epsilonMax', 'epsilonMin'] as const) {
+    if (loops[field].length !== count) {
+      throw new MeanStressError('invalid-argument', `loops.${field}`, loops[field].length, `length must equal loops.sigmaMax.length (${count})`);
+    }
+  }
+  if (out.length < count) throw new MeanStressError('invalid-argument', 'out', out.length, `length must be >= ${count}`);
+  if (flags !== undefined && flags.length < count) {
+    throw new MeanStressError('invalid-argument', 'flags', flags.length, `length must be >= ${count}`);
+  }
+  return count;
+}
+
+/** Internal: the flag names of a bit set. */
+export function flagNames<T extends string>(bits: number, table: Readonly<Record<T, number>>): T[] {
+  const names: T[] = [];
+  for (const name of Object.keys(table) as T[]) if (bits & table[name]) names.push(name);
+  return names;
+}

@@ -1,0 +1,17 @@
+export { DAMAGE_FLAG_BITS } from './DamageParameter';
+export type { DamageFlag, DamageParameter, DamageResult } from './DamageParameter';
+export { damageParameter, damageParameters, DEFAULT_DAMAGE_PARAMETER } from './damageParameters';
+export type { DamageParameterName } from './damageParameters';
+export { estimateWalkerGamma, WALKER_GAMMA_SOURCE } from './estimateWalkerGamma';
+export type { WalkerGammaInput } from './estimateWalkerGamma';
+export type { Loop, LoopColumns } from './Loop';
+export { loopReversalsToFailure } from './loopReversalsToFailure';
+export type { LoopReversalsOptions } from './loopReversalsToFailure';
+export { MeanStressError } from './MeanStressError';
+export type { MeanStressErrorCode } from './MeanStressError';
+export { modifiedMorrow } from './modifiedMorrow';
+export { morrow } from './morrow';
+export { none } from './none';
+export { smithWatsonTopper } from './smithWatsonTopper';
+export { createWalker, walker } from './walker';
+export type { WalkerOptions } from './walker';

@@ -1,0 +1,27 @@
+import type { Material, ReversalsOptions } from '@loopwise/material';
+import type { DamageParameter, DamageResult } from './DamageParameter';
+import { damageParameter, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from './damageParameters';
+import type { Loop } from './Loop';
+
+/** Options of {@link loopReversalsToFailure}. */
+export interface LoopReversalsOptions extends ReversalsOptions {
+  /** The damage parameter, by name or object. Default {@link DEFAULT_DAMAGE_PARAMETER} (`'smithWatsonTopper'`). */
+  parameter?: DamageParameterName | DamageParameter;
+}
+
+/**
+ * Reversals to failure 2Nf (not cycles) of one closed loop with a mean-stress damage parameter:
+ * the plain-name entry point, a documented alias of `damageParameters[DEFAULT_DAMAGE_PARAMETER]`
+ * (Smith-Watson-Topper) unless `options.parameter` names another. Equations, references and
+ * special cases: see the parameter (`none`, `morrow`, `modifiedMorrow`, `smithWatsonTopper`,
+ * `walker`).
+ *
+ * @example
+ * loopReversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340)
+ * // returns { reversals: 8250.04..., value: 4, flags: [] }   (SWT)
+ */
+export function loopReversalsToFailure(loop: Loop, material: Material, options: LoopReversalsOptions = {}): DamageResult {
+  const p = options.parameter ?? DEFAULT_DAMAGE_PARAMETER;
+  const parameter = typeof p === 'string' ? damageParameter(p) : p;
+  return parameter.reversalsToFailure(loop, material, options);
+}

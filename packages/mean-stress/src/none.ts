@@ -1,0 +1,72 @@
+import {
+  assertMaterial,
+  DEFAULT_CUTOFF_REVERSALS,
+  DEFAULT_MAX_ITERATIONS,
+  solveTwoTermReversals,
+  type Material,
+  type ReversalsOptions,
+} from '@loopwise/material';
+import { checkColumns, checkLoop, flagNames } from './checkLoop';
+import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
+import type { Loop, LoopColumns } from './Loop';
+
+function flagBits(r: number): number {
+  return r === Infinity ? 1 : r === 1 ? 2 : 0;
+}
+
+/**
+ * No mean-stress correction: the fully reversed strain-life curve (Coffin-Manson-Basquin) at the
+ * loop's strain amplitude, ignoring its mean stress.
+ *
+ *     εa = σf'/E·(2Nf)^b + εf'·(2Nf)^c,    εa = (εmax − εmin)/2
+ *
+ * Returns reversals 2Nf (cycles Nf = 2Nf/2). `value` is εa (dimensionless). Special cases:
+ * εa = 0 or a life beyond the cut-off → Infinity (`below-cutoff`); εa ≥ σf'/E + εf' → 1
+ * (`at-or-above-first-reversal`).
+ *
+ * Reference: Coffin-Manson-Basquin as in ASTM E606/E606M, appendix X1; N. E. Dowling,
+ * Mechanical Behavior of Materials, Pearson, section 14.2.
+ *
+ * @example
+ * none.reversalsToFailure({ sigmaMax: 500, sigmaMin: -300, epsilonMax: 0.004, epsilonMin: -0.004 }, sae1045)
+ * // returns { reversals: 43494.70..., value: 0.004, flags: [] }
+ */
+export const none: DamageParameter<'none'> = Object.freeze({
+  name: 'none' as const,
+  label: 'none (fully reversed strain-life curve)',
+  valueUnit: 'strain' as const,
+
+  reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
+    assertMaterial(material);
+    checkLoop(loop.sigmaMax, loop.sigmaMin, loop.epsilonMax, loop.epsilonMin, undefined);
+    const ea = (loop.epsilonMax - loop.epsilonMin) / 2;
+    const r = solveTwoTermReversals(
+      Math.log(material.sigmaF / material.E), material.b, Math.log(material.epsilonF), material.c, Math.log(ea),
+      options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
+    );
+    return { reversals: r, value: ea, flags: flagNames(flagBits(r), DAMAGE_FLAG_BITS) };
+  },
+
+  reversalsToFailureInto(
+    loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
+  ): Float64Array {
+    assertMaterial(material);
+    const count = checkColumns(loops, out, flags);
+    const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
+    const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
+    const lnA = Math.log(material.sigmaF / material.E);
+    const lnB = Math.log(material.epsilonF);
+    const b = material.b;
+    const c = material.c;
+    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    for (let i = 0; i < count; i++) {
+      const eMax = epsilonMax[i];
+      const eMin = epsilonMin[i];
+      checkLoop(sigmaMax[i], sigmaMin[i], eMax, eMin, i);
+      const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log((eMax - eMin) / 2), cutoff, maxIt);
+      out[i] = r;
+      if (flags !== undefined) flags[i] = flagBits(r);
+    }
+    return out;
+  },
+});

@@ -1,0 +1,85 @@
+import {
+  assertMaterial,
+  DEFAULT_CUTOFF_REVERSALS,
+  DEFAULT_MAX_ITERATIONS,
+  solveTwoTermReversals,
+  type Material,
+  type ReversalsOptions,
+} from '@loopwise/material';
+import { checkColumns, checkLoop, flagNames } from './checkLoop';
+import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
+import type { Loop, LoopColumns } from './Loop';
+
+function flagBits(sMax: number, r: number): number {
+  if (!(sMax > 0)) return 4;
+  return r === Infinity ? 1 : r === 1 ? 2 : 0;
+}
+
+/**
+ * Smith-Watson-Topper damage parameter: the product of the peak stress and the strain amplitude
+ * equals its fully reversed value on the strain-life curve.
+ *
+ *     σmax·εa = σf'²/E·(2Nf)^(2b) + σf'·εf'·(2Nf)^(b+c)
+ *
+ * Returns reversals 2Nf (cycles Nf = 2Nf/2). `value` is σmax·εa (stress unit × strain).
+ * Special cases: σmax ≤ 0 → Infinity with `compressive-no-damage` (documented practice: a loop
+ * that stays in compression is taken to do no damage); εa = 0 or beyond the cut-off → Infinity
+ * (`below-cutoff`); a parameter at or above its one-reversal value → 1
+ * (`at-or-above-first-reversal`).
+ *
+ * At zero mean stress SWT equals `none` only when the material's cyclic curve is compatible with
+ * its fatigue constants (n' = b/c, K' = σf'/εf'^n'), because σmax then equals σf'(2Nf)^b;
+ * otherwise the material carries an `incompatible-cyclic-curve` warning.
+ *
+ * Reference: K. N. Smith, P. Watson and T. H. Topper, "A stress-strain function for the fatigue
+ * of metals", Journal of Materials, JMLSA 5 (1970) 767-778.
+ *
+ * @example
+ * smithWatsonTopper.reversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340)
+ * // returns { reversals: 8250.04..., value: 4, flags: [] }
+ */
+export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.freeze({
+  name: 'smithWatsonTopper' as const,
+  label: 'Smith-Watson-Topper',
+  valueUnit: 'stress*strain' as const,
+
+  reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
+    assertMaterial(material);
+    const { sigmaMax: sMax, sigmaMin: sMin, epsilonMax: eMax, epsilonMin: eMin } = loop;
+    checkLoop(sMax, sMin, eMax, eMin, undefined);
+    const ea = (eMax - eMin) / 2;
+    const { sigmaF, E, b, c, epsilonF } = material;
+    const r = sMax > 0
+      ? solveTwoTermReversals(
+          2 * Math.log(sigmaF) - Math.log(E), 2 * b, Math.log(sigmaF * epsilonF), b + c, Math.log(sMax * ea),
+          options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
+        )
+      : Infinity;
+    return { reversals: r, value: sMax * ea, flags: flagNames(flagBits(sMax, r), DAMAGE_FLAG_BITS) };
+  },
+
+  reversalsToFailureInto(
+    loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
+  ): Float64Array {
+    assertMaterial(material);
+    const count = checkColumns(loops, out, flags);
+    const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
+    const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
+    const { sigmaF, E, b, c, epsilonF } = material;
+    const lnA = 2 * Math.log(sigmaF) - Math.log(E);
+    const p = 2 * b;
+    const lnB = Math.log(sigmaF * epsilonF);
+    const q = b + c;
+    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    for (let i = 0; i < count; i++) {
+      const sMax = sigmaMax[i];
+      const eMax = epsilonMax[i];
+      const eMin = epsilonMin[i];
+      checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+      const r = sMax > 0 ? solveTwoTermReversals(lnA, p, lnB, q, Math.log((sMax * (eMax - eMin)) / 2), cutoff, maxIt) : Infinity;
+      out[i] = r;
+      if (flags !== undefined) flags[i] = flagBits(sMax, r);
+    }
+    return out;
+  },
+});
