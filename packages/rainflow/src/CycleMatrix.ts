@@ -1,0 +1,200 @@
+import { binEdges, binOf, type BinSpec } from './binEdges';
+import type { CycleSink } from './CycleSink';
+import { BinError } from './errors';
+import { decodeArray, decodeNumber, encodeArray, encodeNumber, type EncodedNumber } from './numberCodec';
+
+/** What a matrix does with a cycle outside its bins: tally it (default) or throw. */
+export type OutsidePolicy = 'tally' | 'error';
+
+/** Kinds of cycle matrix. */
+export type CycleMatrixKind = 'range-mean' | 'from-to';
+
+/** Cycles that fell outside the bins: their total count and the extremes of their coordinates. */
+export interface OutsideTally {
+  count: number;
+  rowMin: number;
+  rowMax: number;
+  columnMin: number;
+  columnMax: number;
+}
+
+/**
+ * Serialised matrix, format `loopwise-cycle-matrix` version 1. `counts` is row-major
+ * (rows × columns); rows are the first coordinate (range, or from), columns the second (mean,
+ * or to). Numbers use the exact encoding of the rainflow state (-0 and non-finite as strings).
+ */
+export interface CycleMatrixJSON {
+  format: 'loopwise-cycle-matrix';
+  version: 1;
+  kind: CycleMatrixKind;
+  rowEdges: EncodedNumber[];
+  columnEdges: EncodedNumber[];
+  counts: EncodedNumber[];
+  outside: { count: EncodedNumber; rowMin: EncodedNumber; rowMax: EncodedNumber; columnMin: EncodedNumber; columnMax: EncodedNumber };
+}
+
+/** Thrown by a matrix with `outside: 'error'` when a cycle falls outside its bins. */
+export class OutsideBinsError extends BinError {
+  constructor(
+    readonly row: number,
+    readonly column: number,
+    readonly startIndex: number,
+  ) {
+    super('bins', `the cycle starting at sample ${startIndex} (${row}, ${column}) is outside the bins`);
+    this.name = 'OutsideBinsError';
+  }
+}
+
+/**
+ * Shared machinery of the range-mean and from-to matrices: a dense Float64Array of counts over
+ * two binned coordinates, an explicit tally of cycles outside the bins, exact serialisation,
+ * addition of matrices with identical bins and scaling by a repeat count.
+ */
+export abstract class CycleMatrix implements CycleSink {
+  abstract readonly kind: CycleMatrixKind;
+  readonly rowEdges: Float64Array;
+  readonly columnEdges: Float64Array;
+  /** Row-major counts, rows × columns. */
+  readonly counts: Float64Array;
+  readonly outsidePolicy: OutsidePolicy;
+  protected tally: OutsideTally = { count: 0, rowMin: Infinity, rowMax: -Infinity, columnMin: Infinity, columnMax: -Infinity };
+
+  protected constructor(rows: BinSpec | Float64Array, columns: BinSpec | Float64Array, outside: OutsidePolicy, names: [string, string]) {
+    this.rowEdges = rows instanceof Float64Array ? rows : binEdges(rows, names[0]);
+    this.columnEdges = columns instanceof Float64Array ? columns : binEdges(columns, names[1]);
+    if (outside !== 'tally' && outside !== 'error') throw new BinError('outside', `must be 'tally' or 'error', got ${String(outside)}`);
+    this.outsidePolicy = outside;
+    this.counts = new Float64Array((this.rowEdges.length - 1) * (this.columnEdges.length - 1));
+  }
+
+  /** Number of row bins. */
+  get rows(): number {
+    return this.rowEdges.length - 1;
+  }
+
+  /** Number of column bins. */
+  get columns(): number {
+    return this.columnEdges.length - 1;
+  }
+
+  /** Cycles outside the bins (a copy). */
+  get outside(): OutsideTally {
+    return { ...this.tally };
+  }
+
+  /** Count in bin (row, column). */
+  at(row: number, column: number): number {
+    return this.counts[row * this.columns + column];
+  }
+
+  /** Sum of the counts inside the bins. */
+  insideCount(): number {
+    let s = 0;
+    for (let i = 0; i < this.counts.length; i++) s += this.counts[i];
+    return s;
+  }
+
+  /** Inside plus outside: every count the matrix received. */
+  totalCount(): number {
+    return this.insideCount() + this.tally.count;
+  }
+
+  /** The two binned coordinates of a cycle. */
+  protected abstract coordinates(from: number, to: number): [number, number];
+
+  addCycle(from: number, to: number, count: number, startIndex: number): void {
+    const [r, c] = this.coordinates(from, to);
+    const i = binOf(this.rowEdges, r);
+    const j = binOf(this.columnEdges, c);
+    if (i < 0 || j < 0) {
+      if (this.outsidePolicy === 'error') throw new OutsideBinsError(r, c, startIndex);
+      const t = this.tally;
+      t.count += count;
+      if (r < t.rowMin) t.rowMin = r;
+      if (r > t.rowMax) t.rowMax = r;
+      if (c < t.columnMin) t.columnMin = c;
+      if (c > t.columnMax) t.columnMax = c;
+      return;
+    }
+    this.counts[i * this.columns + j] += count;
+  }
+
+  /** Adds another matrix of the same kind and identical bins (two recordings into one). */
+  add(other: CycleMatrix): this {
+    if (other.kind !== this.kind) throw new BinError('kind', `cannot add a ${other.kind} matrix to a ${this.kind} matrix`);
+    sameEdges(this.rowEdges, other.rowEdges, 'rowEdges');
+    sameEdges(this.columnEdges, other.columnEdges, 'columnEdges');
+    for (let i = 0; i < this.counts.length; i++) this.counts[i] += other.counts[i];
+    const t = this.tally;
+    const o = other.tally;
+    t.count += o.count;
+    t.rowMin = Math.min(t.rowMin, o.rowMin);
+    t.rowMax = Math.max(t.rowMax, o.rowMax);
+    t.columnMin = Math.min(t.columnMin, o.columnMin);
+    t.columnMax = Math.max(t.columnMax, o.columnMax);
+    return this;
+  }
+
+  /** Multiplies every count (inside and outside) by `factor`, e.g. a number of repeats. */
+  scale(factor: number): this {
+    if (!(factor >= 0) || factor === Infinity) throw new BinError('factor', `must be a finite number >= 0, got ${factor}`);
+    for (let i = 0; i < this.counts.length; i++) this.counts[i] *= factor;
+    this.tally.count *= factor;
+    return this;
+  }
+
+  toJSON(): CycleMatrixJSON {
+    const t = this.tally;
+    return {
+      format: 'loopwise-cycle-matrix',
+      version: 1,
+      kind: this.kind,
+      rowEdges: encodeArray(this.rowEdges),
+      columnEdges: encodeArray(this.columnEdges),
+      counts: encodeArray(this.counts),
+      outside: {
+        count: encodeNumber(t.count),
+        rowMin: encodeNumber(t.rowMin),
+        rowMax: encodeNumber(t.rowMax),
+        columnMin: encodeNumber(t.columnMin),
+        columnMax: encodeNumber(t.columnMax),
+      },
+    };
+  }
+
+  /** Restores counts and tally from JSON into this (freshly built, same bins) matrix. */
+  protected load(json: CycleMatrixJSON): this {
+    const counts = decodeArray(json.counts, 'counts');
+    if (counts.length !== this.counts.length) {
+      throw new BinError('counts', `expected ${this.counts.length} counts for ${this.rows} × ${this.columns} bins, got ${counts.length}`);
+    }
+    this.counts.set(counts);
+    const o = json.outside;
+    this.tally = {
+      count: decodeNumber(o.count, 'outside.count'),
+      rowMin: decodeNumber(o.rowMin, 'outside.rowMin'),
+      rowMax: decodeNumber(o.rowMax, 'outside.rowMax'),
+      columnMin: decodeNumber(o.columnMin, 'outside.columnMin'),
+      columnMax: decodeNumber(o.columnMax, 'outside.columnMax'),
+    };
+    return this;
+  }
+}
+
+/** Checks the envelope of a matrix JSON and returns its decoded edges. */
+export function readMatrixJSON(json: CycleMatrixJSON, kind: CycleMatrixKind): [Float64Array, Float64Array] {
+  if (json === null || typeof json !== 'object' || json.format !== 'loopwise-cycle-matrix') {
+    throw new BinError('format', 'not a loopwise-cycle-matrix object');
+  }
+  if (json.version !== 1) throw new BinError('version', `unsupported matrix version ${String(json.version)}`);
+  if (json.kind !== kind) throw new BinError('kind', `expected a ${kind} matrix, got ${String(json.kind)}`);
+  const rows = binEdges({ edges: decodeArray(json.rowEdges, 'rowEdges') }, 'rowEdges');
+  const columns = binEdges({ edges: decodeArray(json.columnEdges, 'columnEdges') }, 'columnEdges');
+  return [rows, columns];
+}
+
+function sameEdges(a: Float64Array, b: Float64Array, field: string): void {
+  if (a.length !== b.length || a.some((v, i) => !Object.is(v, b[i]))) {
+    throw new BinError(field, 'matrices with different bins cannot be added: rebin one first');
+  }
+}
