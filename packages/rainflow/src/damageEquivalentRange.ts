@@ -23,8 +23,8 @@ export interface DamageEquivalentOptions {
  * J. Appl. Mech. 12 (1945) A159-A164.
  *
  * @example
- * const { cycles } = rainflow([0, 2, 0, 2, 0], { residue: 'none' });
- * damageEquivalentRange(cycles, { slope: 3, referenceCount: 1 }); // returns 2
+ * const { cycles } = rainflow([0, 2, 0, 2, 0]); // four half cycles of range 2
+ * damageEquivalentRange(cycles, { slope: 3, referenceCount: 2 }); // returns 2
  */
 export function damageEquivalentRange(
   cycles: CycleTable | Pick<CycleColumns, 'range' | 'count'>,

@@ -5,7 +5,6 @@ import {
   InvalidOptionError,
   RainflowCounter,
   RangeMeanMatrix,
-  rainflow,
   type ResiduePolicy,
 } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
