@@ -1,0 +1,17 @@
+import { describe, expect, it } from 'vitest';
+import { handbookSteels } from '@loopwise/material';
+import { damageParameters, loopReversalsToFailure } from '@loopwise/mean-stress';
+
+// The README example, executed so the documentation cannot drift from the code (expected values
+// computed from the formulas, see smithWatsonTopper.test.ts and walker.test.ts).
+describe('README example', () => {
+  it('AISI 4340, sigma_max 800 MPa, epsilon_a 0.005: SWT 8250.04..., Walker 9209.21... reversals', () => {
+    const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
+    const loop = { sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 };
+    const swt = loopReversalsToFailure(loop, aisi4340);
+    expect(swt.reversals).toBeCloseTo(8250.04652803425, 6);
+    expect(swt.value).toBeCloseTo(4, 12);
+    expect(swt.flags).toEqual([]);
+    expect(damageParameters.walker.reversalsToFailure(loop, aisi4340).reversals).toBeCloseTo(9209.21746607676, 5);
+  });
+});
