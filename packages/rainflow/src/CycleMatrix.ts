@@ -99,11 +99,14 @@ export abstract class CycleMatrix implements CycleSink {
     return this.insideCount() + this.tally.count;
   }
 
-  /** The two binned coordinates of a cycle. */
-  protected abstract coordinates(from: number, to: number): [number, number];
+  /** The binned row coordinate of a cycle (range, or from). */
+  protected abstract rowValue(from: number, to: number): number;
+  /** The binned column coordinate of a cycle (mean, or to). */
+  protected abstract columnValue(from: number, to: number): number;
 
   addCycle(from: number, to: number, count: number, startIndex: number): void {
-    const [r, c] = this.coordinates(from, to);
+    const r = this.rowValue(from, to);
+    const c = this.columnValue(from, to);
     const i = binOf(this.rowEdges, r);
     const j = binOf(this.columnEdges, c);
     if (i < 0 || j < 0) {

@@ -31,8 +31,12 @@ export class FromToMatrix extends CycleMatrix {
     super(options.from, options.to, options.outside ?? 'tally', ['from', 'to']);
   }
 
-  protected coordinates(from: number, to: number): [number, number] {
-    return [from, to];
+  protected rowValue(from: number): number {
+    return from;
+  }
+
+  protected columnValue(_from: number, to: number): number {
+    return to;
   }
 
   /** Rebuilds a matrix saved with `toJSON`. */

@@ -31,9 +31,13 @@ export class RangeMeanMatrix extends CycleMatrix {
     super(options.range, options.mean, options.outside ?? 'tally', ['range', 'mean']);
   }
 
-  protected coordinates(from: number, to: number): [number, number] {
+  protected rowValue(from: number, to: number): number {
+    return to > from ? to - from : from - to;
+  }
+
+  protected columnValue(from: number, to: number): number {
     const sum = from + to;
-    return [to > from ? to - from : from - to, sum - sum === 0 ? sum * 0.5 : from * 0.5 + to * 0.5];
+    return sum - sum === 0 ? sum * 0.5 : from * 0.5 + to * 0.5;
   }
 
   /** Rebuilds a matrix saved with `toJSON`. */
