@@ -3,7 +3,7 @@ import { describe, expect, test } from 'vitest';
 import { NonFiniteSampleError, RangeOverflowError, rainflow, rainflowFourPoint, turningPoints } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
 import { anyHistory, tiedHistory } from './support/arbitraries';
-import { astmRainflow, astmRepeating, referenceTurningPoints } from './support/astmE1049';
+import { astmRainflow, astmRepeating, referenceTurningPoints } from './support/astmE1049.mjs';
 import { cycleKeys, rangeMeanKeys, rows } from './support/rows';
 
 // ASTM E1049-85 (reapproved 2017), section 5.4.4 and its figure of the rainflow example: the

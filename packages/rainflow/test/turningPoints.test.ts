@@ -3,7 +3,7 @@ import { describe, expect, test } from 'vitest';
 import { InvalidOptionError, NonFiniteSampleError, ReversalFilter, turningPoints } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
 import { anyHistory, chunking, cut, tiedHistory } from './support/arbitraries';
-import { referenceTurningPoints } from './support/astmE1049';
+import { referenceTurningPoints } from './support/astmE1049.mjs';
 
 describe('turningPoints(history, options)', () => {
   test('turningPoints(history) collapses plateaus to their first sample and keeps the first and last', () => {

@@ -1,5 +1,5 @@
 import type { CycleTable } from '@loopwise/rainflow';
-import type { RefCycle } from './astmE1049';
+import type { RefCycle } from './astmE1049.mjs';
 
 /** Rows of a cycle table as plain objects, in table order. */
 export function rows(table: CycleTable | null): ReturnType<CycleTable['row']>[] {

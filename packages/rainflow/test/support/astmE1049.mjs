@@ -2,27 +2,16 @@
  * Slow, literal implementations of the counting procedures of ASTM E1049-85 (reapproved 2017),
  * written step by step from the standard's text for use as test oracles only. They are not
  * exported by the package and are deliberately naive (arrays of objects, splice, O(n²)).
+ * Plain JavaScript so that the benchmark runner can check its results against them too;
+ * types in astmE1049.d.mts.
  */
-
-export interface Point {
-  value: number;
-  index: number;
-}
-
-export interface RefCycle {
-  from: number;
-  to: number;
-  count: number;
-  startIndex: number;
-  endIndex: number;
-}
 
 /**
  * Peaks and valleys (ASTM E1049-85, 3.1): equal consecutive samples are one point (the first);
  * a point is kept when the slope changes sign there; the first and last points are kept.
  */
-export function referenceTurningPoints(history: ArrayLike<number>): Point[] {
-  const runs: Point[] = [];
+export function referenceTurningPoints(history) {
+  const runs = [];
   for (let i = 0; i < history.length; i++) {
     if (runs.length === 0 || history[i] !== runs[runs.length - 1].value) runs.push({ value: history[i], index: i });
   }
@@ -42,10 +31,10 @@ export function referenceTurningPoints(history: ArrayLike<number>): Point[] {
  * two points, go to 2. (5) Count Y as one half cycle, discard the first point of Y, the second
  * becomes S, go to 2. (6) Count each range not yet counted as one half cycle.
  */
-export function astmRainflow(points: Point[]): RefCycle[] {
-  const out: RefCycle[] = [];
-  const list: Point[] = [];
-  const range = (a: Point, b: Point) => Math.abs(b.value - a.value);
+export function astmRainflow(points) {
+  const out = [];
+  const list = [];
+  const range = (a, b) => Math.abs(b.value - a.value);
   for (const p of points) {
     list.push(p);
     for (;;) {
@@ -77,7 +66,7 @@ export function astmRainflow(points: Point[]): RefCycle[] {
  * to start at the peak or valley of largest magnitude and closed by repeating that point; then
  * whenever X >= Y, Y is counted as one cycle and its two points are discarded. Only full cycles.
  */
-export function astmRepeating(points: Point[]): RefCycle[] {
+export function astmRepeating(points) {
   // circular peaks and valleys
   let ring = points.slice();
   while (ring.length > 1 && ring[ring.length - 1].value === ring[0].value) ring.pop();
@@ -90,8 +79,8 @@ export function astmRepeating(points: Point[]): RefCycle[] {
   let start = 0;
   for (let k = 1; k < ring.length; k++) if (Math.abs(ring[k].value) > Math.abs(ring[start].value)) start = k;
   const seq = [...ring.slice(start), ...ring.slice(0, start), ring[start]];
-  const out: RefCycle[] = [];
-  const list: Point[] = [];
+  const out = [];
+  const list = [];
   for (const p of seq) {
     list.push(p);
     for (;;) {

@@ -1,0 +1,55 @@
+#!/usr/bin/env node
+// The one benchmark runner (`pnpm bench`). Runs every suite in SUITES in one process, prints a
+// table, and writes benchmarks/results.json. Every figure is a ratio to a baseline measured in
+// the same run (harness.mjs pins the baselines and their warm-up); targets come from the issues.
+// Run one suite with `pnpm bench rainflow`.
+import { writeFileSync } from 'node:fs';
+import { arch, cpus, platform } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import * as harness from './harness.mjs';
+
+/** Suites in run order; each is ./suites/<name>.mjs exporting `run(harness)` → rows. */
+const SUITES = ['rainflow', 'mean-stress'];
+
+const only = process.argv.slice(2);
+const rows = [];
+for (const name of SUITES) {
+  if (only.length && !only.includes(name)) continue;
+  const suite = await import(`./suites/${name}.mjs`);
+  const t0 = Date.now();
+  const got = await suite.run(harness);
+  for (const r of got) rows.push({ suite: name, ...r, pass: r.target == null ? null : r.ratio <= r.target });
+  console.error(`suite ${name}: ${got.length} figures in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+}
+
+const fmt = (x, d = 2) => (x == null ? '' : Number(x).toFixed(d));
+const table = [['figure', 'ratio', 'target', 'pass', 'baseline', 'ns/sample', 'ns/reversal']];
+for (const r of rows) {
+  table.push([
+    r.figure,
+    fmt(r.ratio),
+    r.target == null ? '' : `<= ${r.target}`,
+    r.pass == null ? '' : r.pass ? 'yes' : 'NO',
+    r.baseline,
+    fmt(r.nsPerSample),
+    fmt(r.nsPerReversal ?? r.nsPerLoop),
+  ]);
+}
+const widths = table[0].map((_, c) => Math.max(...table.map((row) => String(row[c]).length)));
+for (const row of table) console.log(row.map((cell, c) => String(cell).padEnd(widths[c])).join('  '));
+
+const out = {
+  format: 'loopwise-benchmark-results',
+  version: 1,
+  date: new Date().toISOString(),
+  machine: { node: process.version, platform: platform(), arch: arch(), cpu: cpus()[0]?.model ?? 'unknown', cores: cpus().length },
+  warmupRuns: harness.WARMUP_RUNS,
+  timedRuns: harness.TIMED_RUNS,
+  figures: rows,
+};
+if (only.length === 0) {
+  writeFileSync(fileURLToPath(new URL('./results.json', import.meta.url)), JSON.stringify(out, null, 2) + '\n');
+  console.error('wrote benchmarks/results.json');
+}
+const failed = rows.filter((r) => r.pass === false);
+if (failed.length) console.error(`${failed.length} figure(s) miss their target: ${failed.map((r) => r.figure).join('; ')}`);
