@@ -27,7 +27,7 @@ export function checkRange(v: number, field: string, index?: number): void {
 /** Damage of one record under a cut-off limit (cycles); throws if it overflows. */
 export function recordDamage(count: number, cycles: number, limit: number, index?: number): number {
   if (cycles > limit) return 0;
-  const d = count / cycles;
+  const d = count / cycles + 0; // + 0 turns a -0 count into 0
   if (d === Infinity) {
     throw new MinerError('invalid-life', 'cyclesToFailure', cycles, 'so small that count / cyclesToFailure overflows', index);
   }
