@@ -99,6 +99,12 @@ export class RainflowCounter {
   private readonly bufV = new Float64Array(BLOCK + 2);
   private readonly bufI = new Float64Array(BLOCK + 2);
   private finished = false;
+  /**
+   * True for a count that starts the history (startIndex 0) with the 'half' or 'none' policy:
+   * ranges from the starting point that the next range reaches are final and leave the stack at
+   * once. 'repeat' needs them at the seam, and a later segment needs them to be appended.
+   */
+  private readonly trimStart: boolean;
 
   constructor(options: RainflowCounterOptions = {}) {
     const residue = options.residue ?? 'half';
@@ -108,6 +114,7 @@ export class RainflowCounter {
     this.residuePolicy = residue;
     this.filter = new ReversalFilter({ gate: options.gate ?? 0, startIndex: options.startIndex ?? 0 });
     this.startIndex = options.startIndex ?? 0;
+    this.trimStart = residue !== 'repeat' && this.startIndex === 0;
     this.table = options.sink ? null : new CycleTable();
     this.sink = options.sink ?? (this.table as CycleTable);
     this.sv = new Float64Array(256);
@@ -303,6 +310,22 @@ export class RainflowCounter {
           si[top - 3] = si[top - 1];
           top -= 2;
         } else break;
+      }
+      if (top === 3 && this.trimStart) {
+        // ASTM E1049-85 5.4.4 step 5: the range from the starting point is exceeded (or tied) by
+        // the next; it can never close, so it is final now: a half cycle under 'half', dropped
+        // under 'none'. The stack then holds exactly the standard's list and stays small.
+        const s0 = sv[0];
+        const s1 = sv[1];
+        const s2 = sv[2];
+        if ((s2 > s1 ? s2 - s1 : s1 - s2) >= (s1 > s0 ? s1 - s0 : s0 - s1)) {
+          if (this.residuePolicy === 'half') sink.addCycle(s0, s1, 0.5, si[0], si[1], si[1]);
+          sv[0] = s1;
+          si[0] = si[1];
+          sv[1] = s2;
+          si[1] = si[2];
+          top = 2;
+        }
       }
     }
     this.top = top;
