@@ -1,0 +1,36 @@
+import { describe, expect, test } from 'vitest';
+import { DEFAULT_CRITICAL_DAMAGE, lifeFromDamage } from '@loopwise/miner';
+
+describe('lifeFromDamage(damagePerRepeat, {criticalDamage?, scatterFactor?, unit?})', () => {
+  test('lifeFromDamage gives Dcrit / D repeats, the design life and the life in the unit (the TSDoc example)', () => {
+    expect(lifeFromDamage(0.002, { criticalDamage: 0.5, scatterFactor: 2, unit: { label: 'h', perRepeat: 0.25 } })).toEqual({
+      damagePerRepeat: 0.002,
+      criticalDamage: 0.5,
+      scatterFactor: 2,
+      repeats: 250,
+      designRepeats: 125,
+      unit: 'h',
+      perRepeat: 0.25,
+      life: 62.5,
+      designLife: 31.25,
+    });
+  });
+
+  test('lifeFromDamage defaults: Dcrit = 1 (Miner 1945), no scatter factor, no unit', () => {
+    expect(DEFAULT_CRITICAL_DAMAGE).toBe(1);
+    expect(lifeFromDamage(0.01)).toEqual({ damagePerRepeat: 0.01, criticalDamage: 1, scatterFactor: 1, repeats: 100, designRepeats: 100 });
+  });
+
+  test('the scatter factor divides life and leaves the mean estimate alone', () => {
+    const mean = lifeFromDamage(1e-5);
+    const design = lifeFromDamage(1e-5, { scatterFactor: 5 });
+    expect(design.repeats).toBe(mean.repeats);
+    expect(design.designRepeats).toBeCloseTo(mean.repeats / 5, 9);
+  });
+
+  test('D = 0 gives infinite life and a tiny D a finite or infinite one, never NaN', () => {
+    expect(lifeFromDamage(0, { scatterFactor: 3, unit: { label: 'flights', perRepeat: 1 } })).toMatchObject({ repeats: Infinity, designLife: Infinity });
+    expect(lifeFromDamage(5e-324).repeats).toBe(Infinity);
+    expect(Object.values(lifeFromDamage(5e-324, { unit: { label: 'km', perRepeat: 1e-300 } })).some((v) => Number.isNaN(v))).toBe(false);
+  });
+});
