@@ -38,12 +38,29 @@ const NAMES = ['range', 'mean', 'from', 'to', 'count', 'startIndex', 'endIndex',
  * Sample indices are stored as doubles (exact up to 2^53).
  */
 export class CycleTable implements CycleSink {
-  private cols: Float64Array[];
+  // one field per column (not an array of columns) keeps every store monomorphic and direct
+  private cRange: Float64Array;
+  private cMean: Float64Array;
+  private cFrom: Float64Array;
+  private cTo: Float64Array;
+  private cCount: Float64Array;
+  private cStart: Float64Array;
+  private cEnd: Float64Array;
+  private cClose: Float64Array;
   private n = 0;
+  private capacity: number;
 
   constructor(initialCapacity = 1024) {
     const cap = Math.max(16, initialCapacity | 0);
-    this.cols = NAMES.map(() => new Float64Array(cap));
+    this.capacity = cap;
+    this.cRange = new Float64Array(cap);
+    this.cMean = new Float64Array(cap);
+    this.cFrom = new Float64Array(cap);
+    this.cTo = new Float64Array(cap);
+    this.cCount = new Float64Array(cap);
+    this.cStart = new Float64Array(cap);
+    this.cEnd = new Float64Array(cap);
+    this.cClose = new Float64Array(cap);
   }
 
   /** Number of rows (full and half cycles). */
@@ -53,7 +70,7 @@ export class CycleTable implements CycleSink {
 
   /** Sum of the count column: full cycles + half cycles / 2. */
   totalCount(): number {
-    const c = this.cols[4];
+    const c = this.cCount;
     let s = 0;
     for (let i = 0; i < this.n; i++) s += c[i];
     return s;
@@ -62,18 +79,17 @@ export class CycleTable implements CycleSink {
   addCycle(from: number, to: number, count: number, startIndex: number, endIndex: number, closeIndex: number): void {
     const range = to > from ? to - from : from - to;
     if (range === Infinity) throw new RangeOverflowError(startIndex, endIndex);
-    if (this.n === this.cols[0].length) this.grow();
+    if (this.n === this.capacity) this.grow();
     const i = this.n++;
-    const c = this.cols;
-    c[0][i] = range;
     const sum = from + to;
-    c[1][i] = sum - sum === 0 ? sum * 0.5 : from * 0.5 + to * 0.5; // no overflow, no subnormal loss
-    c[2][i] = from;
-    c[3][i] = to;
-    c[4][i] = count;
-    c[5][i] = startIndex;
-    c[6][i] = endIndex;
-    c[7][i] = closeIndex;
+    this.cRange[i] = range;
+    this.cMean[i] = sum - sum === 0 ? sum * 0.5 : from * 0.5 + to * 0.5; // no overflow, no subnormal loss
+    this.cFrom[i] = from;
+    this.cTo[i] = to;
+    this.cCount[i] = count;
+    this.cStart[i] = startIndex;
+    this.cEnd[i] = endIndex;
+    this.cClose[i] = closeIndex;
   }
 
   /** Appends every row of another table, in its order. */
@@ -83,9 +99,16 @@ export class CycleTable implements CycleSink {
 
   /** Copies row `i` of `other` to the end of this table. */
   copyRow(other: CycleTable, i: number): void {
-    if (this.n === this.cols[0].length) this.grow();
+    if (this.n === this.capacity) this.grow();
     const j = this.n++;
-    for (let k = 0; k < NAMES.length; k++) this.cols[k][j] = other.cols[k][i];
+    this.cRange[j] = other.cRange[i];
+    this.cMean[j] = other.cMean[i];
+    this.cFrom[j] = other.cFrom[i];
+    this.cTo[j] = other.cTo[i];
+    this.cCount[j] = other.cCount[i];
+    this.cStart[j] = other.cStart[i];
+    this.cEnd[j] = other.cEnd[i];
+    this.cClose[j] = other.cClose[i];
   }
 
   /** Removes every row. */
@@ -95,51 +118,50 @@ export class CycleTable implements CycleSink {
 
   /** Views of the columns, trimmed to the row count (no copy; valid until the next add). */
   columns(): CycleColumns {
-    const v = (k: number) => this.cols[k].subarray(0, this.n);
+    const n = this.n;
     return {
-      range: v(0),
-      mean: v(1),
-      from: v(2),
-      to: v(3),
-      count: v(4),
-      startIndex: v(5),
-      endIndex: v(6),
-      closeIndex: v(7),
+      range: this.cRange.subarray(0, n),
+      mean: this.cMean.subarray(0, n),
+      from: this.cFrom.subarray(0, n),
+      to: this.cTo.subarray(0, n),
+      count: this.cCount.subarray(0, n),
+      startIndex: this.cStart.subarray(0, n),
+      endIndex: this.cEnd.subarray(0, n),
+      closeIndex: this.cClose.subarray(0, n),
     };
   }
 
   /** Row `i` as an object (for tests and small reports; not for hot loops). */
   row(i: number): { [K in (typeof NAMES)[number]]: number } {
     if (!(i >= 0 && i < this.n)) throw new RangeError(`row ${i} is outside 0..${this.n - 1}`);
-    const c = this.cols;
     return {
-      range: c[0][i],
-      mean: c[1][i],
-      from: c[2][i],
-      to: c[3][i],
-      count: c[4][i],
-      startIndex: c[5][i],
-      endIndex: c[6][i],
-      closeIndex: c[7][i],
+      range: this.cRange[i],
+      mean: this.cMean[i],
+      from: this.cFrom[i],
+      to: this.cTo[i],
+      count: this.cCount[i],
+      startIndex: this.cStart[i],
+      endIndex: this.cEnd[i],
+      closeIndex: this.cClose[i],
     };
   }
 
   /** Feeds every row, in order, to another sink. */
   replayInto(sink: CycleSink): void {
-    const c = this.cols;
-    for (let i = 0; i < this.n; i++) sink.addCycle(c[2][i], c[3][i], c[4][i], c[5][i], c[6][i], c[7][i]);
+    for (let i = 0; i < this.n; i++) {
+      sink.addCycle(this.cFrom[i], this.cTo[i], this.cCount[i], this.cStart[i], this.cEnd[i], this.cClose[i]);
+    }
   }
 
   toJSON(): CycleTableState {
-    const c = this.cols;
-    const ints = (k: number) => Array.from(c[k].subarray(0, this.n));
+    const n = this.n;
     return {
-      from: encodeArray(c[2], this.n),
-      to: encodeArray(c[3], this.n),
-      count: encodeArray(c[4], this.n),
-      startIndex: ints(5),
-      endIndex: ints(6),
-      closeIndex: ints(7),
+      from: encodeArray(this.cFrom, n),
+      to: encodeArray(this.cTo, n),
+      count: encodeArray(this.cCount, n),
+      startIndex: Array.from(this.cStart.subarray(0, n)),
+      endIndex: Array.from(this.cEnd.subarray(0, n)),
+      closeIndex: Array.from(this.cClose.subarray(0, n)),
     };
   }
 
@@ -161,10 +183,20 @@ export class CycleTable implements CycleSink {
   }
 
   private grow(): void {
-    this.cols = this.cols.map((a) => {
-      const b = new Float64Array(a.length * 2);
+    const cap = this.capacity * 2;
+    const widen = (a: Float64Array) => {
+      const b = new Float64Array(cap);
       b.set(a);
       return b;
-    });
+    };
+    this.cRange = widen(this.cRange);
+    this.cMean = widen(this.cMean);
+    this.cFrom = widen(this.cFrom);
+    this.cTo = widen(this.cTo);
+    this.cCount = widen(this.cCount);
+    this.cStart = widen(this.cStart);
+    this.cEnd = widen(this.cEnd);
+    this.cClose = widen(this.cClose);
+    this.capacity = cap;
   }
 }
