@@ -1,0 +1,455 @@
+import { BranchSolver } from './BranchSolver';
+import { LoopTable } from './LoopTable';
+import { NotchSampleError } from './NotchSampleError';
+import { NotchStateError } from './NotchStateError';
+import {
+  materialFields,
+  materialFromFields,
+  resolveTrackerOptions,
+  type NotchTrackerOptions,
+  type ResolvedTrackerOptions,
+} from './NotchTrackerOptions';
+import { NotchValidityError } from './NotchValidityError';
+import { decodeNumber, encodeNumber, type EncodedNumber } from './numberCodec';
+import { ReversalTable } from './ReversalTable';
+
+/** What {@link NotchTracker.end}, {@link trackNotch} and {@link trackNotchRepeating} return. */
+export interface NotchTrackResult {
+  /** Every reversal of the local path, in order: source index, history value, local σ and ε. */
+  reversals: ReversalTable;
+  /** Every closed hysteresis loop, in the order it closed. */
+  loops: LoopTable;
+  /**
+   * The open loops left at the end: the reversal points still in memory (oldest first), then
+   * the end point of the path (the last extreme, or the initial value when the path never moved).
+   */
+  residue: ReversalTable;
+  /** Number of samples pushed. */
+  samples: number;
+  /** True when some local strain amplitude exceeded `strainLimit` (the model is then extrapolating). */
+  beyondStrainLimit: boolean;
+  /** Sample index of the first such point, or -1. */
+  firstBeyondIndex: number;
+}
+
+/** Serialised state of a {@link NotchTracker} (plain JSON; -0 and non-finite numbers encoded). */
+export interface NotchTrackerState {
+  format: 'loopwise-notch-tracker';
+  version: 1;
+  options: Record<string, unknown>;
+  next: number;
+  samples: number;
+  dir: number;
+  ext: EncodedNumber;
+  extIndex: number;
+  memory: { value: EncodedNumber[]; index: number[]; stress: EncodedNumber[]; strain: EncodedNumber[] };
+  beyondStrainLimit: boolean;
+  firstBeyondIndex: number;
+}
+
+/** A frozen copy of the memory, for the repeating-mode shortcut (internal). */
+export interface TrackerSnapshot {
+  k: number;
+  dir: number;
+  ext: number;
+  extIndex: number;
+  sv: Float64Array;
+  si: Float64Array;
+  ss: Float64Array;
+  se: Float64Array;
+}
+
+/**
+ * The memory-aware local stress-strain tracker at a notch root, streaming: push chunks of the
+ * history in any sizes (chunk size 1 included) and get the same events as one batch call.
+ *
+ * Model (Clormann and Seeger's hysteresis-counting memory model): the part starts unloaded
+ * (or at `initial`, reached by first loading). First loading follows the cyclic curve; after a
+ * reversal each branch is the Masing curve from its origin, with the notch rule applied to the
+ * pseudo-elastic range from the same origin. Memory 1: a branch that reaches the value of the
+ * origin of the branch it interrupted (ties close) closes that loop; both reversal points leave
+ * the memory and the path continues on the older branch. Memory 2: when the older branch is the
+ * first-loading curve, the path continues on it. Memory 3: a branch that starts on the
+ * first-loading curve and reaches the mirror of its start continues on the first-loading curve
+ * of the other sign. Because a branch's local stress and strain grow monotonically with its
+ * pseudo-elastic range, closing in the history's value is closing in σ–ε space; after a closure
+ * the live state is exactly the stored memory point.
+ *
+ * Per sample the work is a comparison with the running extreme and with the closure level;
+ * notch-rule solves run only at reversals. Every sample is checked: NaN or ±Infinity throws
+ * {@link NotchSampleError} with its index.
+ *
+ * Reference: U. H. Clormann and T. Seeger, "Rainflow-HCM, ein Hysteresisschleifen-Zählalgorithmus
+ * auf werkstoffmechanischer Grundlage", Stahlbau 55(3), 1986, 65-71; Masing's hypothesis:
+ * G. Masing, Proc. 2nd Int. Congress of Applied Mechanics, Zürich, 1926, 332-335.
+ *
+ * @example
+ * const t = new NotchTracker({ material, Kt: 2.5 });
+ * t.push([0, 300]).push([-240, 360]);
+ * t.end().loops.length
+ * // returns 1 (the loop 300/-240 closes on the first pass)
+ */
+export class NotchTracker {
+  /** The checked options. */
+  readonly options: Readonly<ResolvedTrackerOptions>;
+  private readonly solver: BranchSolver;
+  private readonly scale: number;
+  private readonly offset: number;
+  private readonly strainLimit: number;
+  private readonly revs = new ReversalTable();
+  private readonly loopTable = new LoopTable();
+  private next = 0;
+  private samples = 0;
+  private dir = 0;
+  private ext: number;
+  private extIndex = -1;
+  private thr = 0;
+  private k = 0;
+  private sv = new Float64Array(64);
+  private si = new Float64Array(64);
+  private ss = new Float64Array(64);
+  private se = new Float64Array(64);
+  private beyond = false;
+  private firstBeyond = -1;
+  // Output of computeAt.
+  private outStress = 0;
+  private outStrain = 0;
+
+  constructor(options: NotchTrackerOptions) {
+    const o = resolveTrackerOptions(options);
+    this.options = Object.freeze(o);
+    this.solver = new BranchSolver(o.material, o.kind, o.tolerance, o.maxIterations);
+    this.scale = o.scale;
+    this.offset = o.offset;
+    this.strainLimit = o.strainLimit;
+    this.ext = o.initial;
+  }
+
+  /** Index the next pushed sample gets. */
+  get nextIndex(): number {
+    return this.next;
+  }
+
+  /** Events so far (live tables; read, do not keep across pushes). */
+  get reversals(): ReversalTable {
+    return this.revs;
+  }
+
+  /** Closed loops so far (live table). */
+  get loops(): LoopTable {
+    return this.loopTable;
+  }
+
+  /** Pushes a chunk of samples; returns this. */
+  push(chunk: ArrayLike<number>): this {
+    this.pushRange(chunk, 0, chunk.length);
+    return this;
+  }
+
+  /** Pushes `chunk[from]` … `chunk[to − 1]` (internal use by the batch functions too). */
+  pushRange(chunk: ArrayLike<number>, from: number, to: number): void {
+    const off = this.offset;
+    let dir = this.dir;
+    let ext = this.ext;
+    let thr = this.thr;
+    let idx = this.next;
+    for (let i = from; i < to; i++, idx++) {
+      const x = chunk[i] + off;
+      if (x - x !== 0) {
+        this.next = idx;
+        throw new NotchSampleError(idx, chunk[i]);
+      }
+      if (dir > 0) {
+        if (x > ext) {
+          ext = x;
+          this.extIndex = idx;
+          if (x >= thr) {
+            this.ext = ext;
+            this.close(x, idx);
+            thr = this.thr;
+          }
+        } else if (x < ext) {
+          this.ext = ext;
+          this.reverse(x, idx);
+          dir = this.dir;
+          ext = this.ext;
+          thr = this.thr;
+        }
+      } else if (dir < 0) {
+        if (x < ext) {
+          ext = x;
+          this.extIndex = idx;
+          if (x <= thr) {
+            this.ext = ext;
+            this.close(x, idx);
+            thr = this.thr;
+          }
+        } else if (x > ext) {
+          this.ext = ext;
+          this.reverse(x, idx);
+          dir = this.dir;
+          ext = this.ext;
+          thr = this.thr;
+        }
+      } else if (x !== ext) {
+        this.start(x, idx);
+        dir = this.dir;
+        ext = this.ext;
+        thr = this.thr;
+      }
+    }
+    this.dir = dir;
+    this.ext = ext;
+    this.thr = thr;
+    this.samples += idx - this.next;
+    this.next = idx;
+  }
+
+  /** First movement away from the initial value. */
+  private start(x: number, idx: number): void {
+    const v0 = this.ext;
+    const d = x > v0 ? 1 : -1;
+    if (this.k === 0 && (v0 === 0 || (v0 > 0) === (d > 0))) {
+      this.dir = d;
+      this.thr = d * Infinity;
+      this.ext = x;
+      this.extIndex = idx;
+      return;
+    }
+    this.dir = -d; // the initial value is a reversal of the path
+    this.reverse(x, idx);
+  }
+
+  /** A reversal at the pending extreme; x (at idx) moves back from it. */
+  private reverse(x: number, idx: number): void {
+    const v = this.ext;
+    this.computeAt(v, this.extIndex, true);
+    const stress = this.outStress;
+    const strain = this.outStrain;
+    this.revs.add(this.extIndex, v, stress, strain);
+    if (this.k === this.sv.length) this.growMemory();
+    const k = this.k++;
+    this.sv[k] = v;
+    this.si[k] = this.extIndex;
+    this.ss[k] = stress;
+    this.se[k] = strain;
+    this.dir = -this.dir;
+    this.setThreshold();
+    this.ext = x;
+    this.extIndex = idx;
+    if (this.dir > 0 ? x >= this.thr : x <= this.thr) this.close(x, idx);
+  }
+
+  /** Closes every loop (memory 1, 2) and mirror rejoin (memory 3) that x reaches. */
+  private close(x: number, idx: number): void {
+    const up = this.dir > 0;
+    while (up ? x >= this.thr : x <= this.thr) {
+      const k = this.k;
+      if (k >= 2) {
+        this.loopTable.add(this.ss[k - 2], this.se[k - 2], this.ss[k - 1], this.se[k - 1], this.si[k - 2], this.si[k - 1], idx, 1);
+        this.k = k - 2;
+      } else if (k === 1) {
+        this.k = 0;
+      } else {
+        break;
+      }
+      this.setThreshold();
+    }
+  }
+
+  private setThreshold(): void {
+    const k = this.k;
+    this.thr = k >= 2 ? this.sv[k - 2] : k === 1 ? -this.sv[0] : this.dir * Infinity;
+  }
+
+  /** Local state at history value v on the current branch (direction this.dir) into out*. */
+  private computeAt(v: number, index: number, flag: boolean): void {
+    const k = this.k;
+    const solver = this.solver;
+    let a: number;
+    if (k === 0) {
+      a = this.scale * (v < 0 ? -v : v);
+    } else {
+      const d = v - this.sv[k - 1];
+      a = this.scale * (d < 0 ? -d : d) * 0.5;
+    }
+    if (a === Infinity) throw new NotchValidityError(index, 'pseudoElastic', a);
+    solver.solve(a);
+    const s = solver.stress;
+    const e = solver.strain;
+    if (s === Infinity) throw new NotchValidityError(index, 'stress', s);
+    if (e === Infinity) throw new NotchValidityError(index, 'strain', e);
+    if (flag && e > this.strainLimit && !this.beyond) {
+      this.beyond = true;
+      this.firstBeyond = index;
+    }
+    if (k === 0) {
+      this.outStress = v < 0 ? -s : s;
+      this.outStrain = v < 0 ? -e : e;
+    } else if (this.dir > 0) {
+      this.outStress = this.ss[k - 1] + 2 * s;
+      this.outStrain = this.se[k - 1] + 2 * e;
+    } else {
+      this.outStress = this.ss[k - 1] - 2 * s;
+      this.outStrain = this.se[k - 1] - 2 * e;
+    }
+  }
+
+  private growMemory(): void {
+    const g = (a: Float64Array) => {
+      const b = new Float64Array(a.length * 2);
+      b.set(a);
+      return b;
+    };
+    this.sv = g(this.sv);
+    this.si = g(this.si);
+    this.ss = g(this.ss);
+    this.se = g(this.se);
+  }
+
+  /** The residue (memory points, then the end point of the path) as a new table. */
+  residue(): ReversalTable {
+    const r = new ReversalTable(this.k + 1);
+    for (let i = 0; i < this.k; i++) r.add(this.si[i], this.sv[i], this.ss[i], this.se[i]);
+    this.computeAt(this.ext, this.extIndex, false);
+    r.add(this.extIndex, this.ext, this.outStress, this.outStrain);
+    return r;
+  }
+
+  /**
+   * Ends the history here: returns copies of the events so far and the residue. Does not change
+   * the state, so pushing may continue (the history is then longer).
+   */
+  end(): NotchTrackResult {
+    const reversals = new ReversalTable(this.revs.length);
+    reversals.appendRange(this.revs, 0, this.revs.length);
+    const loops = new LoopTable(this.loopTable.length);
+    loops.appendRange(this.loopTable, 0, this.loopTable.length);
+    return {
+      reversals,
+      loops,
+      residue: this.residue(),
+      samples: this.samples,
+      beyondStrainLimit: this.beyond,
+      firstBeyondIndex: this.firstBeyond,
+    };
+  }
+
+  /** The memory as a frozen copy (internal, for the repeating-mode shortcut). */
+  snapshot(): TrackerSnapshot {
+    const k = this.k;
+    return {
+      k,
+      dir: this.dir,
+      ext: this.ext,
+      extIndex: this.extIndex,
+      sv: this.sv.slice(0, k),
+      si: this.si.slice(0, k),
+      ss: this.ss.slice(0, k),
+      se: this.se.slice(0, k),
+    };
+  }
+
+  /** True when the memory equals a snapshot exactly (internal). */
+  matches(s: TrackerSnapshot): boolean {
+    if (s.k !== this.k || s.dir !== this.dir || s.ext !== this.ext || s.extIndex !== this.extIndex) return false;
+    for (let i = 0; i < s.k; i++) {
+      if (s.sv[i] !== this.sv[i] || s.si[i] !== this.si[i] || s.ss[i] !== this.ss[i] || s.se[i] !== this.se[i]) return false;
+    }
+    return true;
+  }
+
+  /** Sets the index of the next sample (internal: a repeated block keeps its own indices). */
+  restartIndex(next: number): void {
+    this.next = next;
+  }
+
+  /** The state as JSON-safe data. Events already emitted are not part of it. */
+  toJSON(): NotchTrackerState {
+    const o = this.options;
+    const options: Record<string, unknown> = {
+      material: materialFields(o.material),
+      input: o.input,
+      rule: o.rule,
+      loadToStress: o.loadToStress,
+      initial: encodeNumber(o.initial),
+      offset: encodeNumber(o.offset),
+      strainLimit: encodeNumber(o.strainLimit),
+      tolerance: o.tolerance,
+      maxIterations: o.maxIterations,
+    };
+    if (o.Kt !== undefined) options.Kt = o.Kt;
+    if (o.Kf !== undefined) options.Kf = o.Kf;
+    const k = this.k;
+    const enc = (a: Float64Array) => Array.from(a.subarray(0, k), encodeNumber);
+    return {
+      format: 'loopwise-notch-tracker',
+      version: 1,
+      options,
+      next: this.next,
+      samples: this.samples,
+      dir: this.dir,
+      ext: encodeNumber(this.ext),
+      extIndex: this.extIndex,
+      memory: { value: enc(this.sv), index: Array.from(this.si.subarray(0, k)), stress: enc(this.ss), strain: enc(this.se) },
+      beyondStrainLimit: this.beyond,
+      firstBeyondIndex: this.firstBeyond,
+    };
+  }
+
+  /** Rebuilds a tracker from {@link toJSON} output; it continues exactly (with empty event tables). */
+  static fromJSON(state: NotchTrackerState): NotchTracker {
+    if (state == null || typeof state !== 'object' || state.format !== 'loopwise-notch-tracker') {
+      throw new NotchStateError('format', "must be 'loopwise-notch-tracker'");
+    }
+    if (state.version !== 1) throw new NotchStateError('version', 'must be 1');
+    const o = state.options as Record<string, unknown>;
+    if (o == null || typeof o !== 'object') throw new NotchStateError('options', 'must be an object');
+    const num = (field: string, v: unknown): number => {
+      try {
+        return decodeNumber(v);
+      } catch {
+        throw new NotchStateError(field, 'must be an encoded number');
+      }
+    };
+    const t = new NotchTracker({
+      material: materialFromFields(o.material as Record<string, unknown>),
+      input: o.input as NotchTrackerOptions['input'],
+      rule: o.rule as NotchTrackerOptions['rule'],
+      ...(o.Kt !== undefined ? { Kt: o.Kt as number } : {}),
+      ...(o.Kf !== undefined ? { Kf: o.Kf as number } : {}),
+      loadToStress: o.loadToStress as number,
+      initial: num('options.initial', o.initial),
+      offset: num('options.offset', o.offset),
+      strainLimit: num('options.strainLimit', o.strainLimit),
+      tolerance: o.tolerance as number,
+      maxIterations: o.maxIterations as number,
+    });
+    const mem = state.memory;
+    if (mem == null || !Array.isArray(mem.value) || !Array.isArray(mem.index) || !Array.isArray(mem.stress) || !Array.isArray(mem.strain)) {
+      throw new NotchStateError('memory', 'must hold value, index, stress and strain arrays');
+    }
+    const k = mem.value.length;
+    if (mem.index.length !== k || mem.stress.length !== k || mem.strain.length !== k) throw new NotchStateError('memory', 'arrays must have equal lengths');
+    if (![-1, 0, 1].includes(state.dir)) throw new NotchStateError('dir', 'must be -1, 0 or 1');
+    if (!Number.isSafeInteger(state.next) || state.next < 0) throw new NotchStateError('next', 'must be a safe integer >= 0');
+    while (t.sv.length < k) t.growMemory();
+    for (let i = 0; i < k; i++) {
+      t.sv[i] = num(`memory.value[${i}]`, mem.value[i]);
+      t.si[i] = mem.index[i];
+      t.ss[i] = num(`memory.stress[${i}]`, mem.stress[i]);
+      t.se[i] = num(`memory.strain[${i}]`, mem.strain[i]);
+    }
+    t.k = k;
+    t.next = state.next;
+    t.samples = state.samples;
+    t.dir = state.dir;
+    t.ext = num('ext', state.ext);
+    t.extIndex = state.extIndex;
+    t.beyond = state.beyondStrainLimit === true;
+    t.firstBeyond = state.firstBeyondIndex;
+    t.setThreshold();
+    if (t.dir === 0) t.thr = 0;
+    return t;
+  }
+}

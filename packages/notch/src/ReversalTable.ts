@@ -1,0 +1,95 @@
+/** The columns of a {@link ReversalTable}, each trimmed to its length. */
+export interface ReversalColumns {
+  /** Source sample index of the reversal (-1 for the initial value). */
+  index: Float64Array;
+  /** The history value there (nominal, pseudo-elastic or strain, as given, offset applied). */
+  value: Float64Array;
+  /** Local stress σ at the notch root. */
+  stress: Float64Array;
+  /** Local strain ε at the notch root. */
+  strain: Float64Array;
+}
+
+/** One row of a {@link ReversalTable} (for small results and tests). */
+export interface ReversalRow {
+  index: number;
+  value: number;
+  stress: number;
+  strain: number;
+}
+
+/**
+ * Growable struct-of-arrays table of local reversal points: one Float64Array per column,
+ * doubled when full, so millions of reversals cost four doubles each and no objects.
+ */
+export class ReversalTable {
+  private cIndex: Float64Array;
+  private cValue: Float64Array;
+  private cStress: Float64Array;
+  private cStrain: Float64Array;
+  private n = 0;
+
+  constructor(initialCapacity = 256) {
+    const cap = Math.max(16, initialCapacity | 0);
+    this.cIndex = new Float64Array(cap);
+    this.cValue = new Float64Array(cap);
+    this.cStress = new Float64Array(cap);
+    this.cStrain = new Float64Array(cap);
+  }
+
+  /** Number of rows. */
+  get length(): number {
+    return this.n;
+  }
+
+  /** Appends a row. */
+  add(index: number, value: number, stress: number, strain: number): void {
+    if (this.n === this.cIndex.length) this.grow();
+    const i = this.n++;
+    this.cIndex[i] = index;
+    this.cValue[i] = value;
+    this.cStress[i] = stress;
+    this.cStrain[i] = strain;
+  }
+
+  /** Appends rows `from` … `to − 1` of another table. */
+  appendRange(other: ReversalTable, from: number, to: number): void {
+    for (let i = from; i < to; i++) this.add(other.cIndex[i], other.cValue[i], other.cStress[i], other.cStrain[i]);
+  }
+
+  /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
+  columns(): ReversalColumns {
+    const n = this.n;
+    return {
+      index: this.cIndex.subarray(0, n),
+      value: this.cValue.subarray(0, n),
+      stress: this.cStress.subarray(0, n),
+      strain: this.cStrain.subarray(0, n),
+    };
+  }
+
+  /** Row `i` as an object. */
+  row(i: number): ReversalRow {
+    return { index: this.cIndex[i], value: this.cValue[i], stress: this.cStress[i], strain: this.cStrain[i] };
+  }
+
+  /** Every row as objects (for small results, printing and tests). */
+  toRows(): ReversalRow[] {
+    const out: ReversalRow[] = [];
+    for (let i = 0; i < this.n; i++) out.push(this.row(i));
+    return out;
+  }
+
+  private grow(): void {
+    const cap = this.cIndex.length * 2;
+    const g = (a: Float64Array) => {
+      const b = new Float64Array(cap);
+      b.set(a);
+      return b;
+    };
+    this.cIndex = g(this.cIndex);
+    this.cValue = g(this.cValue);
+    this.cStress = g(this.cStress);
+    this.cStrain = g(this.cStrain);
+  }
+}

@@ -1,0 +1,92 @@
+import { LoopTable } from './LoopTable';
+import { NotchTracker, type NotchTrackResult } from './NotchTracker';
+import type { NotchTrackerOptions } from './NotchTrackerOptions';
+import { ReversalTable } from './ReversalTable';
+
+/** What {@link trackNotchRepeating} returns. */
+export interface NotchRepeatingResult {
+  /** The first pass, from the unloaded state (or `initial`). */
+  first: NotchTrackResult;
+  /**
+   * The stabilised pass: the block again, starting from the memory the first pass left. Every
+   * later pass equals it. Sample indices are those of the block (0 … length − 1).
+   */
+  stabilised: NotchTrackResult;
+  /**
+   * Index of the block's first sample of largest |value| (after offset), or -1 for an empty
+   * block. From there on the stabilised pass was copied from the first pass.
+   */
+  largestIndex: number;
+  /** True when the copy was taken (the memories of both passes agreed at `largestIndex`). */
+  reusedFirstPass: boolean;
+}
+
+/**
+ * Tracks a block that repeats: a first pass from the unloaded state and a stabilised pass that
+ * starts from the memory the first pass left (the seam from the last sample to the first is
+ * part of the history). Life per repeat comes from the stabilised pass, whose loops are the
+ * `repeat` rainflow cycles of the block.
+ *
+ * Method: only the part of the block before its largest |value| can differ between the passes:
+ * reaching that value closes every loop back to the first-loading curve (memories 1 to 3), so
+ * both passes then hold the same memory. The stabilised pass is therefore tracked up to that
+ * sample only; if its memory then equals the first pass's memory exactly (it does unless
+ * `initial` exceeds the block), the rest of the first pass's events is reused, otherwise the
+ * whole block is tracked again.
+ *
+ * Reference: U. H. Clormann and T. Seeger, Stahlbau 55(3), 1986, 65-71; repeating histories as
+ * in ASTM E1049-85 (reapproved 2017), 5.4.5.
+ *
+ * @example
+ * trackNotchRepeating([300, -240, 360, -100], { material, Kt: 2.5 }).stabilised.loops.length
+ * // returns 2 (360/-240 and 300/-100 ... see the README for the worked example)
+ */
+export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrackerOptions): NotchRepeatingResult {
+  const t = new NotchTracker(options);
+  const n = block.length;
+  const off = t.options.offset;
+  let m = -1;
+  let best = -1;
+  for (let i = 0; i < n; i++) {
+    const v = block[i] + off;
+    const a = v < 0 ? -v : v;
+    if (a > best) {
+      best = a;
+      m = i;
+    }
+  }
+  if (n === 0) {
+    const r = t.end();
+    return { first: r, stabilised: t.end(), largestIndex: -1, reusedFirstPass: false };
+  }
+  t.pushRange(block, 0, m + 1); // NaN / Infinity checked here and below, with their indices
+  const snap = t.snapshot();
+  const revAtM = t.reversals.length;
+  const loopsAtM = t.loops.length;
+  t.pushRange(block, m + 1, n);
+  const first = t.end();
+  const rev1 = t.reversals.length;
+  const loops1 = t.loops.length;
+  t.restartIndex(0);
+  t.pushRange(block, 0, m + 1);
+  const reused = t.matches(snap);
+  if (!reused) t.pushRange(block, m + 1, n);
+  const reversals = new ReversalTable(rev1);
+  reversals.appendRange(t.reversals, rev1, t.reversals.length);
+  const loops = new LoopTable(loops1);
+  loops.appendRange(t.loops, loops1, t.loops.length);
+  if (reused) {
+    reversals.appendRange(first.reversals, revAtM, rev1);
+    loops.appendRange(first.loops, loopsAtM, loops1);
+  }
+  const end = t.end();
+  const stabilised: NotchTrackResult = {
+    reversals,
+    loops,
+    residue: reused ? first.residue : end.residue,
+    samples: n,
+    beyondStrainLimit: end.beyondStrainLimit,
+    firstBeyondIndex: end.firstBeyondIndex,
+  };
+  return { first, stabilised, largestIndex: m, reusedFirstPass: reused };
+}
