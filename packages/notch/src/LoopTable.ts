@@ -94,11 +94,10 @@ export class LoopTable {
 
   /** Appends rows `from` … `to − 1` of another table. */
   appendRange(other: LoopTable, from: number, to: number): void {
-    for (let r = from; r < to; r++) {
-      if (this.n === this.cols[0].length) this.grow();
-      const i = this.n++;
-      for (let k = 0; k < NAMES.length; k++) this.cols[k][i] = other.cols[k][r];
-    }
+    if (to <= from) return;
+    while (this.cols[0].length < this.n + (to - from)) this.grow();
+    for (let k = 0; k < NAMES.length; k++) this.cols[k].set(other.cols[k].subarray(from, to), this.n);
+    this.n += to - from;
   }
 
   /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */

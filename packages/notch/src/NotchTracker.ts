@@ -70,8 +70,9 @@ export interface TrackerSnapshot {
  * origin of the branch it interrupted (ties close) closes that loop; both reversal points leave
  * the memory and the path continues on the older branch. Memory 2: when the older branch is the
  * first-loading curve, the path continues on it. Memory 3: a branch that starts on the
- * first-loading curve and reaches the mirror of its start continues on the first-loading curve
- * of the other sign. Because a branch's local stress and strain grow monotonically with its
+ * first-loading curve and goes beyond the mirror of its start continues on the first-loading
+ * curve of the other sign (a branch that turns exactly at the mirror keeps its start in memory,
+ * and the loop closes when the path returns to it, ties closing as in memory 1). Because a branch's local stress and strain grow monotonically with its
  * pseudo-elastic range, closing in the history's value is closing in σ–ε space; after a closure
  * the live state is exactly the stored memory point.
  *
@@ -152,54 +153,64 @@ export class NotchTracker {
     let dir = this.dir;
     let ext = this.ext;
     let thr = this.thr;
+    let extIndex = this.extIndex;
     let idx = this.next;
     for (let i = from; i < to; i++, idx++) {
       const x = chunk[i] + off;
       if (x - x !== 0) {
         this.next = idx;
+        this.extIndex = extIndex;
         throw new NotchSampleError(idx, chunk[i]);
       }
       if (dir > 0) {
         if (x > ext) {
           ext = x;
-          this.extIndex = idx;
+          extIndex = idx;
           if (x >= thr) {
             this.ext = ext;
+            this.extIndex = extIndex;
             this.close(x, idx);
             thr = this.thr;
           }
         } else if (x < ext) {
           this.ext = ext;
+          this.extIndex = extIndex;
           this.reverse(x, idx);
           dir = this.dir;
           ext = this.ext;
+          extIndex = idx;
           thr = this.thr;
         }
       } else if (dir < 0) {
         if (x < ext) {
           ext = x;
-          this.extIndex = idx;
+          extIndex = idx;
           if (x <= thr) {
             this.ext = ext;
+            this.extIndex = extIndex;
             this.close(x, idx);
             thr = this.thr;
           }
         } else if (x > ext) {
           this.ext = ext;
+          this.extIndex = extIndex;
           this.reverse(x, idx);
           dir = this.dir;
           ext = this.ext;
+          extIndex = idx;
           thr = this.thr;
         }
       } else if (x !== ext) {
         this.start(x, idx);
         dir = this.dir;
         ext = this.ext;
+        extIndex = idx;
         thr = this.thr;
       }
     }
     this.dir = dir;
     this.ext = ext;
+    this.extIndex = extIndex;
     this.thr = thr;
     this.samples += idx - this.next;
     this.next = idx;
@@ -249,6 +260,9 @@ export class NotchTracker {
         this.loopTable.add(this.ss[k - 2], this.se[k - 2], this.ss[k - 1], this.se[k - 1], this.si[k - 2], this.si[k - 1], idx, 1);
         this.k = k - 2;
       } else if (k === 1) {
+        // Memory 3 needs the mirror exceeded: a branch that turns exactly at the mirror keeps its
+        // start in memory, so the loop closes at the next return (ties close, as in memory 1).
+        if (x === this.thr) break;
         this.k = 0;
       } else {
         break;

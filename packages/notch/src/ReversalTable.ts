@@ -54,7 +54,13 @@ export class ReversalTable {
 
   /** Appends rows `from` … `to − 1` of another table. */
   appendRange(other: ReversalTable, from: number, to: number): void {
-    for (let i = from; i < to; i++) this.add(other.cIndex[i], other.cValue[i], other.cStress[i], other.cStrain[i]);
+    if (to <= from) return;
+    while (this.cIndex.length < this.n + (to - from)) this.grow();
+    this.cIndex.set(other.cIndex.subarray(from, to), this.n);
+    this.cValue.set(other.cValue.subarray(from, to), this.n);
+    this.cStress.set(other.cStress.subarray(from, to), this.n);
+    this.cStrain.set(other.cStrain.subarray(from, to), this.n);
+    this.n += to - from;
   }
 
   /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
