@@ -148,7 +148,7 @@ describe('trackNotch(history, options): hand fixtures in the plastic range', () 
     expect(p5.strain).toBeGreaterThan(2 * p5.stress / sae1045.E); // plastic: more than twice the elastic strain
     // the end point lies on the first-loading curve (continued after the loop closed)
     expect(r.residue.row(r.residue.length - 1).stress).toBeCloseTo(neuber(sae1045, 2.5 * 6 * S).stress, 9);
-    expect(rainflowFourPoint([0, 5, -4, 6], { residue: 'none' }).cycles.length).toBe(0); // plain four-point closes fewer
+    expect(rainflowFourPoint([0, 5, -4, 6], { residue: "none" }).cycles!.length).toBe(0); // plain four-point closes fewer
   });
 
   it('0→5→−6→5.5→−7 closes −6/5.5', () => {
@@ -253,7 +253,7 @@ describe('trackNotch: properties', () => {
 
 describe('trackNotchRepeating(block, options)', () => {
   const cycles = (block: number[]) => {
-    const c = rainflowFourPoint(block, { residue: 'repeat' }).cycles;
+    const c = rainflowFourPoint(block, { residue: 'repeat' }).cycles!;
     const out: string[] = [];
     for (let i = 0; i < c.length; i++) {
       const r = c.row(i);
