@@ -30,19 +30,35 @@ export interface LoopRow {
   count: number;
 }
 
-const NAMES = ['stressMax', 'stressMin', 'strainMax', 'strainMin', 'startIndex', 'turnIndex', 'closeIndex', 'count'] as const;
-
 /**
  * Growable struct-of-arrays table of closed hysteresis loops: eight Float64Array columns,
  * doubled when full; no objects per loop. Indices are stored as doubles (exact up to 2^53).
  */
 export class LoopTable {
-  private cols: Float64Array[];
+  // One field per column (not an array of columns): every store in `add` is then a direct,
+  // monomorphic typed-array store instead of a load of the column array first.
+  private cStressMax: Float64Array;
+  private cStressMin: Float64Array;
+  private cStrainMax: Float64Array;
+  private cStrainMin: Float64Array;
+  private cStart: Float64Array;
+  private cTurn: Float64Array;
+  private cClose: Float64Array;
+  private cCount: Float64Array;
   private n = 0;
+  private capacity: number;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);
-    this.cols = NAMES.map(() => new Float64Array(cap));
+    this.capacity = cap;
+    this.cStressMax = new Float64Array(cap);
+    this.cStressMin = new Float64Array(cap);
+    this.cStrainMax = new Float64Array(cap);
+    this.cStrainMin = new Float64Array(cap);
+    this.cStart = new Float64Array(cap);
+    this.cTurn = new Float64Array(cap);
+    this.cClose = new Float64Array(cap);
+    this.cCount = new Float64Array(cap);
   }
 
   /** Number of loops. */
@@ -52,7 +68,7 @@ export class LoopTable {
 
   /** Sum of the count column. */
   totalCount(): number {
-    const c = this.cols[7];
+    const c = this.cCount;
     let s = 0;
     for (let i = 0; i < this.n; i++) s += c[i];
     return s;
@@ -69,49 +85,71 @@ export class LoopTable {
     closeIndex: number,
     count: number,
   ): void {
-    if (this.n === this.cols[0].length) this.grow();
+    if (this.n === this.capacity) this.grow(this.n + 1);
     const i = this.n++;
-    const c = this.cols;
     if (stressA >= stressB) {
-      c[0][i] = stressA;
-      c[1][i] = stressB;
+      this.cStressMax[i] = stressA;
+      this.cStressMin[i] = stressB;
     } else {
-      c[0][i] = stressB;
-      c[1][i] = stressA;
+      this.cStressMax[i] = stressB;
+      this.cStressMin[i] = stressA;
     }
     if (strainA >= strainB) {
-      c[2][i] = strainA;
-      c[3][i] = strainB;
+      this.cStrainMax[i] = strainA;
+      this.cStrainMin[i] = strainB;
     } else {
-      c[2][i] = strainB;
-      c[3][i] = strainA;
+      this.cStrainMax[i] = strainB;
+      this.cStrainMin[i] = strainA;
     }
-    c[4][i] = startIndex;
-    c[5][i] = turnIndex;
-    c[6][i] = closeIndex;
-    c[7][i] = count;
+    this.cStart[i] = startIndex;
+    this.cTurn[i] = turnIndex;
+    this.cClose[i] = closeIndex;
+    this.cCount[i] = count;
   }
 
   /** Appends rows `from` … `to − 1` of another table. */
   appendRange(other: LoopTable, from: number, to: number): void {
     if (to <= from) return;
-    while (this.cols[0].length < this.n + (to - from)) this.grow();
-    for (let k = 0; k < NAMES.length; k++) this.cols[k].set(other.cols[k].subarray(from, to), this.n);
-    this.n += to - from;
+    const n = this.n;
+    if (this.capacity < n + (to - from)) this.grow(n + (to - from));
+    this.cStressMax.set(other.cStressMax.subarray(from, to), n);
+    this.cStressMin.set(other.cStressMin.subarray(from, to), n);
+    this.cStrainMax.set(other.cStrainMax.subarray(from, to), n);
+    this.cStrainMin.set(other.cStrainMin.subarray(from, to), n);
+    this.cStart.set(other.cStart.subarray(from, to), n);
+    this.cTurn.set(other.cTurn.subarray(from, to), n);
+    this.cClose.set(other.cClose.subarray(from, to), n);
+    this.cCount.set(other.cCount.subarray(from, to), n);
+    this.n = n + (to - from);
   }
 
   /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
   columns(): LoopColumns {
-    const out = {} as Record<(typeof NAMES)[number], Float64Array>;
-    NAMES.forEach((name, k) => (out[name] = this.cols[k].subarray(0, this.n)));
-    return out;
+    const n = this.n;
+    return {
+      stressMax: this.cStressMax.subarray(0, n),
+      stressMin: this.cStressMin.subarray(0, n),
+      strainMax: this.cStrainMax.subarray(0, n),
+      strainMin: this.cStrainMin.subarray(0, n),
+      startIndex: this.cStart.subarray(0, n),
+      turnIndex: this.cTurn.subarray(0, n),
+      closeIndex: this.cClose.subarray(0, n),
+      count: this.cCount.subarray(0, n),
+    };
   }
 
   /** Row `i` as an object. */
   row(i: number): LoopRow {
-    const out = {} as Record<(typeof NAMES)[number], number>;
-    NAMES.forEach((name, k) => (out[name] = this.cols[k][i]));
-    return out;
+    return {
+      stressMax: this.cStressMax[i],
+      stressMin: this.cStressMin[i],
+      strainMax: this.cStrainMax[i],
+      strainMin: this.cStrainMin[i],
+      startIndex: this.cStart[i],
+      turnIndex: this.cTurn[i],
+      closeIndex: this.cClose[i],
+      count: this.cCount[i],
+    };
   }
 
   /** Every row as objects (for small results, printing and tests). */
@@ -121,11 +159,24 @@ export class LoopTable {
     return out;
   }
 
-  private grow(): void {
-    this.cols = this.cols.map((a) => {
-      const b = new Float64Array(a.length * 2);
-      b.set(a);
+  /** Doubles the capacity until it holds `needed` rows. */
+  private grow(needed: number): void {
+    let cap = this.capacity * 2;
+    while (cap < needed) cap *= 2;
+    const n = this.n;
+    const widen = (a: Float64Array) => {
+      const b = new Float64Array(cap);
+      b.set(a.subarray(0, n));
       return b;
-    });
+    };
+    this.cStressMax = widen(this.cStressMax);
+    this.cStressMin = widen(this.cStressMin);
+    this.cStrainMax = widen(this.cStrainMax);
+    this.cStrainMin = widen(this.cStrainMin);
+    this.cStart = widen(this.cStart);
+    this.cTurn = widen(this.cTurn);
+    this.cClose = widen(this.cClose);
+    this.cCount = widen(this.cCount);
+    this.capacity = cap;
   }
 }

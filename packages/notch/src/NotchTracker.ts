@@ -97,8 +97,8 @@ export class NotchTracker {
   private readonly scale: number;
   private readonly offset: number;
   private readonly strainLimit: number;
-  private readonly revs = new ReversalTable();
-  private readonly loopTable = new LoopTable();
+  private revs = new ReversalTable();
+  private loopTable = new LoopTable();
   private next = 0;
   private samples = 0;
   private dir = 0;
@@ -339,6 +339,22 @@ export class NotchTracker {
     reversals.appendRange(this.revs, 0, this.revs.length);
     const loops = new LoopTable(this.loopTable.length);
     loops.appendRange(this.loopTable, 0, this.loopTable.length);
+    return this.resultWith(reversals, loops);
+  }
+
+  /**
+   * Like {@link end}, but hands the live event tables over instead of copying them, and
+   * continues with empty tables of the given capacities (internal, for the batch functions:
+   * copying millions of rows cost them more than the solves). The state is unchanged.
+   */
+  takeResult(reversalCapacity = 256, loopCapacity = 256): NotchTrackResult {
+    const out = this.resultWith(this.revs, this.loopTable);
+    this.revs = new ReversalTable(reversalCapacity);
+    this.loopTable = new LoopTable(loopCapacity);
+    return out;
+  }
+
+  private resultWith(reversals: ReversalTable, loops: LoopTable): NotchTrackResult {
     return {
       reversals,
       loops,

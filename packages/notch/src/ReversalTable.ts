@@ -28,9 +28,11 @@ export class ReversalTable {
   private cStress: Float64Array;
   private cStrain: Float64Array;
   private n = 0;
+  private capacity: number;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);
+    this.capacity = cap;
     this.cIndex = new Float64Array(cap);
     this.cValue = new Float64Array(cap);
     this.cStress = new Float64Array(cap);
@@ -44,7 +46,7 @@ export class ReversalTable {
 
   /** Appends a row. */
   add(index: number, value: number, stress: number, strain: number): void {
-    if (this.n === this.cIndex.length) this.grow();
+    if (this.n === this.capacity) this.grow(this.n + 1);
     const i = this.n++;
     this.cIndex[i] = index;
     this.cValue[i] = value;
@@ -55,12 +57,13 @@ export class ReversalTable {
   /** Appends rows `from` … `to − 1` of another table. */
   appendRange(other: ReversalTable, from: number, to: number): void {
     if (to <= from) return;
-    while (this.cIndex.length < this.n + (to - from)) this.grow();
-    this.cIndex.set(other.cIndex.subarray(from, to), this.n);
-    this.cValue.set(other.cValue.subarray(from, to), this.n);
-    this.cStress.set(other.cStress.subarray(from, to), this.n);
-    this.cStrain.set(other.cStrain.subarray(from, to), this.n);
-    this.n += to - from;
+    const n = this.n;
+    if (this.capacity < n + (to - from)) this.grow(n + (to - from));
+    this.cIndex.set(other.cIndex.subarray(from, to), n);
+    this.cValue.set(other.cValue.subarray(from, to), n);
+    this.cStress.set(other.cStress.subarray(from, to), n);
+    this.cStrain.set(other.cStrain.subarray(from, to), n);
+    this.n = n + (to - from);
   }
 
   /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
@@ -86,16 +89,20 @@ export class ReversalTable {
     return out;
   }
 
-  private grow(): void {
-    const cap = this.cIndex.length * 2;
-    const g = (a: Float64Array) => {
+  /** Doubles the capacity until it holds `needed` rows (copying only the rows in use). */
+  private grow(needed: number): void {
+    let cap = this.capacity * 2;
+    while (cap < needed) cap *= 2;
+    const n = this.n;
+    const widen = (a: Float64Array) => {
       const b = new Float64Array(cap);
-      b.set(a);
+      b.set(a.subarray(0, n));
       return b;
     };
-    this.cIndex = g(this.cIndex);
-    this.cValue = g(this.cValue);
-    this.cStress = g(this.cStress);
-    this.cStrain = g(this.cStrain);
+    this.cIndex = widen(this.cIndex);
+    this.cValue = widen(this.cValue);
+    this.cStress = widen(this.cStress);
+    this.cStrain = widen(this.cStrain);
+    this.capacity = cap;
   }
 }

@@ -1,7 +1,8 @@
-import { LoopTable } from './LoopTable';
 import { NotchTracker, type NotchTrackResult } from './NotchTracker';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
-import { ReversalTable } from './ReversalTable';
+
+/** Samples per piece of the first pass's search for the largest |value| (128 KiB of doubles). */
+const SCAN_PIECE = 16384;
 
 /** What {@link trackNotchRepeating} returns. */
 export interface NotchRepeatingResult {
@@ -45,44 +46,59 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
   const t = new NotchTracker(options);
   const n = block.length;
   const off = t.options.offset;
-  let m = -1;
-  let best = -1;
-  for (let i = 0; i < n; i++) {
-    const v = block[i] + off;
-    const a = v < 0 ? -v : v;
-    if (a > best) {
-      best = a;
-      m = i;
-    }
-  }
   if (n === 0) {
     const r = t.end();
     return { first: r, stabilised: t.end(), largestIndex: -1, reusedFirstPass: false };
   }
-  t.pushRange(block, 0, m + 1); // NaN / Infinity checked here and below, with their indices
-  const snap = t.snapshot();
-  const revAtM = t.reversals.length;
-  const loopsAtM = t.loops.length;
-  t.pushRange(block, m + 1, n);
-  const first = t.end();
+  // First pass, interleaved with the search for the largest |value| in cache-sized pieces: each
+  // piece is scanned and then tracked while it is still in cache (one trip through memory
+  // instead of two). Whenever a piece holds a new running maximum, the memory is frozen right
+  // after it; the last such snapshot is the one at the block's largest |value|.
+  let m = -1;
+  let best = -1;
+  let snap = t.snapshot();
+  let revAtM = 0;
+  let loopsAtM = 0;
+  for (let from = 0; from < n; from += SCAN_PIECE) {
+    const to = from + SCAN_PIECE < n ? from + SCAN_PIECE : n;
+    let j = -1;
+    for (let i = from; i < to; i++) {
+      const v = block[i] + off;
+      const a = v < 0 ? -v : v;
+      if (a > best) {
+        best = a;
+        j = i;
+      }
+    }
+    if (j < 0) {
+      t.pushRange(block, from, to); // NaN / Infinity checked here, with their indices
+      continue;
+    }
+    t.pushRange(block, from, j + 1);
+    m = j;
+    snap = t.snapshot();
+    revAtM = t.reversals.length;
+    loopsAtM = t.loops.length;
+    t.pushRange(block, j + 1, to);
+  }
   const rev1 = t.reversals.length;
   const loops1 = t.loops.length;
+  // The stabilised pass holds one reversal per turning point of the block, as the first pass
+  // does give or take its start: sized from it, its tables need no growing.
+  const first = t.takeResult(rev1 + 16, (rev1 >> 1) + 16);
   t.restartIndex(0);
   t.pushRange(block, 0, m + 1);
   const reused = t.matches(snap);
-  if (!reused) t.pushRange(block, m + 1, n);
-  const reversals = new ReversalTable(rev1);
-  reversals.appendRange(t.reversals, rev1, t.reversals.length);
-  const loops = new LoopTable(loops1);
-  loops.appendRange(t.loops, loops1, t.loops.length);
   if (reused) {
-    reversals.appendRange(first.reversals, revAtM, rev1);
-    loops.appendRange(first.loops, loopsAtM, loops1);
+    t.reversals.appendRange(first.reversals, revAtM, rev1);
+    t.loops.appendRange(first.loops, loopsAtM, loops1);
+  } else {
+    t.pushRange(block, m + 1, n);
   }
-  const end = t.end();
+  const end = t.takeResult(16, 16);
   const stabilised: NotchTrackResult = {
-    reversals,
-    loops,
+    reversals: end.reversals,
+    loops: end.loops,
     residue: reused ? first.residue : end.residue,
     samples: n,
     beyondStrainLimit: end.beyondStrainLimit,
