@@ -85,7 +85,7 @@ export class LoopTable {
     closeIndex: number,
     count: number,
   ): void {
-    if (this.n === this.capacity) this.grow(this.n + 1);
+    if (this.n === this.capacity) this.grow(2 * this.capacity);
     const i = this.n++;
     if (stressA >= stressB) {
       this.cStressMax[i] = stressA;
@@ -111,7 +111,7 @@ export class LoopTable {
   appendRange(other: LoopTable, from: number, to: number): void {
     if (to <= from) return;
     const n = this.n;
-    if (this.capacity < n + (to - from)) this.grow(n + (to - from));
+    if (this.capacity < n + (to - from)) this.grow(Math.max(2 * this.capacity, n + (to - from)));
     this.cStressMax.set(other.cStressMax.subarray(from, to), n);
     this.cStressMin.set(other.cStressMin.subarray(from, to), n);
     this.cStrainMax.set(other.cStrainMax.subarray(from, to), n);
@@ -159,10 +159,13 @@ export class LoopTable {
     return out;
   }
 
-  /** Doubles the capacity until it holds `needed` rows. */
-  private grow(needed: number): void {
-    let cap = this.capacity * 2;
-    while (cap < needed) cap *= 2;
+  /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */
+  reserve(rows: number): void {
+    if (rows > this.capacity) this.grow(rows);
+  }
+
+  /** Moves the rows in use to columns of capacity `cap`. */
+  private grow(cap: number): void {
     const n = this.n;
     const widen = (a: Float64Array) => {
       const b = new Float64Array(cap);

@@ -354,6 +354,19 @@ export class NotchTracker {
     return out;
   }
 
+  /**
+   * Reserves table room for `total` samples in all at the reversal rate seen so far, with a
+   * quarter to spare (internal: the batch functions call it after a first piece of the history,
+   * so that tables of millions of rows are not copied at every doubling). Each loop takes two
+   * reversals, so half as many loops fit.
+   */
+  reserveFor(total: number): void {
+    if (this.samples === 0) return;
+    const rows = Math.min(total + 1, Math.ceil((1.25 * this.revs.length * total) / this.samples) + 64);
+    this.revs.reserve(rows);
+    this.loopTable.reserve((rows >> 1) + 1);
+  }
+
   private resultWith(reversals: ReversalTable, loops: LoopTable): NotchTrackResult {
     return {
       reversals,

@@ -46,7 +46,7 @@ export class ReversalTable {
 
   /** Appends a row. */
   add(index: number, value: number, stress: number, strain: number): void {
-    if (this.n === this.capacity) this.grow(this.n + 1);
+    if (this.n === this.capacity) this.grow(2 * this.capacity);
     const i = this.n++;
     this.cIndex[i] = index;
     this.cValue[i] = value;
@@ -58,7 +58,7 @@ export class ReversalTable {
   appendRange(other: ReversalTable, from: number, to: number): void {
     if (to <= from) return;
     const n = this.n;
-    if (this.capacity < n + (to - from)) this.grow(n + (to - from));
+    if (this.capacity < n + (to - from)) this.grow(Math.max(2 * this.capacity, n + (to - from)));
     this.cIndex.set(other.cIndex.subarray(from, to), n);
     this.cValue.set(other.cValue.subarray(from, to), n);
     this.cStress.set(other.cStress.subarray(from, to), n);
@@ -89,10 +89,13 @@ export class ReversalTable {
     return out;
   }
 
-  /** Doubles the capacity until it holds `needed` rows (copying only the rows in use). */
-  private grow(needed: number): void {
-    let cap = this.capacity * 2;
-    while (cap < needed) cap *= 2;
+  /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */
+  reserve(rows: number): void {
+    if (rows > this.capacity) this.grow(rows);
+  }
+
+  /** Moves the rows in use to columns of capacity `cap`. */
+  private grow(cap: number): void {
     const n = this.n;
     const widen = (a: Float64Array) => {
       const b = new Float64Array(cap);

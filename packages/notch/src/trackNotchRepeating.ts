@@ -72,14 +72,15 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
     }
     if (j < 0) {
       t.pushRange(block, from, to); // NaN / Infinity checked here, with their indices
-      continue;
+    } else {
+      t.pushRange(block, from, j + 1);
+      m = j;
+      snap = t.snapshot();
+      revAtM = t.reversals.length;
+      loopsAtM = t.loops.length;
+      t.pushRange(block, j + 1, to);
     }
-    t.pushRange(block, from, j + 1);
-    m = j;
-    snap = t.snapshot();
-    revAtM = t.reversals.length;
-    loopsAtM = t.loops.length;
-    t.pushRange(block, j + 1, to);
+    if (from === 0) t.reserveFor(n); // the reversal rate of the first piece sizes the tables
   }
   const rev1 = t.reversals.length;
   const loops1 = t.loops.length;
