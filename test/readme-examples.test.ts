@@ -5,6 +5,8 @@ import * as rainflow from '@loopwise/rainflow';
 import * as material from '@loopwise/material';
 import * as meanStress from '@loopwise/mean-stress';
 import * as miner from '@loopwise/miner';
+import * as engine from '@loopwise/engine';
+import * as notch from '@loopwise/notch';
 
 // Runs every ```js block of the package READMEs: imports of @loopwise packages are bound to the
 // sources, and each line `expression; // returns value` becomes an assertion that the expression
@@ -15,6 +17,8 @@ const modules: Record<string, unknown> = {
   '@loopwise/material': material,
   '@loopwise/mean-stress': meanStress,
   '@loopwise/miner': miner,
+  '@loopwise/engine': engine,
+  '@loopwise/notch': notch,
 };
 
 const root = new URL('..', import.meta.url).pathname;

@@ -1,0 +1,197 @@
+import { defineMaterial, type Material, type MaterialInput } from '@loopwise/material';
+import { damageParameters, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from '@loopwise/mean-stress';
+import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
+import { EngineError } from './EngineError';
+
+/** Service that one repeat stands for: a unit label and, for a single history, its amount. */
+export interface ServicePerRepeat {
+  /** Unit of service, e.g. `'h'`, `'km'`, `'laps'`, `'flights'`. */
+  label: string;
+  /** Amount of the unit one repeat of the history stands for. Duty cycles take it from their events. */
+  perRepeat?: number;
+}
+
+/** What to assess and how. Every field but `material` has a documented default. */
+export interface LifeJob {
+  /** Strain-life material (validated by `defineMaterial` when not already a material). */
+  material: Material | MaterialInput;
+  /**
+   * What the history holds; default `'nominal'`:
+   * `'nominal'` nominal stress or load (times `loadToStress`, times Kt or Kf at the notch);
+   * `'pseudo-elastic'` the local stress of a linear-elastic model;
+   * `'local-strain'` strain measured at the notch root (no notch rule).
+   */
+  input?: NotchInputKind;
+  /**
+   * The notch, for nominal input: `Kt` (elastic stress concentration factor) or `Kf` (fatigue
+   * notch factor), and the notch rule (default `'neuber'`). Default: no notch (Kt = 1), the
+   * nominal-stress route.
+   */
+  notch?: { Kt?: number; Kf?: number; rule?: NotchRuleName };
+  /** Rule for pseudo-elastic input; default `'neuber'`. */
+  rule?: NotchRuleName;
+  /** Nominal stress per unit of the history (e.g. MPa per kN); default 1. */
+  loadToStress?: number;
+  /** Mean-stress correction (damage parameter); default `'smithWatsonTopper'`. */
+  meanStress?: DamageParameterName;
+  /** Walker exponent γ for `meanStress: 'walker'`; default estimated from Su (steels). */
+  walkerGamma?: number;
+  /** Gate range in history units; default 0 (no gate). Exclusive with `gateFraction`. */
+  gate?: number;
+  /** Gate as a fraction of the largest range of the history (or of `fullScale`). */
+  gateFraction?: number;
+  /** Declared full-scale range for `gateFraction` (needed to stream). */
+  fullScale?: number;
+  /**
+   * True (default) when the history is one block of a service that repeats: life per repeat
+   * comes from the stabilised pass. False for a one-off history: its residue counts as half
+   * cycles.
+   */
+  repeating?: boolean;
+  /** Cut-off life in cycles above which a loop does no damage; default none. */
+  cutoffCycles?: number;
+  /** Critical damage sum; default 1 (lower values are often used; see the miner docs). */
+  criticalDamage?: number;
+  /** Scatter factor on life, >= 1; default 1. */
+  scatterFactor?: number;
+  /** Service per repeat, for life in hours, km, laps or flights. */
+  unit?: ServicePerRepeat;
+  /** History value at which the part sits when the history starts; default 0 (unloaded). */
+  initial?: number;
+  /** Added to every sample first (a gauge zeroed under load); default 0. */
+  offset?: number;
+  /** Number of bins of the damage timeline; default 100. */
+  timelineBins?: number;
+  /** Number of most damaging loops listed in the report; default 10. */
+  worstLoopCount?: number;
+  /** Relative tolerance of the notch-rule solves; default 1e-12 (at most 1e-10). */
+  tolerance?: number;
+}
+
+/** A job after checking and defaulting (internal). */
+export interface ResolvedJob {
+  material: Material;
+  input: NotchInputKind;
+  rule: NotchRuleName;
+  Kt: number | undefined;
+  Kf: number | undefined;
+  loadToStress: number;
+  meanStress: DamageParameterName;
+  walkerGamma: number | undefined;
+  gate: number | undefined;
+  gateFraction: number | undefined;
+  fullScale: number | undefined;
+  repeating: boolean;
+  cutoffCycles: number | undefined;
+  criticalDamage: number;
+  scatterFactor: number;
+  unit: ServicePerRepeat | undefined;
+  initial: number;
+  offset: number;
+  timelineBins: number;
+  worstLoopCount: number;
+  tolerance: number;
+}
+
+function bad(field: string, value: unknown, rule: string): never {
+  throw new EngineError('invalid-job', field, value, `${describe(value)} is invalid: ${rule}`);
+}
+
+function describe(v: unknown): string {
+  return typeof v === 'number' ? String(v) : JSON.stringify(v) ?? String(v);
+}
+
+function finite(field: string, v: unknown, fallback: number): number {
+  if (v === undefined) return fallback;
+  if (typeof v !== 'number' || !Number.isFinite(v)) bad(field, v, 'must be a finite number');
+  return v;
+}
+
+function positive(field: string, v: unknown, fallback: number): number {
+  const x = finite(field, v, fallback);
+  if (!(x > 0)) bad(field, v, 'must be > 0');
+  return x;
+}
+
+/** Checks a job and fills in its defaults; every error names the job field (internal). */
+export function resolveLifeJob(job: LifeJob): ResolvedJob {
+  if (job === null || typeof job !== 'object') bad('job', job, 'must be an object');
+  if (job.material === undefined || job.material === null) bad('material', job.material, 'is required');
+  const material = Object.isFrozen(job.material) && 'warnings' in job.material ? (job.material as Material) : defineMaterial(job.material);
+  const input = job.input ?? 'nominal';
+  if (!['nominal', 'pseudo-elastic', 'local-strain'].includes(input)) {
+    bad('input', input, "must be 'nominal', 'pseudo-elastic' or 'local-strain'");
+  }
+  const notch = job.notch ?? {};
+  if (typeof notch !== 'object') bad('notch', notch, 'must be an object { Kt | Kf, rule }');
+  if (input !== 'nominal' && (notch.Kt !== undefined || notch.Kf !== undefined)) {
+    bad('notch', notch, `Kt and Kf apply to nominal input only (input is '${input}')`);
+  }
+  if (notch.Kt !== undefined && notch.Kf !== undefined) bad('notch.Kf', notch.Kf, 'give Kt or Kf, not both');
+  for (const k of ['Kt', 'Kf'] as const) {
+    const v = notch[k];
+    if (v !== undefined && !(typeof v === 'number' && v >= 1 && v < Infinity)) bad(`notch.${k}`, v, 'must be a finite number >= 1');
+  }
+  const rule = notch.rule ?? job.rule ?? 'neuber';
+  if (!['neuber', 'glinka', 'linear'].includes(rule)) bad('notch.rule', rule, "must be 'neuber', 'glinka' or 'linear'");
+  const Kt = input === 'nominal' && notch.Kf === undefined ? (notch.Kt ?? 1) : undefined;
+  const Kf = input === 'nominal' ? notch.Kf : undefined;
+  const meanStress = job.meanStress ?? DEFAULT_DAMAGE_PARAMETER;
+  if (!Object.prototype.hasOwnProperty.call(damageParameters, meanStress)) {
+    bad('meanStress', meanStress, `must be one of ${Object.keys(damageParameters).join(', ')}`);
+  }
+  let walkerGamma: number | undefined;
+  if (job.walkerGamma !== undefined) {
+    walkerGamma = finite('walkerGamma', job.walkerGamma, 0.5);
+    if (!(walkerGamma > 0 && walkerGamma <= 1)) bad('walkerGamma', job.walkerGamma, 'must be in (0, 1]');
+  }
+  if (job.gate !== undefined && job.gateFraction !== undefined) bad('gateFraction', job.gateFraction, 'give gate or gateFraction, not both');
+  const gate = job.gate === undefined ? undefined : finite('gate', job.gate, 0);
+  if (gate !== undefined && gate < 0) bad('gate', gate, 'must be >= 0');
+  const gateFraction = job.gateFraction === undefined ? undefined : finite('gateFraction', job.gateFraction, 0);
+  if (gateFraction !== undefined && !(gateFraction >= 0 && gateFraction <= 1)) bad('gateFraction', gateFraction, 'must be from 0 to 1');
+  const fullScale = job.fullScale === undefined ? undefined : positive('fullScale', job.fullScale, 1);
+  const repeating = job.repeating ?? true;
+  if (typeof repeating !== 'boolean') bad('repeating', repeating, 'must be true or false');
+  const cutoffCycles = job.cutoffCycles === undefined ? undefined : positive('cutoffCycles', job.cutoffCycles, 1);
+  const criticalDamage = positive('criticalDamage', job.criticalDamage, 1);
+  const scatterFactor = finite('scatterFactor', job.scatterFactor, 1);
+  if (!(scatterFactor >= 1)) bad('scatterFactor', scatterFactor, 'must be >= 1');
+  let unit: ServicePerRepeat | undefined;
+  if (job.unit !== undefined) {
+    if (job.unit === null || typeof job.unit !== 'object' || typeof job.unit.label !== 'string' || job.unit.label === '') {
+      bad('unit', job.unit, 'must be { label, perRepeat } with a non-empty label');
+    }
+    unit = { label: job.unit.label };
+    if (job.unit.perRepeat !== undefined) unit.perRepeat = positive('unit.perRepeat', job.unit.perRepeat, 1);
+  }
+  const timelineBins = job.timelineBins ?? 100;
+  if (!Number.isInteger(timelineBins) || timelineBins < 1) bad('timelineBins', timelineBins, 'must be an integer >= 1');
+  const worstLoopCount = job.worstLoopCount ?? 10;
+  if (!Number.isInteger(worstLoopCount) || worstLoopCount < 0) bad('worstLoopCount', worstLoopCount, 'must be an integer >= 0');
+  const tolerance = finite('tolerance', job.tolerance, 1e-12);
+  if (!(tolerance >= 1e-15 && tolerance <= 1e-10)) bad('tolerance', tolerance, 'must be in [1e-15, 1e-10]');
+  return {
+    material,
+    input,
+    rule,
+    Kt,
+    Kf,
+    loadToStress: positive('loadToStress', job.loadToStress, 1),
+    meanStress,
+    walkerGamma,
+    gate,
+    gateFraction,
+    fullScale,
+    repeating,
+    cutoffCycles,
+    criticalDamage,
+    scatterFactor,
+    unit,
+    initial: finite('initial', job.initial, 0),
+    offset: finite('offset', job.offset, 0),
+    timelineBins,
+    worstLoopCount,
+    tolerance,
+  };
+}

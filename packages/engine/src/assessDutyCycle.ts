@@ -1,0 +1,469 @@
+import { damageByEvent, damageTimeline, lifeFromDamage, MinerSum, mostDamagingLoops } from '@loopwise/miner';
+import { branchResponse, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
+import { NonFiniteSampleError, turningPoints } from '@loopwise/rainflow';
+import { ASSUMPTIONS, CAUTION } from './assumptions';
+import { EngineError } from './EngineError';
+import { evaluateLoops, type LoopLives } from './evaluateLoops';
+import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
+import type { EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
+import { trackSchedule, type LoopSegment, type ScheduleEvent } from './trackSchedule';
+
+/** One event of a duty cycle: a history block and how many times it runs in a row. */
+export interface DutyEvent {
+  /** Name of the event, for the report (e.g. `'cobbles'`, `'braking'`). */
+  name: string;
+  /** One repeat of the event's history, in the job's input unit. */
+  history: ArrayLike<number>;
+  /** Consecutive repeats of the event in one run of the schedule; an integer >= 1. */
+  repeats: number;
+  /** Service one repeat of the event stands for, in `job.unit.label` (hours, km, …); >= 0. */
+  duration?: number;
+}
+
+const PARAMETER_UNITS: Record<string, string> = {
+  none: 'strain amplitude',
+  morrow: 'strain amplitude',
+  modifiedMorrow: 'strain amplitude',
+  smithWatsonTopper: 'stress × strain amplitude (σmax·εa)',
+  walker: 'stress (σmax^(1−γ)·(E·εa)^γ)',
+};
+
+/**
+ * Assesses the fatigue life of a notched part under a duty cycle: an ordered list of events,
+ * each run `repeats` times in a row, the whole schedule repeating. Loops that span events or
+ * repeats are counted as if the schedule were one long history, without materialising the
+ * repeats (cost grows with the events' lengths, not their repeat counts).
+ *
+ * Pipeline: turning points (with the gate) → memory-aware notch tracker (first pass and
+ * stabilised pass) → damage parameter per closed loop → cycles to failure → Palmgren-Miner sum
+ * with the cut-off → life in repeats of the schedule and in service units, with the attribution
+ * of damage to events, to sample-index bins and to the worst loops, and the warnings.
+ *
+ * @example
+ * const report = assessDutyCycle(
+ *   [
+ *     { name: 'rough track', history: rough, repeats: 20, duration: 0.05 },
+ *     { name: 'yard', history: yard, repeats: 3, duration: 0.1 },
+ *   ],
+ *   { material, notch: { Kt: 2.1 }, unit: { label: 'h' } },
+ * );
+ * report.life.life; // hours to the predicted crack initiation (mean estimate)
+ */
+export function assessDutyCycle(events: DutyEvent[], job: LifeJob): LifeReport {
+  const resolved = resolveLifeJob(job);
+  return assessResolved(checkEvents(events), resolved);
+}
+
+/** Checks the events of a duty cycle (internal). */
+export function checkEvents(events: DutyEvent[]): DutyEvent[] {
+  if (!Array.isArray(events) || events.length === 0) {
+    throw new EngineError('invalid-event', 'events', events, 'a duty cycle needs at least one event');
+  }
+  events.forEach((e, k) => {
+    const at = `events[${k}]`;
+    if (e === null || typeof e !== 'object') throw new EngineError('invalid-event', at, e, 'must be { name, history, repeats }');
+    if (typeof e.name !== 'string' || e.name === '') throw new EngineError('invalid-event', `${at}.name`, e.name, 'must be a non-empty string');
+    if (e.history === null || typeof e.history !== 'object' || typeof e.history.length !== 'number') {
+      throw new EngineError('invalid-event', `${at}.history`, e.history, 'must be an array of numbers');
+    }
+    if (e.history.length === 0) throw new EngineError('invalid-event', `${at}.history`, '[]', `event '${e.name}' has no samples`);
+    if (!Number.isInteger(e.repeats) || e.repeats < 1) {
+      throw new EngineError('invalid-event', `${at}.repeats`, e.repeats, `must be an integer >= 1 (event '${e.name}')`);
+    }
+    if (e.duration !== undefined && !(typeof e.duration === 'number' && e.duration >= 0 && e.duration < Infinity)) {
+      throw new EngineError('invalid-event', `${at}.duration`, e.duration, `must be a finite number >= 0 (event '${e.name}')`);
+    }
+  });
+  return events;
+}
+
+/** The absolute gate of a job over the whole schedule. */
+function gateOf(job: ResolvedJob, events: DutyEvent[]): number {
+  if (job.gate !== undefined) return job.gate;
+  if (job.gateFraction === undefined) return 0;
+  if (job.fullScale !== undefined) return job.gateFraction * job.fullScale;
+  let lo = Infinity;
+  let hi = -Infinity;
+  events.forEach((e, k) => {
+    for (let i = 0; i < e.history.length; i++) {
+      const x = e.history[i];
+      if (x - x !== 0) throw new EngineError('invalid-history', `events[${k}].history`, x, `sample ${i} of event '${e.name}' is ${x}`, i);
+      if (x < lo) lo = x;
+      if (x > hi) hi = x;
+    }
+  });
+  return job.gateFraction * (hi - lo);
+}
+
+/** Tracker options of a job (internal). */
+export function trackerOptionsOf(job: ResolvedJob): NotchTrackerOptions {
+  const o: NotchTrackerOptions = {
+    material: job.material,
+    input: job.input,
+    rule: job.rule,
+    loadToStress: job.loadToStress,
+    initial: job.initial,
+    offset: job.offset,
+    tolerance: job.tolerance,
+  };
+  if (job.Kt !== undefined) o.Kt = job.Kt;
+  if (job.Kf !== undefined) o.Kf = job.Kf;
+  return o;
+}
+
+/** What the tracking stage leaves for the damage stage (internal). */
+export interface TrackedSchedule {
+  events: DutyEvent[];
+  schedule: ScheduleEvent[];
+  gate: number;
+  removed: number;
+  totalSamples: number;
+  track: ReturnType<typeof trackSchedule>;
+}
+
+/** Turning points, gate and the notch tracker over a checked schedule (internal). */
+export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSchedule {
+  const gate = gateOf(job, events);
+  const schedule: ScheduleEvent[] = [];
+  let sampleBase = 0;
+  let ordinalBase = 0;
+  let removed = 0;
+  events.forEach((e, k) => {
+    let tp;
+    try {
+      tp = turningPoints(e.history, { gate });
+    } catch (err) {
+      if (err instanceof NonFiniteSampleError) {
+        throw new EngineError('invalid-history', `events[${k}].history`, err.value, `sample ${err.index} of event '${e.name}' is ${err.value}`, err.index);
+      }
+      throw err;
+    }
+    removed += tp.removed * e.repeats;
+    schedule.push({ values: tp.values, indices: tp.indices, repeats: e.repeats, sampleBase, ordinalBase });
+    sampleBase += e.history.length;
+    ordinalBase += tp.values.length;
+  });
+  const track = trackSchedule(schedule, trackerOptionsOf(job), job.repeating);
+  return { events, schedule, gate, removed, totalSamples: sampleBase, track };
+}
+
+/** The assessment of checked events with a resolved job (internal; shared by every entry point). */
+export function assessResolved(events: DutyEvent[], job: ResolvedJob): LifeReport {
+  return reportFrom(trackResolved(events, job), job);
+}
+
+/** The damage stage and the report, for one damage parameter (internal). */
+export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeReport {
+  const { events, schedule, gate, removed, totalSamples, track } = tracked;
+  const t = track.tracker;
+  // every loop the tracker closed, in either pass, is solved once
+  const all = t.loops.columns();
+  const lives = evaluateLoops(all, job.material, job.meanStress, job.walkerGamma);
+  const toSample = ordinalMap(schedule);
+  const stabilised = gather(all, lives, track.stabilised, toSample);
+  if (!job.repeating) appendResidueHalves(stabilised, track.firstResidue, job, toSample);
+  const first = gather(all, lives, track.first, toSample);
+  if (!job.repeating) appendResidueHalves(first, track.firstResidue, job, toSample);
+
+  const sum = new MinerSum(job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
+  sum.addColumns({
+    count: stabilised.count,
+    cyclesToFailure: stabilised.cyclesToFailure,
+    startIndex: clampIndex(stabilised.startIndex),
+    endIndex: clampIndex(stabilised.turnIndex),
+    range: strainRanges(stabilised),
+  });
+  const minerCols = sum.columns();
+  stabilised.damage.set(minerCols.damage);
+  const firstSum = new MinerSum(job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
+  firstSum.addColumns({
+    count: first.count,
+    cyclesToFailure: first.cyclesToFailure,
+    startIndex: clampIndex(first.startIndex),
+    endIndex: clampIndex(first.turnIndex),
+  });
+  const damage = sum.damage();
+
+  const perRepeat = serviceOf(job, events);
+  const life = lifeFromDamage(damage, {
+    criticalDamage: job.criticalDamage,
+    scatterFactor: job.scatterFactor,
+    ...(perRepeat === undefined ? {} : { unit: { label: job.unit!.label, perRepeat } }),
+  });
+
+  const binSize = Math.max(1, Math.ceil(totalSamples / job.timelineBins));
+  const timeline = damageTimeline(sum, { binSize, sampleCount: totalSamples });
+  const byEvent = damageByEvent(sum, { starts: schedule.map((s) => s.sampleBase) });
+  const eventDamage: EventDamage[] = events.map((e, k) => ({
+    name: e.name,
+    repeats: e.repeats,
+    samples: e.history.length,
+    damage: byEvent[k],
+    share: damage > 0 ? byEvent[k] / damage : 0,
+  }));
+  const worstRows = mostDamagingLoops(sum, Math.min(job.worstLoopCount, stabilised.count.length));
+  const worstLoops: WorstLoop[] = Array.from(worstRows, (row) => ({
+    row,
+    damage: stabilised.damage[row],
+    share: damage > 0 ? stabilised.damage[row] / damage : 0,
+    count: stabilised.count[row],
+    stressMax: stabilised.stressMax[row],
+    stressMin: stabilised.stressMin[row],
+    strainMax: stabilised.strainMax[row],
+    strainMin: stabilised.strainMin[row],
+    cyclesToFailure: stabilised.cyclesToFailure[row],
+    startIndex: stabilised.startIndex[row],
+    turnIndex: stabilised.turnIndex[row],
+    startEvent: stabilised.startEvent[row] >= 0 ? events[stabilised.startEvent[row]].name : null,
+    turnEvent: stabilised.turnEvent[row] >= 0 ? events[stabilised.turnEvent[row]].name : null,
+  }));
+
+  const warnings = warningsOf(job, track, stabilised, sum, damage, gate, removed);
+  return {
+    format: 'loopwise-life-report',
+    version: 1,
+    inputs: echoInputs(job, events, gate),
+    assumptions: [...ASSUMPTIONS],
+    caution: CAUTION,
+    damage: {
+      correction: job.meanStress,
+      parameterUnit: PARAMETER_UNITS[job.meanStress],
+      perRepeat: damage,
+      firstPass: firstSum.damage(),
+      reusedFirstPass: track.reusedFirstPass,
+    },
+    life,
+    loops: stabilised,
+    worstLoops,
+    timeline: { binSize, samples: totalSamples, damage: timeline },
+    events: eventDamage,
+    gate: { range: gate, removedReversals: removed },
+    warnings,
+  };
+}
+
+/** Maps a tracker index (turning-point ordinal) to the schedule sample index and the event. */
+function ordinalMap(schedule: ScheduleEvent[]): (ordinal: number, out: Float64Array, at: number, events: Float64Array) => void {
+  const bases = schedule.map((s) => s.ordinalBase);
+  return (o, out, at, ev) => {
+    if (o < 0) {
+      out[at] = -1;
+      ev[at] = -1;
+      return;
+    }
+    let lo = 0;
+    let hi = bases.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >>> 1;
+      if (bases[mid] <= o) lo = mid;
+      else hi = mid - 1;
+    }
+    const s = schedule[lo];
+    out[at] = s.sampleBase + s.indices[o - s.ordinalBase];
+    ev[at] = lo;
+  };
+}
+
+/** The rows of the given segments as report columns, counts weighted. */
+function gather(
+  all: ReturnType<ReturnType<typeof trackSchedule>['tracker']['loops']['columns']>,
+  lives: LoopLives,
+  segments: LoopSegment[],
+  toSample: ReturnType<typeof ordinalMap>,
+): LifeLoopColumns {
+  let n = 0;
+  for (const s of segments) n += s.to - s.from;
+  const c = emptyColumns(n);
+  let j = 0;
+  const scratch = new Float64Array(1);
+  for (const s of segments) {
+    for (let i = s.from; i < s.to; i++, j++) {
+      c.stressMax[j] = all.stressMax[i];
+      c.stressMin[j] = all.stressMin[i];
+      c.strainMax[j] = all.strainMax[i];
+      c.strainMin[j] = all.strainMin[i];
+      c.parameter[j] = lives.parameter[i];
+      c.reversalsToFailure[j] = lives.reversalsToFailure[i];
+      c.cyclesToFailure[j] = lives.cyclesToFailure[i];
+      c.count[j] = all.count[i] * s.weight;
+      toSample(all.startIndex[i], c.startIndex, j, c.startEvent);
+      toSample(all.turnIndex[i], c.turnIndex, j, c.turnEvent);
+      toSample(all.closeIndex[i], c.closeIndex, j, scratch);
+    }
+  }
+  return c;
+}
+
+function emptyColumns(n: number): LifeLoopColumns {
+  const f = () => new Float64Array(n);
+  return {
+    stressMax: f(),
+    stressMin: f(),
+    strainMax: f(),
+    strainMin: f(),
+    parameter: f(),
+    reversalsToFailure: f(),
+    cyclesToFailure: f(),
+    count: f(),
+    damage: f(),
+    startIndex: f(),
+    turnIndex: f(),
+    closeIndex: f(),
+    startEvent: f(),
+    turnEvent: f(),
+  };
+}
+
+/** Appends the residue of a one-off history as half cycles (ASTM E1049-85 5.4.4 step 6 at the notch). */
+function appendResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: ResolvedJob, toSample: ReturnType<typeof ordinalMap>): void {
+  const r = residue.columns();
+  const m = Math.max(0, r.index.length - 1);
+  if (m === 0) return;
+  const h = emptyColumns(m);
+  for (let i = 0; i < m; i++) {
+    h.stressMax[i] = Math.max(r.stress[i], r.stress[i + 1]);
+    h.stressMin[i] = Math.min(r.stress[i], r.stress[i + 1]);
+    h.strainMax[i] = Math.max(r.strain[i], r.strain[i + 1]);
+    h.strainMin[i] = Math.min(r.strain[i], r.strain[i + 1]);
+    h.count[i] = 0.5;
+    toSample(r.index[i], h.startIndex, i, h.startEvent);
+    toSample(r.index[i + 1], h.turnIndex, i, h.turnEvent);
+    h.closeIndex[i] = h.turnIndex[i];
+  }
+  const lives = evaluateLoops(h, job.material, job.meanStress, job.walkerGamma);
+  h.parameter.set(lives.parameter);
+  h.reversalsToFailure.set(lives.reversalsToFailure);
+  h.cyclesToFailure.set(lives.cyclesToFailure);
+  for (const k of Object.keys(c) as (keyof LifeLoopColumns)[]) {
+    const joined = new Float64Array(c[k].length + m);
+    joined.set(c[k]);
+    joined.set(h[k], c[k].length);
+    c[k] = joined;
+  }
+}
+
+function clampIndex(a: Float64Array): Float64Array {
+  const out = new Float64Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] < 0 ? 0 : a[i];
+  return out;
+}
+
+function strainRanges(c: LifeLoopColumns): Float64Array {
+  const out = new Float64Array(c.strainMax.length);
+  for (let i = 0; i < out.length; i++) out[i] = c.strainMax[i] - c.strainMin[i];
+  return out;
+}
+
+/** Service per repeat of the schedule: the job's `unit.perRepeat`, or the sum of the events' durations. */
+function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
+  if (job.unit === undefined) return undefined;
+  if (events.some((e) => e.duration !== undefined)) {
+    if (job.unit.perRepeat !== undefined) {
+      throw new EngineError('invalid-job', 'unit.perRepeat', job.unit.perRepeat, 'give unit.perRepeat or event durations, not both');
+    }
+    return events.reduce((s, e) => s + e.repeats * (e.duration ?? 0), 0) || undefined;
+  }
+  if (job.unit.perRepeat === undefined) {
+    throw new EngineError('invalid-job', 'unit.perRepeat', undefined, `life in '${job.unit.label}' needs unit.perRepeat (or event durations)`);
+  }
+  return job.unit.perRepeat;
+}
+
+function warningsOf(
+  job: ResolvedJob,
+  track: ReturnType<typeof trackSchedule>,
+  loops: LifeLoopColumns,
+  sum: MinerSum,
+  damage: number,
+  gate: number,
+  removed: number,
+): LifeWarning[] {
+  const out: LifeWarning[] = [];
+  if (removed > 0) {
+    const bound = gateDamageBound(job, track, gate, removed);
+    out.push({
+      code: 'gate-removed-damage',
+      message: `the gate of ${gate} removed ${removed} reversals per repeat; they could have done at most ${bound.toPrecision(3)} damage per repeat (${damage > 0 ? ((100 * bound) / damage).toPrecision(3) : '∞'} % of the counted damage)`,
+      details: { gate, removedReversals: removed, damageBound: bound },
+    });
+  }
+  if (job.cutoffCycles !== undefined) {
+    const r = sum.cutoffReport();
+    if (r.removedCount > 0 || r.nearCutoffShare > 0.1) {
+      out.push({
+        code: 'cutoff-share',
+        message: `the cut-off at ${job.cutoffCycles} cycles removed ${r.removedCount} loops (${r.removedDamage.toPrecision(3)} damage without the cut-off); loops within a factor ${r.nearFactor} of it carry ${(100 * r.nearCutoffShare).toPrecision(3)} % of the damage, so the result depends on the cut-off`,
+        details: { cutoffCycles: job.cutoffCycles, removedLoops: r.removedCount, removedDamage: r.removedDamage, nearCutoffShare: r.nearCutoffShare },
+      });
+    }
+  }
+  const state = track.tracker.end();
+  if (state.beyondStrainLimit) {
+    out.push({
+      code: 'beyond-material-model',
+      message: `local strain amplitude exceeds the strain-life curve at one reversal (from turning point ${state.firstBeyondIndex}); the material model is extrapolating and the load is near or beyond static failure`,
+      details: { firstBeyondPoint: state.firstBeyondIndex },
+    });
+  }
+  let firstReversal = 0;
+  for (let i = 0; i < loops.count.length; i++) if (loops.reversalsToFailure[i] <= 1) firstReversal++;
+  if (firstReversal > 0) {
+    out.push({
+      code: 'first-reversal-failure',
+      message: `${firstReversal} loop(s) fail on the first reversal (beyond the strain-life curve or a mean stress at or above σf'); the life is not meaningful`,
+      details: { loops: firstReversal },
+    });
+  }
+  for (const w of job.material.warnings) {
+    out.push({ code: 'incompatible-material', message: w.message, details: { field: w.field } });
+  }
+  return out;
+}
+
+/**
+ * Upper bound of the damage the gate removed: every removed reversal pair is at most a loop of
+ * the gate's range; the worst place for it is at the highest local stress of the history (the
+ * largest σmax and mean stress), hanging from that peak on a Masing branch. The bound is that
+ * loop's damage times half the removed reversals.
+ */
+function gateDamageBound(job: ResolvedJob, track: ReturnType<typeof trackSchedule>, gate: number, removed: number): number {
+  const revs = track.tracker.reversals.columns();
+  let best = -1;
+  for (let i = 0; i < revs.stress.length; i++) if (best < 0 || revs.stress[i] > revs.stress[best]) best = i;
+  if (best < 0) return 0;
+  const options = trackerOptionsOf(job);
+  const origin = { value: revs.value[best], stress: revs.stress[best], strain: revs.strain[best] };
+  const low = branchResponse(options, origin, revs.value[best] - gate);
+  const loop = {
+    stressMax: Float64Array.of(origin.stress),
+    stressMin: Float64Array.of(low.stress),
+    strainMax: Float64Array.of(origin.strain),
+    strainMin: Float64Array.of(low.strain),
+  };
+  const lives = evaluateLoops(loop, job.material, job.meanStress, job.walkerGamma);
+  const nf = lives.cyclesToFailure[0];
+  const limit = job.cutoffCycles ?? Infinity;
+  const perLoop = nf > limit || nf === Infinity ? 0 : 1 / nf;
+  return (removed / 2) * perLoop;
+}
+
+function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {
+  const m = job.material;
+  return {
+    material: { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },
+    input: job.input,
+    notch: job.input === 'nominal' ? { Kt: job.Kt, Kf: job.Kf, rule: job.rule } : { rule: job.input === 'local-strain' ? null : job.rule },
+    loadToStress: job.loadToStress,
+    meanStress: job.meanStress,
+    walkerGamma: job.walkerGamma,
+    gate,
+    repeating: job.repeating,
+    cutoffCycles: job.cutoffCycles ?? null,
+    criticalDamage: job.criticalDamage,
+    scatterFactor: job.scatterFactor,
+    unit: job.unit ?? null,
+    initial: job.initial,
+    offset: job.offset,
+    events: events.map((e) => ({ name: e.name, samples: e.history.length, repeats: e.repeats, duration: e.duration ?? null })),
+  };
+}

@@ -1,0 +1,69 @@
+import type { Material } from '@loopwise/material';
+import { createWalker, damageParameters, estimateWalkerGamma, type DamageParameter, type DamageParameterName } from '@loopwise/mean-stress';
+
+/** Local loop columns as the tracker gives them. */
+export interface LocalLoopColumns {
+  stressMax: Float64Array;
+  stressMin: Float64Array;
+  strainMax: Float64Array;
+  strainMin: Float64Array;
+}
+
+/** Per-loop results of a damage parameter. */
+export interface LoopLives {
+  /** The parameter's value (εa, σmax·εa or the Walker stress; see `valueUnit`). */
+  parameter: Float64Array;
+  /** Reversals to failure 2Nf. */
+  reversalsToFailure: Float64Array;
+  /** Cycles to failure Nf = 2Nf / 2. */
+  cyclesToFailure: Float64Array;
+  /** Damage-parameter flags per loop (mean-stress DAMAGE_FLAG_BITS). */
+  flags: Uint8Array;
+}
+
+/** The damage parameter object for a name (Walker with the job's γ or γ from Su). */
+export function damageParameterFor(name: DamageParameterName, walkerGamma: number | undefined): DamageParameter {
+  if (name === 'walker') return createWalker({ gamma: walkerGamma ?? 'steel-from-Su' });
+  return damageParameters[name] as DamageParameter;
+}
+
+/** The γ a Walker parameter uses for this material (for the parameter value column). */
+function walkerGammaOf(material: Material, walkerGamma: number | undefined): number {
+  return walkerGamma ?? estimateWalkerGamma({ SuMPa: material.Su });
+}
+
+/**
+ * Solves reversals to failure of every loop once with the damage parameter's typed-array kernel
+ * and fills the parameter's value: εa for none, Morrow and modified Morrow; σmax·εa for SWT;
+ * σmax^(1−γ)·(E·εa)^γ for Walker (0 when σmax <= 0 and γ < 1). Equations and references: the
+ * mean-stress package.
+ */
+export function evaluateLoops(
+  cols: LocalLoopColumns,
+  material: Material,
+  name: DamageParameterName,
+  walkerGamma: number | undefined,
+): LoopLives {
+  const n = cols.stressMax.length;
+  const parameter = new Float64Array(n);
+  const reversalsToFailure = new Float64Array(n);
+  const cyclesToFailure = new Float64Array(n);
+  const flags = new Uint8Array(n);
+  const p = damageParameterFor(name, walkerGamma);
+  p.reversalsToFailureInto(
+    { sigmaMax: cols.stressMax, sigmaMin: cols.stressMin, epsilonMax: cols.strainMax, epsilonMin: cols.strainMin },
+    material,
+    reversalsToFailure,
+    flags,
+  );
+  const gamma = name === 'walker' ? walkerGammaOf(material, walkerGamma) : 0;
+  for (let i = 0; i < n; i++) {
+    cyclesToFailure[i] = reversalsToFailure[i] / 2;
+    const ea = (cols.strainMax[i] - cols.strainMin[i]) / 2;
+    const smax = cols.stressMax[i];
+    if (name === 'smithWatsonTopper') parameter[i] = smax > 0 ? smax * ea : 0;
+    else if (name === 'walker') parameter[i] = smax > 0 ? Math.pow(smax, 1 - gamma) * Math.pow(material.E * ea, gamma) : 0;
+    else parameter[i] = ea;
+  }
+  return { parameter, reversalsToFailure, cyclesToFailure, flags };
+}

@@ -1,0 +1,149 @@
+import { NotchTracker, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
+
+/** One event of a schedule, as turning points, with its repeat count (internal). */
+export interface ScheduleEvent {
+  /** Turning-point values of one repeat of the event. */
+  values: Float64Array;
+  /** Sample index (within the event) of each turning point. */
+  indices: Float64Array;
+  /** Consecutive repeats of the event, >= 1. */
+  repeats: number;
+  /** Index of the event's first sample in the schedule's sample space (events laid end to end once). */
+  sampleBase: number;
+  /** Index of its first turning point in the tracker's index space (internal). */
+  ordinalBase: number;
+}
+
+/** Rows [from, to) of the tracker's loop table, each standing for `weight` loops. */
+export interface LoopSegment {
+  from: number;
+  to: number;
+  weight: number;
+}
+
+/** What {@link trackSchedule} returns (internal). */
+export interface ScheduleTrack {
+  tracker: NotchTracker;
+  /** Loops of the first pass, from the unloaded state (or the initial value). */
+  first: LoopSegment[];
+  /** Loops of the stabilised pass (repeating schedules), else the same as `first`. */
+  stabilised: LoopSegment[];
+  /** Residue of the first pass (open loops at its end), for one-off histories. */
+  firstResidue: ReversalTable;
+  /** True when the stabilised pass copied the first pass from the largest |value| on. */
+  reusedFirstPass: boolean;
+  /** Turning points the tracker was fed, per pass (repeats not materialised count once each copy pushed). */
+  pushedPoints: number;
+}
+
+/**
+ * Runs the notch tracker over a schedule of events with repeat counts, as if the schedule were
+ * one long history, without materialising repeats.
+ *
+ * Method. Each repeat of an event is pushed with the event's own indices. After each repeat the
+ * tracker's memory is compared with the memory after the previous repeat: once they are equal,
+ * every further repeat starts from the same memory and closes the same loops, so the loops of
+ * that repeat get the remaining repeat count as their weight and the rest are skipped. (Two or
+ * three repeats are usually enough: the first repeat's largest excursion closes all smaller
+ * memory.) For a repeating schedule, a second pass starts from the memory the first left; it is
+ * pushed only up to the schedule's first sample of largest |value|, where every loop has closed
+ * back to the first-loading curve, and if the memory then equals the first pass's memory at the
+ * same point, the first pass's loops from there on are reused (Clormann and Seeger's memory
+ * rules make the rest identical). Otherwise the second pass is tracked in full.
+ *
+ * Cost: about two repeats per event for the first pass, plus the schedule up to its largest
+ * |value| for the second, whatever the repeat counts.
+ */
+export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOptions, repeating: boolean): ScheduleTrack {
+  const t = new NotchTracker(options);
+  const offset = t.options.offset;
+  // the schedule's first turning point of largest |value|
+  let peakEvent = -1;
+  let peakPoint = -1;
+  let best = -1;
+  events.forEach((e, k) => {
+    for (let i = 0; i < e.values.length; i++) {
+      const a = Math.abs(e.values[i] + offset);
+      if (a > best) {
+        best = a;
+        peakEvent = k;
+        peakPoint = i;
+      }
+    }
+  });
+  let pushed = 0;
+  const push = (e: ScheduleEvent, from: number, to: number) => {
+    t.pushRange(e.values, from, to);
+    pushed += to - from;
+  };
+
+  // first pass
+  const first: LoopSegment[] = [];
+  let peakSnapshot: ReturnType<NotchTracker['snapshot']> | null = null;
+  let peakRow = -1;
+  let peakSegment = -1;
+  for (let k = 0; k < events.length; k++) {
+    const e = events[k];
+    let previous: ReturnType<NotchTracker['snapshot']> | null = null;
+    for (let r = 1; r <= e.repeats; r++) {
+      const before = t.loops.length;
+      t.restartIndex(e.ordinalBase);
+      if (r === 1 && k === peakEvent) {
+        push(e, 0, peakPoint + 1);
+        peakSnapshot = t.snapshot();
+        peakRow = t.loops.length;
+        peakSegment = first.length;
+        push(e, peakPoint + 1, e.values.length);
+      } else {
+        push(e, 0, e.values.length);
+      }
+      const segment: LoopSegment = { from: before, to: t.loops.length, weight: 1 };
+      first.push(segment);
+      if (r === e.repeats) break;
+      if (previous !== null && t.matches(previous)) {
+        segment.weight += e.repeats - r; // every further repeat closes the same loops
+        break;
+      }
+      previous = t.snapshot();
+    }
+  }
+  const firstResidue = t.residue();
+  if (!repeating) {
+    return { tracker: t, first, stabilised: first, firstResidue, reusedFirstPass: false, pushedPoints: pushed };
+  }
+
+  // stabilised pass
+  const stabilised: LoopSegment[] = [];
+  let reused = false;
+  outer: for (let k = 0; k < events.length; k++) {
+    const e = events[k];
+    let previous: ReturnType<NotchTracker['snapshot']> | null = null;
+    for (let r = 1; r <= e.repeats; r++) {
+      const before = t.loops.length;
+      t.restartIndex(e.ordinalBase);
+      if (r === 1 && k === peakEvent && peakSnapshot !== null) {
+        push(e, 0, peakPoint + 1);
+        if (t.matches(peakSnapshot)) {
+          stabilised.push({ from: before, to: t.loops.length, weight: 1 });
+          const s = first[peakSegment];
+          stabilised.push({ from: peakRow, to: s.to, weight: 1 });
+          for (let j = peakSegment + 1; j < first.length; j++) stabilised.push({ ...first[j] });
+          reused = true;
+          break outer;
+        }
+        push(e, peakPoint + 1, e.values.length);
+      } else {
+        push(e, 0, e.values.length);
+      }
+      const segment: LoopSegment = { from: before, to: t.loops.length, weight: 1 };
+      stabilised.push(segment);
+      if (r === e.repeats) break;
+      if (previous !== null && t.matches(previous)) {
+        segment.weight += e.repeats - r;
+        break;
+      }
+      previous = t.snapshot();
+    }
+  }
+  return { tracker: t, first, stabilised, firstResidue, reusedFirstPass: reused, pushedPoints: pushed };
+}
