@@ -27,25 +27,28 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * Linear rule and local strain use the cyclic-curve inverse of @loopwise/material.
  */
 export class BranchSolver {
+  /** Argument of the last {@link solve}. */
+  private amplitude = 0;
   /** Result of the last {@link solve}: local stress. */
   stress = 0;
   /** Result of the last {@link solve}: local strain. */
   strain = 0;
-  private readonly E: number;
-  private readonly m: number;
-  private readonly lnK: number;
-  private readonly w: number;
-  private readonly wE: number;
+  // Numbers at declaration keep the fields untagged doubles (see NotchTracker).
+  private readonly E: number = 0;
+  private readonly m: number = 0;
+  private readonly lnK: number = 0;
+  private readonly w: number = 0;
+  private readonly wE: number = 0;
   /** Cell key (leading 12 + CELL_BITS bits of the encoding) of the table's first cell. */
-  private readonly keyLo: number;
-  private readonly cells: number;
+  private readonly keyLo: number = 0;
+  private readonly cells: number = 0;
   /** Per cell: left end, 1 / width, then the cubic's coefficients in the cell fraction. */
   private readonly tab: Float64Array;
   /** Scratch for reading the encoding of an amplitude (the high word holds exponent and leading bits). */
   private readonly bits = new Float64Array(1);
   private readonly bitsHi = new Uint32Array(this.bits.buffer, HI_WORD * 4, 1);
-  private readonly tol: number;
-  private readonly maxIterations: number;
+  private readonly tol: number = 0;
+  private readonly maxIterations: number = 0;
 
   constructor(
     private readonly material: Material,
@@ -106,6 +109,14 @@ export class BranchSolver {
 
   /** Solves for amplitude a (finite, >= 0) and leaves the result in `stress` and `strain`. */
   solve(a: number): void {
+    // Small enough to be inlined into the caller; the solve proper takes its argument from a
+    // field, because a double passed to a call that is not inlined is boxed (an allocation).
+    this.amplitude = a;
+    this.solveAmplitude();
+  }
+
+  private solveAmplitude(): void {
+    const a = this.amplitude;
     const kind = this.kind;
     if (kind === 'local-strain') {
       this.strain = a;

@@ -46,7 +46,7 @@ export class LoopTable {
   private cClose: Float64Array;
   private cCount: Float64Array;
   private n = 0;
-  private capacity: number;
+  private capacity = 0;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);

@@ -94,15 +94,18 @@ export class NotchTracker {
   /** The checked options. */
   readonly options: Readonly<ResolvedTrackerOptions>;
   private readonly solver: BranchSolver;
-  private readonly scale: number;
-  private readonly offset: number;
-  private readonly strainLimit: number;
+  // Numeric fields get a number where they are declared: a field that starts as undefined (the
+  // define semantics of class fields) stays a tagged field, and every double stored into it is
+  // a fresh heap allocation (tens of MB of garbage per million samples).
+  private readonly scale: number = 0;
+  private readonly offset: number = 0;
+  private readonly strainLimit: number = 0;
   private revs = new ReversalTable();
   private loopTable = new LoopTable();
   private next = 0;
   private samples = 0;
   private dir = 0;
-  private ext: number;
+  private ext = 0;
   private extIndex = -1;
   private thr = 0;
   private k = 0;
@@ -143,62 +146,115 @@ export class NotchTracker {
 
   /** Pushes a chunk of samples; returns this. */
   push(chunk: ArrayLike<number>): this {
-    this.pushRange(chunk, 0, chunk.length);
+    this.run(chunk, null, 0, chunk.length);
     return this;
   }
 
   /** Pushes `chunk[from]` … `chunk[to − 1]` (internal use by the batch functions too). */
   pushRange(chunk: ArrayLike<number>, from: number, to: number): void {
+    this.run(chunk, null, from, to);
+  }
+
+  /**
+   * Pushes `values[from]` … `values[to − 1]` as consecutive samples whose sample indices are
+   * `indices[from]` … `indices[to − 1]`, for points that were thinned before (turning points,
+   * a hysteresis gate). Events are those that pushing the raw samples would give, provided the
+   * points keep every turning point of the raw history: reversals and loops carry the given
+   * indices, and a loop's `closeIndex` is the index of the point that closed it (with raw
+   * samples, the first sample that reached the memory point, which may lie before it). After
+   * the call `nextIndex` is the last given index + 1; `samples` counts the points pushed.
+   *
+   * The indices should be strictly increasing (and follow the indices pushed before). They are
+   * recorded as given and not checked: the memory model does not read them, so other indices
+   * change no σ or ε, only the indices the events carry. NaN or ±Infinity in `values` throws
+   * {@link NotchSampleError} naming `indices[k]`. No allocation per point.
+   *
+   * @example
+   * const tp = turningPoints(history); // @loopwise/rainflow: values and source indices
+   * tracker.pushIndexed(tp.values, tp.indices, 0, tp.values.length);
+   * // same loops (σ, ε, start and turn indices) as tracker.push(history)
+   */
+  pushIndexed(values: ArrayLike<number>, indices: ArrayLike<number>, from: number, to: number): this {
+    this.run(values, indices, from, to);
+    return this;
+  }
+
+  /**
+   * The per-sample loop: one comparison with the running extreme, one with the closure level;
+   * reversals and closures leave it. Sample indices count up from `next`, or come from `indices`.
+   */
+  private run(chunk: ArrayLike<number>, indices: ArrayLike<number> | null, from: number, to: number): void {
     const off = this.offset;
+    const base = this.next - from;
     let dir = this.dir;
     let ext = this.ext;
     let thr = this.thr;
     let extIndex = this.extIndex;
-    let idx = this.next;
-    for (let i = from; i < to; i++, idx++) {
+    let i = from;
+    for (; i < to; i++) {
+      const idx = indices === null ? base + i : indices[i];
       const x = chunk[i] + off;
       if (x - x !== 0) {
-        this.next = idx;
+        this.dir = dir;
+        this.ext = ext;
+        this.thr = thr;
         this.extIndex = extIndex;
+        this.samples += i - from;
+        this.next = idx;
         throw new NotchSampleError(idx, chunk[i]);
       }
+      // Events are handled by methods without number arguments: a double passed to a call
+      // that is not inlined is boxed, a heap allocation per event. They read and write the
+      // extreme through the fields instead.
       if (dir > 0) {
         if (x > ext) {
           ext = x;
           extIndex = idx;
           if (x >= thr) {
-            this.ext = ext;
-            this.extIndex = extIndex;
-            this.close(x, idx);
+            this.ext = x;
+            this.extIndex = idx;
+            this.close(idx);
             thr = this.thr;
           }
         } else if (x < ext) {
           this.ext = ext;
           this.extIndex = extIndex;
-          this.reverse(x, idx);
-          dir = this.dir;
-          ext = this.ext;
+          this.reverse();
+          dir = -1;
+          ext = x;
           extIndex = idx;
           thr = this.thr;
+          if (x <= thr) {
+            this.ext = x;
+            this.extIndex = idx;
+            this.close(idx);
+            thr = this.thr;
+          }
         }
       } else if (dir < 0) {
         if (x < ext) {
           ext = x;
           extIndex = idx;
           if (x <= thr) {
-            this.ext = ext;
-            this.extIndex = extIndex;
-            this.close(x, idx);
+            this.ext = x;
+            this.extIndex = idx;
+            this.close(idx);
             thr = this.thr;
           }
         } else if (x > ext) {
           this.ext = ext;
           this.extIndex = extIndex;
-          this.reverse(x, idx);
-          dir = this.dir;
-          ext = this.ext;
+          this.reverse();
+          dir = 1;
+          ext = x;
           extIndex = idx;
           thr = this.thr;
+          if (x >= thr) {
+            this.ext = x;
+            this.extIndex = idx;
+            this.close(idx);
+            thr = this.thr;
+          }
         }
       } else if (x !== ext) {
         this.start(x, idx);
@@ -212,11 +268,11 @@ export class NotchTracker {
     this.ext = ext;
     this.extIndex = extIndex;
     this.thr = thr;
-    this.samples += idx - this.next;
-    this.next = idx;
+    this.samples += to - from;
+    if (to > from) this.next = indices === null ? base + to : indices[to - 1] + 1;
   }
 
-  /** First movement away from the initial value. */
+  /** First movement away from the initial value (once per history: may take numbers). */
   private start(x: number, idx: number): void {
     const v0 = this.ext;
     const d = x > v0 ? 1 : -1;
@@ -228,31 +284,36 @@ export class NotchTracker {
       return;
     }
     this.dir = -d; // the initial value is a reversal of the path
-    this.reverse(x, idx);
+    this.reverse();
+    this.ext = x;
+    this.extIndex = idx;
+    if (d > 0 ? x >= this.thr : x <= this.thr) this.close(idx);
   }
 
-  /** A reversal at the pending extreme; x (at idx) moves back from it. */
-  private reverse(x: number, idx: number): void {
+  /**
+   * A reversal at the pending extreme `ext` (at `extIndex`): records it, pushes it onto the
+   * memory, turns the direction and sets the closure level. The caller moves the extreme on.
+   */
+  private reverse(): void {
     const v = this.ext;
-    this.computeAt(v, this.extIndex, true);
+    const index = this.extIndex;
+    this.computeAtExtreme(true);
     const stress = this.outStress;
     const strain = this.outStrain;
-    this.revs.add(this.extIndex, v, stress, strain);
+    this.revs.add(index, v, stress, strain);
     if (this.k === this.sv.length) this.growMemory();
     const k = this.k++;
     this.sv[k] = v;
-    this.si[k] = this.extIndex;
+    this.si[k] = index;
     this.ss[k] = stress;
     this.se[k] = strain;
     this.dir = -this.dir;
     this.setThreshold();
-    this.ext = x;
-    this.extIndex = idx;
-    if (this.dir > 0 ? x >= this.thr : x <= this.thr) this.close(x, idx);
   }
 
-  /** Closes every loop (memory 1, 2) and mirror rejoin (memory 3) that x reaches. */
-  private close(x: number, idx: number): void {
+  /** Closes every loop (memory 1, 2) and mirror rejoin (memory 3) that the extreme `ext` reaches; `idx` closes them. */
+  private close(idx: number): void {
+    const x = this.ext;
     const up = this.dir > 0;
     while (up ? x >= this.thr : x <= this.thr) {
       const k = this.k;
@@ -276,8 +337,10 @@ export class NotchTracker {
     this.thr = k >= 2 ? this.sv[k - 2] : k === 1 ? -this.sv[0] : this.dir * Infinity;
   }
 
-  /** Local state at history value v on the current branch (direction this.dir) into out*. */
-  private computeAt(v: number, index: number, flag: boolean): void {
+  /** Local state at the extreme `ext` on the current branch (direction `dir`) into out*; `flag` marks a reversal. */
+  private computeAtExtreme(flag: boolean): void {
+    const v = this.ext;
+    const index = this.extIndex;
     const k = this.k;
     const solver = this.solver;
     let a: number;
@@ -325,7 +388,7 @@ export class NotchTracker {
   residue(): ReversalTable {
     const r = new ReversalTable(this.k + 1);
     for (let i = 0; i < this.k; i++) r.add(this.si[i], this.sv[i], this.ss[i], this.se[i]);
-    this.computeAt(this.ext, this.extIndex, false);
+    this.computeAtExtreme(false);
     r.add(this.extIndex, this.ext, this.outStress, this.outStrain);
     return r;
   }

@@ -28,7 +28,7 @@ export class ReversalTable {
   private cStress: Float64Array;
   private cStrain: Float64Array;
   private n = 0;
-  private capacity: number;
+  private capacity = 0;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);
