@@ -115,7 +115,7 @@ export class NotchTracker {
   private se = new Float64Array(64);
   private beyond = false;
   private firstBeyond = -1;
-  // Output of computeAt.
+  // Output of computeAtExtreme.
   private outStress = 0;
   private outStrain = 0;
 
