@@ -6,7 +6,7 @@ import { EngineError } from './EngineError';
 import { evaluateLoops, type LoopLives } from './evaluateLoops';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
 import type { EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
-import { trackSchedule, type LoopSegment, type ScheduleEvent } from './trackSchedule';
+import { trackSchedule, type LoopSegment, type ScheduleEvent, type TrackedLoops } from './trackSchedule';
 
 /** One event of a duty cycle: a history block and how many times it runs in a row. */
 export interface DutyEvent {
@@ -111,14 +111,19 @@ export function trackerOptionsOf(job: ResolvedJob): NotchTrackerOptions {
   return o;
 }
 
+/** Maps a tracker index to the schedule sample index and the event (-1, -1 for the initial state). */
+export type IndexMap = (index: number, out: Float64Array, at: number, events: Float64Array) => void;
+
 /** What the tracking stage leaves for the damage stage (internal). */
 export interface TrackedSchedule {
   events: DutyEvent[];
-  schedule: ScheduleEvent[];
+  /** Index of each event's first sample in the schedule's sample space. */
+  eventStarts: number[];
   gate: number;
   removed: number;
   totalSamples: number;
-  track: ReturnType<typeof trackSchedule>;
+  track: TrackedLoops;
+  toSample: IndexMap;
 }
 
 /** Turning points, gate and the notch tracker over a checked schedule (internal). */
@@ -144,7 +149,15 @@ export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSch
     ordinalBase += tp.values.length;
   });
   const track = trackSchedule(schedule, trackerOptionsOf(job), job.repeating);
-  return { events, schedule, gate, removed, totalSamples: sampleBase, track };
+  return {
+    events,
+    eventStarts: schedule.map((s) => s.sampleBase),
+    gate,
+    removed,
+    totalSamples: sampleBase,
+    track,
+    toSample: ordinalMap(schedule),
+  };
 }
 
 /** The assessment of checked events with a resolved job (internal; shared by every entry point). */
@@ -154,12 +167,10 @@ export function assessResolved(events: DutyEvent[], job: ResolvedJob): LifeRepor
 
 /** The damage stage and the report, for one damage parameter (internal). */
 export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeReport {
-  const { events, schedule, gate, removed, totalSamples, track } = tracked;
-  const t = track.tracker;
+  const { events, eventStarts, gate, removed, totalSamples, track, toSample } = tracked;
   // every loop the tracker closed, in either pass, is solved once
-  const all = t.loops.columns();
+  const all = track.loops.columns();
   const lives = evaluateLoops(all, job.material, job.meanStress, job.walkerGamma);
-  const toSample = ordinalMap(schedule);
   const stabilised = gather(all, lives, track.stabilised, toSample);
   if (!job.repeating) appendResidueHalves(stabilised, track.firstResidue, job, toSample);
   const first = gather(all, lives, track.first, toSample);
@@ -193,7 +204,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
 
   const binSize = Math.max(1, Math.ceil(totalSamples / job.timelineBins));
   const timeline = damageTimeline(sum, { binSize, sampleCount: totalSamples });
-  const byEvent = damageByEvent(sum, { starts: schedule.map((s) => s.sampleBase) });
+  const byEvent = damageByEvent(sum, { starts: eventStarts });
   const eventDamage: EventDamage[] = events.map((e, k) => ({
     name: e.name,
     repeats: e.repeats,
@@ -243,7 +254,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
 }
 
 /** Maps a tracker index (turning-point ordinal) to the schedule sample index and the event. */
-function ordinalMap(schedule: ScheduleEvent[]): (ordinal: number, out: Float64Array, at: number, events: Float64Array) => void {
+function ordinalMap(schedule: ScheduleEvent[]): IndexMap {
   const bases = schedule.map((s) => s.ordinalBase);
   return (o, out, at, ev) => {
     if (o < 0) {
@@ -266,10 +277,10 @@ function ordinalMap(schedule: ScheduleEvent[]): (ordinal: number, out: Float64Ar
 
 /** The rows of the given segments as report columns, counts weighted. */
 function gather(
-  all: ReturnType<ReturnType<typeof trackSchedule>['tracker']['loops']['columns']>,
+  all: ReturnType<TrackedLoops['loops']['columns']>,
   lives: LoopLives,
   segments: LoopSegment[],
-  toSample: ReturnType<typeof ordinalMap>,
+  toSample: IndexMap,
 ): LifeLoopColumns {
   let n = 0;
   for (const s of segments) n += s.to - s.from;
@@ -315,7 +326,7 @@ function emptyColumns(n: number): LifeLoopColumns {
 }
 
 /** Appends the residue of a one-off history as half cycles (ASTM E1049-85 5.4.4 step 6 at the notch). */
-function appendResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: ResolvedJob, toSample: ReturnType<typeof ordinalMap>): void {
+function appendResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: ResolvedJob, toSample: IndexMap): void {
   const r = residue.columns();
   const m = Math.max(0, r.index.length - 1);
   if (m === 0) return;
@@ -371,7 +382,7 @@ function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
 
 function warningsOf(
   job: ResolvedJob,
-  track: ReturnType<typeof trackSchedule>,
+  track: TrackedLoops,
   loops: LifeLoopColumns,
   sum: MinerSum,
   damage: number,
@@ -397,7 +408,7 @@ function warningsOf(
       });
     }
   }
-  const state = track.tracker.end();
+  const state = track;
   if (state.beyondStrainLimit) {
     out.push({
       code: 'beyond-material-model',
@@ -424,10 +435,11 @@ function warningsOf(
  * Upper bound of the damage the gate removed: every removed reversal pair is at most a loop of
  * the gate's range; the worst place for it is at the highest local stress of the history (the
  * largest σmax and mean stress), hanging from that peak on a Masing branch. The bound is that
- * loop's damage times half the removed reversals.
+ * loop's damage times (removed + 1) / 2: half the removed reversals, plus one more cycle for the
+ * ends of the history (a removed last reversal, or the seam of a repeating block).
  */
-function gateDamageBound(job: ResolvedJob, track: ReturnType<typeof trackSchedule>, gate: number, removed: number): number {
-  const revs = track.tracker.reversals.columns();
+function gateDamageBound(job: ResolvedJob, track: TrackedLoops, gate: number, removed: number): number {
+  const revs = track.reversals.columns();
   let best = -1;
   for (let i = 0; i < revs.stress.length; i++) if (best < 0 || revs.stress[i] > revs.stress[best]) best = i;
   if (best < 0) return 0;
@@ -444,7 +456,7 @@ function gateDamageBound(job: ResolvedJob, track: ReturnType<typeof trackSchedul
   const nf = lives.cyclesToFailure[0];
   const limit = job.cutoffCycles ?? Infinity;
   const perLoop = nf > limit || nf === Infinity ? 0 : 1 / nf;
-  return (removed / 2) * perLoop;
+  return ((removed + 1) / 2) * perLoop;
 }
 
 function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {

@@ -1,4 +1,4 @@
-import { NotchTracker, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
+import { NotchTracker, type LoopTable, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
 
 /** One event of a schedule, as turning points, with its repeat count (internal). */
 export interface ScheduleEvent {
@@ -21,9 +21,18 @@ export interface LoopSegment {
   weight: number;
 }
 
-/** What {@link trackSchedule} returns (internal). */
-export interface ScheduleTrack {
-  tracker: NotchTracker;
+/**
+ * Closed loops of a tracked history and the passes made of them (internal): what the damage
+ * stage needs, whether it came from a batch schedule or a streaming session.
+ */
+export interface TrackedLoops {
+  /** Every loop the tracker closed, in either pass. */
+  loops: LoopTable;
+  /** The reversals the tracker saw (only the one of highest local stress is needed). */
+  reversals: ReversalTable;
+  /** True when some local strain amplitude exceeded the strain limit; index of the first such point. */
+  beyondStrainLimit: boolean;
+  firstBeyondIndex: number;
   /** Loops of the first pass, from the unloaded state (or the initial value). */
   first: LoopSegment[];
   /** Loops of the stabilised pass (repeating schedules), else the same as `first`. */
@@ -32,7 +41,11 @@ export interface ScheduleTrack {
   firstResidue: ReversalTable;
   /** True when the stabilised pass copied the first pass from the largest |value| on. */
   reusedFirstPass: boolean;
-  /** Turning points the tracker was fed, per pass (repeats not materialised count once each copy pushed). */
+}
+
+/** What {@link trackSchedule} returns (internal). */
+export interface ScheduleTrack extends TrackedLoops {
+  /** Turning points the tracker was fed (repeats not materialised are not counted). */
   pushedPoints: number;
 }
 
@@ -108,9 +121,7 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
     }
   }
   const firstResidue = t.residue();
-  if (!repeating) {
-    return { tracker: t, first, stabilised: first, firstResidue, reusedFirstPass: false, pushedPoints: pushed };
-  }
+  if (!repeating) return finish(t, first, first, firstResidue, false, pushed);
 
   // stabilised pass
   const stabilised: LoopSegment[] = [];
@@ -145,5 +156,28 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
       previous = t.snapshot();
     }
   }
-  return { tracker: t, first, stabilised, firstResidue, reusedFirstPass: reused, pushedPoints: pushed };
+  return finish(t, first, stabilised, firstResidue, reused, pushed);
+}
+
+function finish(
+  t: NotchTracker,
+  first: LoopSegment[],
+  stabilised: LoopSegment[],
+  firstResidue: ReversalTable,
+  reusedFirstPass: boolean,
+  pushedPoints: number,
+): ScheduleTrack {
+  // hand the tables over (no copy of millions of rows)
+  const r = t.takeResult();
+  return {
+    loops: r.loops,
+    reversals: r.reversals,
+    beyondStrainLimit: r.beyondStrainLimit,
+    firstBeyondIndex: r.firstBeyondIndex,
+    first,
+    stabilised,
+    firstResidue,
+    reusedFirstPass,
+    pushedPoints,
+  };
 }

@@ -1,0 +1,252 @@
+import { LoopTable, NotchTracker, ReversalTable } from '@loopwise/notch';
+import { ReversalFilter } from '@loopwise/rainflow';
+import { reportFrom, trackerOptionsOf, type IndexMap } from './assessDutyCycle';
+import { EngineError } from './EngineError';
+import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
+import type { LifeReport } from './LifeReport';
+import type { LoopSegment } from './trackSchedule';
+
+const BLOCK = 65536;
+
+/**
+ * A streaming assessment of one history that arrives in chunks (a file larger than memory):
+ * `push` the samples once; for a repeating history (the default) push its first
+ * `secondPassSamples` samples once more with `pushSecondPass` (re-read the file; it is not held);
+ * then `finish()` returns the report that {@link assessLife} gives for the whole history.
+ *
+ * Memory: the gate's and the tracker's O(1) state and memory, one chunk of turning points, and
+ * the closed loops the report lists (about 120 bytes per loop), not the samples.
+ *
+ * Why a second pass: the stabilised pass starts from the memory the first pass left and is
+ * tracked up to the history's first sample of largest |value|; from there on it equals the
+ * first pass. That sample is known only at the end of the first pass, and the samples before it
+ * are needed again. When the initial value is at least as large as every sample, the whole
+ * history is needed again (`secondPassSamples` is then the sample count).
+ *
+ * @example
+ * const session = new LifeSession({ material, notch: { Kt: 2 }, gateFraction: 0.01, fullScale: 800 });
+ * for await (const chunk of readChunks(file)) session.push(chunk);
+ * let left = session.secondPassSamples;
+ * for await (const chunk of readChunks(file)) { if (left <= 0) break; session.pushSecondPass(chunk); left -= chunk.length; }
+ * const report = session.finish();
+ */
+export class LifeSession {
+  private readonly job: ResolvedJob;
+  private readonly gate: number;
+  private readonly tracker: NotchTracker;
+  private filter: ReversalFilter;
+  private readonly tv = new Float64Array(BLOCK + 2);
+  private readonly ti = new Float64Array(BLOCK + 2);
+  private readonly loops = new LoopTable();
+  private peakReversal = new ReversalTable(2);
+  private stage: 'first' | 'second' | 'done' = 'first';
+  private samples = 0;
+  private best = -1;
+  private peakIndex = -1;
+  private peakValue = 0;
+  private peakRow = -1;
+  private peakSnapshot: ReturnType<NotchTracker['snapshot']> | null = null;
+  private firstRows = 0;
+  private firstResidue: ReversalTable | null = null;
+  private removed = 0;
+  private secondNeeded = 0;
+  private secondSeen = 0;
+  private secondFull = false;
+  private reused = false;
+  private beyond = false;
+  private firstBeyond = -1;
+
+  constructor(job: LifeJob) {
+    this.job = resolveLifeJob(job);
+    const j = this.job;
+    if (j.gateFraction !== undefined && j.fullScale === undefined) {
+      throw new EngineError('invalid-job', 'fullScale', undefined, 'a streamed history needs a declared fullScale for gateFraction');
+    }
+    this.gate = j.gate ?? (j.gateFraction !== undefined ? j.gateFraction * (j.fullScale as number) : 0);
+    this.filter = new ReversalFilter({ gate: this.gate });
+    this.tracker = new NotchTracker(trackerOptionsOf(j));
+  }
+
+  /** Samples pushed in the first pass so far. */
+  get sampleCount(): number {
+    return this.samples;
+  }
+
+  /**
+   * Samples of the history to push again with {@link pushSecondPass} (0 for a one-off history).
+   * Known once the first pass has ended, that is after the first call of `pushSecondPass` or
+   * of this getter, which ends it.
+   */
+  get secondPassSamples(): number {
+    this.endFirstPass();
+    return this.secondNeeded;
+  }
+
+  /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
+  push(chunk: ArrayLike<number>): this {
+    if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
+    for (let s = 0; s < chunk.length; s += BLOCK) {
+      const e = Math.min(chunk.length, s + BLOCK);
+      const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
+      this.feedFirst(k);
+    }
+    this.samples += chunk.length;
+    return this;
+  }
+
+  /** Pushes the history's samples again, from sample 0 on; samples past `secondPassSamples` are ignored. */
+  pushSecondPass(chunk: ArrayLike<number>): this {
+    this.endFirstPass();
+    if (this.stage !== 'second') throw new EngineError('session-state', 'pushSecondPass', undefined, 'no second pass is open');
+    const want = Math.min(chunk.length, this.secondNeeded - this.secondSeen);
+    for (let s = 0; s < want; s += BLOCK) {
+      const e = Math.min(want, s + BLOCK);
+      const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
+      this.feed(k);
+    }
+    this.secondSeen += want;
+    if (this.secondSeen === this.secondNeeded) this.endSecondPass();
+    return this;
+  }
+
+  /** Ends the assessment and returns the report (the same as `assessLife` on the whole history). */
+  finish(): LifeReport {
+    this.endFirstPass();
+    if (this.stage === 'second') {
+      throw new EngineError(
+        'session-state',
+        'pushSecondPass',
+        this.secondSeen,
+        `the second pass needs samples 0 to ${this.secondNeeded - 1} again; ${this.secondSeen} were pushed`,
+      );
+    }
+    if (this.stage === 'done' && this.samples === 0) {
+      throw new EngineError('invalid-event', 'history', '[]', "event 'history' has no samples");
+    }
+    const n = this.loops.length;
+    const first: LoopSegment[] = [{ from: 0, to: this.firstRows, weight: 1 }];
+    let stabilised: LoopSegment[] = first;
+    if (this.job.repeating) {
+      stabilised = [{ from: this.firstRows, to: n, weight: 1 }];
+      if (this.reused) stabilised.push({ from: this.peakRow, to: this.firstRows, weight: 1 });
+    }
+    const identity: IndexMap = (index, out, at, events) => {
+      out[at] = index;
+      events[at] = index < 0 ? -1 : 0;
+    };
+    return reportFrom(
+      {
+        events: [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }],
+        eventStarts: [0],
+        gate: this.gate,
+        removed: this.removed,
+        totalSamples: this.samples,
+        toSample: identity,
+        track: {
+          loops: this.loops,
+          reversals: this.peakReversal,
+          beyondStrainLimit: this.beyond,
+          firstBeyondIndex: this.firstBeyond,
+          first,
+          stabilised,
+          firstResidue: this.firstResidue as ReversalTable,
+          reusedFirstPass: this.reused,
+        },
+      },
+      this.job,
+    );
+  }
+
+  /** Feeds k turning points of the first pass, splitting at each new largest |value|. */
+  private feedFirst(k: number): void {
+    const off = this.job.offset;
+    let from = 0;
+    for (let j = 0; j < k; j++) {
+      const a = Math.abs(this.tv[j] + off);
+      if (a > this.best) {
+        this.best = a;
+        this.tracker.pushIndexed(this.tv, this.ti, from, j + 1);
+        from = j + 1;
+        this.drain();
+        this.peakIndex = this.ti[j];
+        this.peakValue = this.tv[j];
+        this.peakRow = this.loops.length;
+        this.peakSnapshot = this.tracker.snapshot();
+      }
+    }
+    if (from < k) this.tracker.pushIndexed(this.tv, this.ti, from, k);
+    this.drain();
+  }
+
+  private feed(k: number): void {
+    if (k > 0) this.tracker.pushIndexed(this.tv, this.ti, 0, k);
+    this.drain();
+  }
+
+  /** Moves the tracker's new loops into the session's table and keeps the highest-stress reversal. */
+  private drain(): void {
+    const r = this.tracker.takeResult();
+    this.loops.appendRange(r.loops, 0, r.loops.length);
+    const rv = r.reversals.columns();
+    for (let i = 0; i < rv.stress.length; i++) {
+      const top = this.peakReversal.length > 0 ? this.peakReversal.columns().stress[0] : -Infinity;
+      if (rv.stress[i] > top) {
+        const t = new ReversalTable(2);
+        t.add(rv.index[i], rv.value[i], rv.stress[i], rv.strain[i]);
+        this.peakReversal = t;
+      }
+    }
+    if (r.beyondStrainLimit && !this.beyond) {
+      this.beyond = true;
+      this.firstBeyond = r.firstBeyondIndex;
+    }
+  }
+
+  private endFirstPass(): void {
+    if (this.stage !== 'first') return;
+    if (this.samples === 0) {
+      this.stage = 'done';
+      return;
+    }
+    // the last extreme is a turning point too
+    const p = this.filter.pendingInto(this.tv, this.ti, 0);
+    this.feedFirst(p);
+    this.removed = this.filter.removedCount;
+    this.firstRows = this.loops.length;
+    this.firstResidue = this.tracker.residue();
+    if (!this.job.repeating) {
+      this.stage = 'done';
+      return;
+    }
+    this.secondFull = Math.abs(this.job.initial + this.job.offset) > this.best;
+    this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
+    this.filter = new ReversalFilter({ gate: this.gate });
+    this.stage = 'second';
+  }
+
+  private endSecondPass(): void {
+    if (this.secondFull) {
+      this.feed(this.filter.pendingInto(this.tv, this.ti, 0));
+      this.stage = 'done';
+      return;
+    }
+    // The samples up to the largest |value| confirm every turning point before it again; the one
+    // at it was confirmed by later samples in the first pass, so it is pushed as found there.
+    this.tv[0] = this.peakValue;
+    this.ti[0] = this.peakIndex;
+    this.feed(1);
+    if (this.peakSnapshot !== null && this.tracker.matches(this.peakSnapshot)) {
+      this.reused = true;
+      this.stage = 'done';
+      return;
+    }
+    // The memory rules make both passes equal from the largest |value| on unless the initial
+    // value exceeds the history, which is handled by a full second pass.
+    throw new EngineError(
+      'session-state',
+      'pushSecondPass',
+      this.peakIndex,
+      `the two passes hold different memories at sample ${this.peakIndex}; assess this history with assessLife`,
+    );
+  }
+}

@@ -1,0 +1,75 @@
+import fc from 'fast-check';
+import { describe, expect, test } from 'vitest';
+import { assessLife, EngineError, LifeSession, type LifeReport } from '@loopwise/engine';
+import { checkProperty } from '../../../test/property';
+import { sae1045 } from './support';
+
+const plain = (r: LifeReport) => JSON.stringify(r, (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v));
+
+function streamed(history: number[], cuts: number[], job: Parameters<typeof assessLife>[1]): LifeReport {
+  const s = new LifeSession(job);
+  let at = 0;
+  for (const c of [...cuts, history.length]) {
+    s.push(history.slice(at, c));
+    at = c;
+  }
+  let left = s.secondPassSamples;
+  // the second pass re-reads the history in other chunks (a file read again)
+  for (let i = 0; left > 0; i += 3) {
+    const part = history.slice(i, i + 3);
+    s.pushSecondPass(part);
+    left -= part.length;
+  }
+  return s.finish();
+}
+
+describe('LifeSession', () => {
+  test('a streamed history gives the same report as assessLife, for any chunking, repeating or not, with a gate', () => {
+    checkProperty(
+      'session = batch',
+      fc.property(
+        fc.array(fc.integer({ min: -400, max: 400 }), { minLength: 1, maxLength: 60 }).chain((h) =>
+          fc.tuple(fc.constant(h), fc.uniqueArray(fc.integer({ min: 0, max: h.length }), { maxLength: 6 }).map((a) => a.sort((x, y) => x - y))),
+        ),
+        fc.boolean(),
+        fc.constantFrom(0, 15, 60),
+        ([history, cuts], repeating, gate) => {
+          const job = { material: sae1045, notch: { Kt: 2 }, repeating, gate, timelineBins: 7 };
+          expect(plain(streamed(history, cuts, job))).toBe(plain(assessLife(history, job)));
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+
+  test('the second pass needs only the samples up to the largest |value|', () => {
+    const history = [0, 100, -50, 300, -120, 80, -60, 40];
+    const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } });
+    s.push(history);
+    expect(s.secondPassSamples).toBe(4); // samples 0 … 3; 300 is the largest |value|
+    s.pushSecondPass(history);
+    expect(s.finish().damage.reusedFirstPass).toBe(true);
+  });
+
+  test('an initial value beyond the history needs the whole history again', () => {
+    const history = [0, 100, -50, 80, 0];
+    const job = { material: sae1045, notch: { Kt: 2 }, initial: 150 };
+    const s = new LifeSession(job);
+    s.push(history);
+    expect(s.secondPassSamples).toBe(history.length);
+    s.pushSecondPass(history);
+    expect(plain(s.finish())).toBe(plain(assessLife(history, job)));
+  });
+
+  test('misuse and bad input get clear errors', () => {
+    const job = { material: sae1045, notch: { Kt: 2 } };
+    expect(() => new LifeSession({ ...job, gateFraction: 0.1 })).toThrow(/fullScale/);
+    const s = new LifeSession(job);
+    s.push([0, 200, -100]);
+    void s.secondPassSamples;
+    expect(() => s.push([1])).toThrow(EngineError);
+    expect(() => s.finish()).toThrow(/samples 0 to 1 again/);
+    expect(() => new LifeSession(job).push([0, NaN])).toThrow(/sample 1/);
+    expect(() => new LifeSession(job).finish()).toThrow(/no samples/);
+  });
+});
