@@ -27,8 +27,8 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * Linear rule and local strain use the cyclic-curve inverse of @loopwise/material.
  */
 export class BranchSolver {
-  /** Argument of the last {@link solve}. */
-  private amplitude = 0;
+  /** Input of {@link solve}: the pseudo-elastic (or strain) amplitude. */
+  amplitude = 0;
   /** Result of the last {@link solve}: local stress. */
   stress = 0;
   /** Result of the last {@link solve}: local strain. */
@@ -107,15 +107,12 @@ export class BranchSolver {
     }
   }
 
-  /** Solves for amplitude a (finite, >= 0) and leaves the result in `stress` and `strain`. */
-  solve(a: number): void {
-    // Small enough to be inlined into the caller; the solve proper takes its argument from a
-    // field, because a double passed to a call that is not inlined is boxed (an allocation).
-    this.amplitude = a;
-    this.solveAmplitude();
-  }
-
-  private solveAmplitude(): void {
+  /**
+   * Solves for `amplitude` (finite, >= 0) and leaves the result in `stress` and `strain`. Input
+   * and output are fields, not an argument and a return value: a double passed to or returned
+   * from a call that is not inlined is boxed, one heap allocation per solve.
+   */
+  solve(): void {
     const a = this.amplitude;
     const kind = this.kind;
     if (kind === 'local-strain') {

@@ -351,7 +351,8 @@ export class NotchTracker {
       a = this.scale * (d < 0 ? -d : d) * 0.5;
     }
     if (a === Infinity) throw new NotchValidityError(index, 'pseudoElastic', a);
-    solver.solve(a);
+    solver.amplitude = a;
+    solver.solve();
     const s = solver.stress;
     const e = solver.strain;
     if (s === Infinity) throw new NotchValidityError(index, 'stress', s);
