@@ -1,0 +1,52 @@
+import type { LifeReport } from '@loopwise/engine';
+
+/** A display copy of a history: sample indices and values, already thinned by the caller. */
+export interface HtmlHistory {
+  /** Sample index of each displayed point (ascending). */
+  index: Float64Array;
+  /** Value of each displayed point, in the channel's unit. */
+  value: Float64Array;
+}
+
+/** A rainflow range-mean matrix for the heat map (rows: range bins, columns: mean bins). */
+export interface HtmlMatrix {
+  /** Row (range) bin edges, one more than the rows. */
+  rowEdges: Float64Array;
+  /** Column (mean) bin edges, one more than the columns. */
+  columnEdges: Float64Array;
+  /** Cycle counts, row-major (`counts[row * columns + column]`). */
+  counts: Float64Array;
+  /** Axis label of the rows with its unit, e.g. `'range (µε)'`. */
+  rowLabel: string;
+  /** Axis label of the columns with its unit, e.g. `'mean (µε)'`. */
+  columnLabel: string;
+}
+
+/** One channel of the report: its assessment and what to draw of it. */
+export interface HtmlChannel {
+  /** Channel name (any text; it is escaped). */
+  name: string;
+  /** Unit label of the history, e.g. `'MPa'`, `'µε'`, `'kN'`. */
+  unit: string;
+  /** The assessment of the channel. */
+  report: LifeReport;
+  /**
+   * A display copy of the history (at most a few thousand points, e.g. min/max per pixel bucket,
+   * see `displayHistory`) with its sample indices; `null` leaves the history plot empty.
+   */
+  history: HtmlHistory | null;
+  /** The rainflow range-mean matrix of the history; `null` leaves the matrix plot empty. */
+  matrix: HtmlMatrix | null;
+}
+
+/** Everything {@link renderHtmlReport} draws. */
+export interface HtmlReportInput {
+  /** Title of the report, e.g. `'Trailer axle, shoulder fillet (invented demo data)'`. */
+  title: string;
+  /** Program and version, e.g. `'loopwise 0.1.0'`. No dates: the output is deterministic. */
+  generatedBy: string;
+  /** One or more channels: one section each, and one row each in the results table. */
+  channels: HtmlChannel[];
+  /** Unit of local stress (the material's stress unit); default `'MPa'`. */
+  stressUnit?: string;
+}

@@ -1,0 +1,31 @@
+import type { WorstLoop } from '@loopwise/engine';
+import { formatInteger, formatNumber, formatPercent } from './formatNumber.js';
+import { htmlTable, num } from './htmlTable.js';
+
+function indexText(i: number): string {
+  return i < 0 ? 'initial state' : formatInteger(i);
+}
+
+/** The table of the most damaging loops, by rank (the ranks marked in the plots). */
+export function worstLoopsTable(loops: WorstLoop[], stressUnit: string): string {
+  if (loops.length === 0) return '<p class="none">No damaging loops.</p>';
+  return htmlTable(
+    'worst-loops',
+    'Most damaging loops (local stress and strain at the notch root; damage per repeat)',
+    ['rank', 'share of damage', 'damage', 'count', `σmax (${stressUnit})`, `σmin (${stressUnit})`, 'εmax (µε)', 'εmin (µε)', 'cycles to failure Nf', 'start index', 'turn index', 'events (start → turn)'],
+    loops.map((l, k) => [
+      num(String(k + 1)),
+      num(formatPercent(l.share)),
+      num(formatNumber(l.damage)),
+      num(formatNumber(l.count)),
+      num(formatNumber(l.stressMax)),
+      num(formatNumber(l.stressMin)),
+      num(formatNumber(l.strainMax * 1e6)),
+      num(formatNumber(l.strainMin * 1e6)),
+      num(formatNumber(l.cyclesToFailure)),
+      num(indexText(l.startIndex)),
+      num(indexText(l.turnIndex)),
+      `${l.startEvent ?? 'initial state'} → ${l.turnEvent ?? 'initial state'}`,
+    ]),
+  );
+}
