@@ -29,7 +29,8 @@ describe('built packages', () => {
       expect(Object.keys(pkg.exports['.'].import)[0]).toBe('types');
       expect(Object.keys(pkg.exports['.'].require)[0]).toBe('types');
       expect(pkg.sideEffects).toBe(false);
-      expect(pkg.files).toEqual(['dist']);
+      expect(pkg.files[0]).toBe('dist');
+      expect(pkg.files.every((f: string) => f === 'dist' || pkg.name === '@loopwise/cli')).toBe(true);
       const esm = exportsOf('import', pkg.name);
       const cjs = exportsOf('require', pkg.name);
       expect(esm.length).toBeGreaterThan(0);

@@ -57,7 +57,15 @@ export interface IngestOptions {
   checks?: Partial<SignalCheckThresholds> | false;
   /** Called with each chunk as it is read. Default: none (only the report). */
   onChunk?: (chunk: IngestChunk) => void;
+  /**
+   * Stop reading once this many samples have been delivered (the chunk that reaches it is
+   * delivered whole); default: read the whole file. For a second read of a prefix.
+   */
+  stopAfterSamples?: number;
 }
+
+/** Thrown inside the reading loop to stop at `stopAfterSamples` (internal). */
+const STOP_READING = Symbol('stop reading');
 
 /** A channel as read. */
 export interface IngestedChannel {
@@ -193,12 +201,16 @@ export async function readDelimited(path: string, options: IngestOptions): Promi
     const timeCheck = hasTimeColumn ? new TimeAxisCheck() : null;
     const nChannels = options.channels.length;
     const onChunk = options.onChunk;
+    const stopAfter = options.stopAfterSamples;
+    if (stopAfter !== undefined && !(Number.isInteger(stopAfter) && stopAfter >= 1))
+      throw new IngestOptionError('stopAfterSamples', stopAfter, 'an integer >= 1');
     const assembler = new ChunkAssembler(width, chunkSamples, (cols, firstSample) => {
       const channels = cols.slice(0, nChannels);
       const t = hasTimeColumn ? cols[nChannels] : null;
       if (checks) for (let k = 0; k < nChannels; k++) checks[k].push(channels[k], firstSample);
       if (timeCheck && t) timeCheck.push(t);
       onChunk?.({ firstSample, length: channels[0].length, channels, time: t });
+      if (stopAfter !== undefined && firstSample + channels[0].length >= stopAfter) throw STOP_READING;
     });
 
     const layout = {
@@ -222,22 +234,26 @@ export async function readDelimited(path: string, options: IngestOptions): Promi
       if (dialect.delimiter === 'whitespace') reader = 'fast';
     }
     let headerPending = dialect.header;
-    if (reader === 'fast') {
-      const scanner = new FastNumericScanner(layout, assembler, 1, headerPending);
-      const stop = await scanFile(handle, scanner, bomLength, chunkBytes);
-      headerPending = scanner.headerPending;
-      if (stop >= 0) {
-        if (dialect.delimiter === 'whitespace')
-          throw new IngestError('LW_INGEST_MALFORMED_QUOTES', file, scanner.line, 0, 'quoted fields are not supported in the whitespace dialect');
-        reader = `fast, then csv-parse from line ${scanner.line}`;
-        await readWithCsvParse(path, stop, scanner.line - 1, false, headerPending, layout, assembler, chunkBytes);
+    try {
+      if (reader === 'fast') {
+        const scanner = new FastNumericScanner(layout, assembler, 1, headerPending);
+        const stop = await scanFile(handle, scanner, bomLength, chunkBytes);
+        headerPending = scanner.headerPending;
+        if (stop >= 0) {
+          if (dialect.delimiter === 'whitespace')
+            throw new IngestError('LW_INGEST_MALFORMED_QUOTES', file, scanner.line, 0, 'quoted fields are not supported in the whitespace dialect');
+          reader = `fast, then csv-parse from line ${scanner.line}`;
+          await readWithCsvParse(path, stop, scanner.line - 1, false, headerPending, layout, assembler, chunkBytes);
+          headerPending = false;
+        }
+      } else {
+        await readWithCsvParse(path, 0, 0, true, headerPending, layout, assembler, chunkBytes);
         headerPending = false;
       }
-    } else {
-      await readWithCsvParse(path, 0, 0, true, headerPending, layout, assembler, chunkBytes);
-      headerPending = false;
+      assembler.flush();
+    } catch (err) {
+      if (err !== STOP_READING) throw err;
     }
-    assembler.flush();
     if (assembler.samples === 0) {
       if (dialect.header)
         throw new IngestError('LW_INGEST_HEADER_ONLY', file, dialect.headerLine, 0, 'header only: the file has column names but no data rows');

@@ -1,0 +1,120 @@
+/** Help texts of the command and its subcommands. */
+export const HELP: Record<string, string> = {
+  main: `loopwise: fatigue life of notched parts from measured load and strain files
+
+Usage: loopwise <command> [options]
+
+Commands:
+  assess     estimate the fatigue life of a notched part from a measured file or a job file
+  count      count the rainflow cycles of a channel: summary, range-mean matrix, spectrum
+  margin     find the load factor at which the life falls to a target
+  material   estimate strain-life constants from tensile strength or hardness, or list the handbook table
+  demo       assess the bundled demo history (invented data) and print the summary
+  help       show help for a command: loopwise help assess
+
+Options for every command: --help, --version
+
+Exit codes: 0 success, 1 failure, 2 usage or input error.
+Estimates carry large scatter: validate by test, apply scatter factors, and follow the
+applicable design codes and licensed engineering review for safety-critical parts.`,
+
+  assess: `loopwise assess: estimate the fatigue life of a notched part
+
+Usage: loopwise assess <file> [options]
+       loopwise assess --job <job.json> [outputs]
+
+The measured file is delimited text (comma, semicolon, tab or whitespace; header optional).
+A repeating history (the default) is read twice: the second read goes up to its largest value.
+
+Channel:
+  --column <name|n>        column to assess (1-based number or header name); repeat for several
+  --quantity <q>           stress (default), strain or load
+  --unit <u>               MPa (default) or ksi for stress; strain or microstrain for strain
+  --mpa-per-unit <x>       nominal stress in MPa per unit of a load channel
+  --sample-rate <Hz>       sample rate, or --time-column <name|n>
+Model:
+  --material <m>           handbook name (e.g. "SAE 1045") or a .json file of constants
+  --su <MPa>               or estimate the material from tensile strength (Uniform Material Law, steel)
+  --hardness <HB>          or from Brinell hardness (Roessle-Fatemi)
+  --kt <x> | --kf <x>      stress concentration (nominal stress or load channels); default 1
+  --rule <r>               neuber (default), glinka or linear
+  --correction <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
+  --gate <x>               gate range in the channel's unit; or --gate-fraction <f> [--full-scale <x>]
+  --one-off                the history does not repeat (open loops count as half cycles)
+  --scatter-factor <x>     design life = life / x (default 1)
+  --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
+  --critical-damage <x>    damage sum at failure (default 1)
+  --service "<x> <unit>"   service one repeat stands for, e.g. "0.5 h" or "12 km"
+  --job <file>             take all of the above from a job file (see the CLI README)
+Outputs (written atomically; an input file is never overwritten):
+  --json                   print the JSON report instead of the summary
+  --json-out <file>        write the JSON report
+  --cycles-out <file>      write the loops as CSV
+  --html-out <file>        write the HTML report with plots (opens offline)
+  --quiet                  no progress display
+
+Examples:
+  loopwise assess fillet.csv --column strain_ue --quantity strain --unit microstrain --material "SAE 1045" --service "60 s"
+  loopwise assess loads.csv --column 2 --quantity load --mpa-per-unit 4.2 --kt 2.3 --material steel.json --correction all
+  loopwise assess --job axle-job.json --html-out axle.html`,
+
+  count: `loopwise count: rainflow cycles of a channel
+
+Usage: loopwise count <file> [options]
+
+  --column <name|n>        column (1-based number or header name); default the first
+  --quantity, --unit       as for assess (values are reported in engine units: MPa or strain)
+  --sample-rate <Hz>       or --time-column <name|n>
+  --gate <x>               gate range; or --gate-fraction <f> of the channel's range
+  --residue <r>            half (default, ASTM E1049 half cycles), repeat or none
+  --range-bins <n>         range bins of the matrix (default 32); --mean-bins <n> (default 32)
+  --matrix-out <file>      write the range-mean matrix (format loopwise-cycle-matrix, version 1)
+  --cycles-out <file>      write every cycle as CSV
+  --json                   print the summary as JSON
+
+Examples:
+  loopwise count fillet.csv --column strain_ue --quantity strain --unit microstrain --matrix-out fillet-matrix.json
+  loopwise count loads.csv --column 3 --gate-fraction 0.02 --residue repeat`,
+
+  margin: `loopwise margin: load factor at which the life falls to a target
+
+Usage: loopwise margin <file> --target-repeats <n> [assess options]
+       loopwise margin --job <job.json> --target-repeats <n>
+
+Every sample is scaled by a factor f; the smallest f whose life is at most the target is
+found by a scan over 0.05 … 20 and bisection to 1e-6 relative. Damage need not grow with the
+load when mean stresses matter; the output says whether the scan saw it fall.
+
+  --target-repeats <n>     target life in repeats of the history
+  --target-life <x>        or in the service unit of --service
+
+Example:
+  loopwise margin loads.csv --column 2 --kt 2.2 --material "SAE 1045" --service "2 h" --target-life 10000`,
+
+  material: `loopwise material: strain-life constants
+
+Usage: loopwise material --list
+       loopwise material --su <MPa> [--method uniform-material-law|modified-universal-slopes] [options]
+       loopwise material --hardness <HB>
+
+  --list                   the handbook table (reference values, not certified design data)
+  --su <MPa>               ultimate tensile strength
+  --method <m>             uniform-material-law (default) or modified-universal-slopes
+  --metal <m>              steel (default) or aluminium-titanium (Uniform Material Law)
+  --reduction-of-area <f>  for modified universal slopes (0 … 1)
+  --hardness <HB>          Brinell hardness (Roessle-Fatemi)
+  --e <MPa>                Young's modulus (default 207000 for steel)
+  --out <file>             write the material as JSON (usable with --material)
+
+Examples:
+  loopwise material --su 700 --out steel-700.json
+  loopwise material --hardness 250`,
+
+  demo: `loopwise demo: assess the bundled demo history
+
+Usage: loopwise demo [--html-out <file>] [--json]
+
+The demo is INVENTED data: a strain gauge at the shoulder fillet of a machined steel axle of a
+loaded two-wheel utility trailer towed over a rough farm track (60 s at 200 Hz), SAE 1045 from
+the handbook table, Smith-Watson-Topper, each repeat standing for 60 s of service.`,
+};

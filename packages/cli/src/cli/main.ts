@@ -1,0 +1,486 @@
+import { existsSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { findLoadMargin, type DutyEvent } from '@loopwise/engine';
+import { handbookSteels } from '@loopwise/material';
+import type { DamageParameterName } from '@loopwise/mean-stress';
+import { RainflowCounter, RangeMeanMatrix, CycleTable } from '@loopwise/rainflow';
+import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
+import { exitCodeOf, oneLine, UsageError } from './CliError';
+import { readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { formatNumber } from './formatNumber';
+import { HELP } from './helpTexts';
+import { cyclesCsv, jsonReport, stableJson, summaryText } from './outputs';
+import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
+import { lifeJobOf, runAssessment, type ChannelResult } from './runAssessment';
+import { writeOutputAtomic } from './writeOutputAtomic';
+import { renderChannelsHtml } from './renderChannelsHtml';
+
+/** Version printed by --version and written into reports. */
+export const VERSION = '0.1.0';
+const TOOL = `loopwise ${VERSION}`;
+
+/** Where the command writes (injectable for tests). */
+export interface Io {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+  /** True when stderr is a terminal (progress is shown only then). */
+  stderrIsTerminal: boolean;
+}
+
+const processIo: Io = {
+  stdout: (t) => process.stdout.write(t),
+  stderr: (t) => process.stderr.write(t),
+  stderrIsTerminal: Boolean(process.stderr.isTTY),
+};
+
+const COMMON = {
+  help: { type: 'boolean' },
+  version: { type: 'boolean' },
+} as const;
+
+const CHANNEL = {
+  column: { type: 'string', multiple: true },
+  quantity: { type: 'string' },
+  unit: { type: 'string' },
+  'mpa-per-unit': { type: 'string' },
+  'sample-rate': { type: 'string' },
+  'time-column': { type: 'string' },
+  gate: { type: 'string' },
+  'gate-fraction': { type: 'string' },
+  'full-scale': { type: 'string' },
+} as const;
+
+const MODEL = {
+  ...CHANNEL,
+  material: { type: 'string' },
+  su: { type: 'string' },
+  hardness: { type: 'string' },
+  kt: { type: 'string' },
+  kf: { type: 'string' },
+  rule: { type: 'string' },
+  correction: { type: 'string' },
+  'walker-gamma': { type: 'string' },
+  'one-off': { type: 'boolean' },
+  'scatter-factor': { type: 'string' },
+  'cutoff-cycles': { type: 'string' },
+  'critical-damage': { type: 'string' },
+  service: { type: 'string' },
+  job: { type: 'string' },
+  json: { type: 'boolean' },
+  'json-out': { type: 'string' },
+  'cycles-out': { type: 'string' },
+  'html-out': { type: 'string' },
+  quiet: { type: 'boolean' },
+} as const;
+
+/**
+ * Runs the `loopwise` command with the given arguments and returns its exit code: 0 success,
+ * 1 failure, 2 usage or input error (with a one-line message on stderr naming where).
+ */
+export async function main(argv: string[], io: Io = processIo): Promise<number> {
+  const [command, ...rest] = argv;
+  try {
+    if (command === undefined || command === '--help' || command === '-h' || command === 'help') {
+      const topic = command === 'help' ? rest[0] : undefined;
+      if (topic !== undefined && !(topic in HELP)) throw new UsageError(`help: no command "${topic}"; commands: ${commands().join(', ')}`);
+      io.stdout(HELP[topic ?? 'main'] + '\n');
+      return command === undefined ? 2 : 0;
+    }
+    if (command === '--version') {
+      io.stdout(TOOL + '\n');
+      return 0;
+    }
+    switch (command) {
+      case 'assess':
+        return await assessCommand(rest, io, false);
+      case 'margin':
+        return await assessCommand(rest, io, true);
+      case 'count':
+        return await countCommand(rest, io);
+      case 'material':
+        return materialCommand(rest, io);
+      case 'demo':
+        return await demoCommand(rest, io);
+      default:
+        throw new UsageError(`unknown command "${command}"; commands: ${commands().join(', ')} (loopwise --help)`);
+    }
+  } catch (error) {
+    io.stderr(`loopwise ${command ?? ''}: ${oneLine(error)}\n`.replace('loopwise : ', 'loopwise: '));
+    return exitCodeOf(error);
+  }
+}
+
+function commands(): string[] {
+  return Object.keys(HELP).filter((k) => k !== 'main');
+}
+
+function parse<O extends Record<string, { type: 'string' | 'boolean'; multiple?: boolean }>>(args: string[], options: O, command: string) {
+  try {
+    return parseArgs({ args, options: { ...COMMON, ...options, ...(command === 'margin' ? MARGIN : {}) }, allowPositionals: true, strict: true });
+  } catch (error) {
+    throw new UsageError(`${(error as Error).message.replace(/\. To specify a positional.*$/, '')} (loopwise help ${command})`);
+  }
+}
+
+const MARGIN = { 'target-repeats': { type: 'string' }, 'target-life': { type: 'string' } } as const;
+
+/** A number option: finite, with the option named in the error. */
+function num(values: Record<string, unknown>, name: string): number | undefined {
+  const v = values[name];
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (typeof v !== 'string' || v.trim() === '' || !Number.isFinite(x)) throw new UsageError(`--${name}: expected a number, got "${String(v)}"`);
+  return x;
+}
+
+function channelsOf(values: Record<string, unknown>): CliChannel[] {
+  const columns = (values.column as string[] | undefined) ?? ['1'];
+  const quantity = (values.quantity as string | undefined) ?? 'stress';
+  let base: ChannelSelection;
+  if (quantity === 'stress') {
+    const unit = (values.unit as string | undefined) ?? 'MPa';
+    if (unit !== 'MPa' && unit !== 'ksi') throw new UsageError(`--unit: stress is in MPa or ksi, got "${unit}"`);
+    base = { quantity, unit, column: 1 };
+  } else if (quantity === 'strain') {
+    const unit = (values.unit as string | undefined) ?? 'strain';
+    if (unit !== 'strain' && unit !== 'microstrain') throw new UsageError(`--unit: strain is plain strain or microstrain, got "${unit}"`);
+    base = { quantity, unit, column: 1 };
+  } else if (quantity === 'load') {
+    const f = num(values, 'mpa-per-unit');
+    if (f === undefined) throw new UsageError('--mpa-per-unit: a load channel needs its nominal stress in MPa per unit of load');
+    base = { quantity, mpaPerUnit: f, column: 1 };
+  } else {
+    throw new UsageError(`--quantity: stress, strain or load, got "${quantity}"`);
+  }
+  return columns.map((c) => ({ ...base, column: /^\d+$/.test(c) ? Number(c) : c }));
+}
+
+function timeOf(values: Record<string, unknown>): TimeSource | undefined {
+  const rate = num(values, 'sample-rate');
+  const col = values['time-column'] as string | undefined;
+  if (rate !== undefined && col !== undefined) throw new UsageError('--sample-rate and --time-column: give one of them');
+  if (rate !== undefined) return { sampleRate: rate };
+  if (col !== undefined) return { column: /^\d+$/.test(col) ? Number(col) : col };
+  return undefined;
+}
+
+function serviceOf(values: Record<string, unknown>): CliJob['service'] | undefined {
+  const s = values.service as string | undefined;
+  if (s === undefined) return undefined;
+  const m = /^\s*([0-9.eE+-]+)\s+(\S.*?)\s*$/.exec(s);
+  const x = m ? Number(m[1]) : NaN;
+  if (!m || !(x > 0 && x < Infinity)) throw new UsageError(`--service: expected "<amount> <unit>", e.g. "0.5 h", got "${s}"`);
+  return { unit: m[2], perRepeat: x };
+}
+
+function jobFromFlags(values: Record<string, unknown>, positionals: string[], command: string): CliJob {
+  if (values.job !== undefined) {
+    if (positionals.length > 0) throw new UsageError(`${command}: give a file or --job, not both`);
+    for (const k of Object.keys(values)) {
+      if (k in MODEL && !['job', 'json', 'json-out', 'cycles-out', 'html-out', 'quiet'].includes(k)) {
+        throw new UsageError(`--${k}: the job file sets the model; only outputs may be given with --job`);
+      }
+    }
+    return readJobFile(values.job as string);
+  }
+  if (positionals.length !== 1) throw new UsageError(`${command}: give one measured file (or --job <file>); loopwise help ${command}`);
+  const file = resolve(positionals[0]);
+  const su = num(values, 'su');
+  const hb = num(values, 'hardness');
+  const given = [values.material !== undefined, su !== undefined, hb !== undefined].filter(Boolean).length;
+  if (given !== 1) throw new UsageError('--material, --su or --hardness: give exactly one');
+  const spec: MaterialSpec =
+    values.material !== undefined
+      ? (values.material as string)
+      : su !== undefined
+        ? { estimate: { method: 'uniform-material-law', SuMPa: su } }
+        : { estimate: { method: 'hardness', hardnessHB: hb as number } };
+  const correction = (values.correction as string | undefined) ?? 'smithWatsonTopper';
+  const job: CliJob = {
+    material: resolveMaterial(spec, process.cwd(), '--material'),
+    meanStress: correction as DamageParameterName | 'all',
+    scatterFactor: num(values, 'scatter-factor') ?? 1,
+    repeating: !values['one-off'],
+    channels: channelsOf(values),
+    file,
+    events: null,
+  };
+  const kt = num(values, 'kt');
+  const kf = num(values, 'kf');
+  const rule = values.rule as CliJob['notch'] extends infer N ? (N extends { rule?: infer R } ? R : never) : never;
+  if (kt !== undefined || kf !== undefined || rule !== undefined) {
+    job.notch = {};
+    if (kt !== undefined) job.notch.Kt = kt;
+    if (kf !== undefined) job.notch.Kf = kf;
+    if (rule !== undefined) job.notch.rule = rule;
+  }
+  const opt = (k: keyof CliJob, name: string) => {
+    const v = num(values, name);
+    if (v !== undefined) (job as unknown as Record<string, unknown>)[k] = v;
+  };
+  opt('walkerGamma', 'walker-gamma');
+  opt('gate', 'gate');
+  opt('gateFraction', 'gate-fraction');
+  opt('fullScale', 'full-scale');
+  opt('cutoffCycles', 'cutoff-cycles');
+  opt('criticalDamage', 'critical-damage');
+  const service = serviceOf(values);
+  if (service) job.service = service;
+  const time = timeOf(values);
+  if (time) job.time = time;
+  return job;
+}
+
+function inputsOf(job: CliJob): string[] {
+  const files = job.file ? [job.file] : (job.events ?? []).map((e) => e.file);
+  return files;
+}
+
+function progressOf(io: Io, quiet: boolean) {
+  if (quiet || !io.stderrIsTerminal) return undefined;
+  let last = 0;
+  return (samples: number, pass: 1 | 2) => {
+    const now = Date.now();
+    if (now - last < 200) return;
+    last = now;
+    io.stderr(`\r${pass === 1 ? 'reading' : 'second read'}: ${samples.toLocaleString('en-US')} samples`);
+  };
+}
+
+async function assessCommand(args: string[], io: Io, margin: boolean): Promise<number> {
+  const command = margin ? 'margin' : 'assess';
+  const { values, positionals } = parse(args, MODEL, command);
+  if (values.help) {
+    io.stdout(HELP[command] + '\n');
+    return 0;
+  }
+  const job = jobFromFlags(values, positionals, command);
+  const inputs = inputsOf(job);
+  if (margin) return marginOf(job, values, io);
+  const progress = progressOf(io, Boolean(values.quiet));
+  const results = await runAssessment(job, progress);
+  if (progress) io.stderr('\r\x1b[K');
+  writeOutputs(values, results, inputs, command, null);
+  io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));
+  return 0;
+}
+
+function writeOutputs(values: Record<string, unknown>, results: ChannelResult[], inputs: string[], command: string, title: string | null): void {
+  const outs = ['json-out', 'cycles-out', 'html-out'].map((k) => values[k] as string | undefined).filter((p): p is string => p !== undefined);
+  if (new Set(outs.map((p) => resolve(p))).size !== outs.length) throw new UsageError('--json-out, --cycles-out, --html-out: each output needs its own file');
+  // build everything first, write after: a failure leaves no output
+  const files: [string, string][] = [];
+  if (values['json-out']) files.push([values['json-out'] as string, jsonReport(command, TOOL, results)]);
+  if (values['cycles-out']) files.push([values['cycles-out'] as string, cyclesCsv(results)]);
+  if (values['html-out']) files.push([values['html-out'] as string, renderChannelsHtml(results, title ?? `loopwise ${command}: ${results.map((r) => r.name).join(', ')}`, TOOL)]);
+  for (const [path, content] of files) writeOutputAtomic(path, content, inputs);
+}
+
+async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io): Promise<number> {
+  let target = num(values, 'target-repeats');
+  const targetLife = num(values, 'target-life');
+  if ((target === undefined) === (targetLife === undefined)) throw new UsageError('--target-repeats or --target-life: give exactly one');
+  if (targetLife !== undefined) {
+    const per = job.service?.perRepeat;
+    if (per === undefined) throw new UsageError('--target-life: needs --service "<amount> <unit>" (service per repeat)');
+    target = targetLife / per;
+  }
+  const lines: string[] = [];
+  const rows: unknown[] = [];
+  for (const channel of job.channels) {
+    const events = await eventsOf(job, channel);
+    const m = findLoadMargin(events, lifeJobOf(job, channel, job.meanStress === 'all' ? 'smithWatsonTopper' : job.meanStress), {
+      targetRepeats: target as number,
+    });
+    rows.push({ channel: channel.name ?? String(channel.column), ...m });
+    lines.push(
+      `channel ${channel.name ?? channel.column}: load factor ${formatNumber(m.factor, 6)} gives ${formatNumber(m.repeats)} repeats (target ${formatNumber(target as number)})` +
+        (m.nonMonotone ? '; damage was seen to fall with a growing load somewhere on the scan: check the scan in --json' : '') +
+        (m.belowScan ? '; already reached at the smallest factor scanned (0.05)' : ''),
+    );
+  }
+  io.stdout(values.json ? stableJson({ format: 'loopwise-cli-margin', version: 1, tool: TOOL, targetRepeats: target, channels: rows }) + '\n' : lines.join('\n') + '\n');
+  return 0;
+}
+
+async function eventsOf(job: CliJob, channel: CliChannel): Promise<DutyEvent[]> {
+  const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}) };
+  if (job.events) {
+    const out: DutyEvent[] = [];
+    for (const e of job.events) {
+      const { channels } = await readDelimitedColumns(e.file, opts);
+      const d: DutyEvent = { name: e.name, history: channels[0], repeats: e.repeats };
+      if (e.duration !== undefined) d.duration = e.duration;
+      out.push(d);
+    }
+    return out;
+  }
+  const { channels } = await readDelimitedColumns(job.file as string, opts);
+  return [{ name: 'history', history: channels[0], repeats: 1 }];
+}
+
+async function countCommand(args: string[], io: Io): Promise<number> {
+  const { values, positionals } = parse(
+    args,
+    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' } },
+    'count',
+  );
+  if (values.help) {
+    io.stdout(HELP.count + '\n');
+    return 0;
+  }
+  if (positionals.length !== 1) throw new UsageError('count: give one measured file; loopwise help count');
+  const file = resolve(positionals[0]);
+  const channels = channelsOf(values);
+  if (channels.length !== 1) throw new UsageError('--column: count takes one column');
+  const residue = (values.residue as string | undefined) ?? 'half';
+  if (!['half', 'repeat', 'none'].includes(residue)) throw new UsageError(`--residue: half, repeat or none, got "${residue}"`);
+  const rangeBins = num(values, 'range-bins') ?? 32;
+  const meanBins = num(values, 'mean-bins') ?? 32;
+  for (const [k, v] of [['range-bins', rangeBins], ['mean-bins', meanBins]] as const) {
+    if (!Number.isInteger(v) || v < 1 || v > 4096) throw new UsageError(`--${k}: an integer from 1 to 4096, got ${v}`);
+  }
+  const time = timeOf(values);
+  const opts = { channels, ...(time ? { time } : {}) };
+  // first read: the range, for the bins and a gate fraction (memory does not grow with the file)
+  let lo = Infinity;
+  let hi = -Infinity;
+  const source = await readDelimited(file, {
+    ...opts,
+    onChunk: (c) => {
+      const v = c.channels[0];
+      for (let i = 0; i < v.length; i++) {
+        if (v[i] < lo) lo = v[i];
+        if (v[i] > hi) hi = v[i];
+      }
+    },
+  });
+  const fraction = num(values, 'gate-fraction');
+  const gate = num(values, 'gate') ?? (fraction !== undefined ? fraction * (num(values, 'full-scale') ?? hi - lo) : 0);
+  const span = hi > lo ? hi - lo : 1;
+  const matrix = new RangeMeanMatrix({ range: { count: rangeBins, min: 0, max: span }, mean: { count: meanBins, min: lo, max: hi > lo ? hi : lo + 1 } });
+  const table = values['cycles-out'] ? new CycleTable() : null;
+  const both = table ? { addCycle: (a: number, b: number, c: number, d: number, e: number, f: number) => { matrix.addCycle(a, b, c, d, e, f); table.addCycle(a, b, c, d, e, f); } } : matrix;
+  const counter = new RainflowCounter({ residue: residue as 'half', gate, sink: both });
+  await readDelimited(file, { ...opts, checks: false, onChunk: (c) => counter.push(c.channels[0]) });
+  const result = counter.finish();
+  // exceedance spectrum from the matrix rows: cycles with a range in this bin or above
+  const spectrum: { rangeFrom: number; exceedances: number }[] = [];
+  let acc = 0;
+  for (let i = matrix.rows - 1; i >= 0; i--) {
+    for (let j = 0; j < matrix.columns; j++) acc += matrix.at(i, j);
+    spectrum.unshift({ rangeFrom: matrix.rowEdges[i], exceedances: acc });
+  }
+  const inputs = [file];
+  const summary = {
+    format: 'loopwise-cli-count',
+    version: 1,
+    tool: TOOL,
+    file: source.file,
+    channel: source.channels[0].name,
+    unit: source.channels[0].conversion.engineUnit,
+    conversion: source.channels[0].conversion.statement,
+    samples: result.sampleCount,
+    turningPoints: result.turningPointCount,
+    gate,
+    removedReversals: result.removedReversals,
+    residue,
+    cycles: matrix.totalCount(),
+    largestRange: hi - lo,
+    spectrum,
+    warnings: source.warnings.map((w) => w.message),
+  };
+  const outs: [string, string][] = [];
+  if (values['matrix-out']) outs.push([values['matrix-out'] as string, JSON.stringify(matrix.toJSON()) + '\n']);
+  if (table) {
+    const c = table.columns();
+    const lines = ['range,mean,from,to,count,start_sample,end_sample,close_sample'];
+    for (let i = 0; i < c.range.length; i++) lines.push([c.range[i], c.mean[i], c.from[i], c.to[i], c.count[i], c.startIndex[i], c.endIndex[i], c.closeIndex[i]].join(','));
+    outs.push([values['cycles-out'] as string, lines.join('\n') + '\n']);
+  }
+  for (const [p, content] of outs) writeOutputAtomic(p, content, inputs);
+  if (values.json) io.stdout(stableJson(summary) + '\n');
+  else {
+    const u = summary.unit;
+    const lines = [
+      `${summary.channel} in ${summary.file}: ${summary.samples} samples, ${summary.turningPoints} turning points`,
+      `gate ${formatNumber(gate)} ${u} removed ${summary.removedReversals} reversals; residue counted as ${residue}`,
+      `cycles ${formatNumber(summary.cycles)}; largest range ${formatNumber(summary.largestRange)} ${u}`,
+      'range exceedance (cycles with a range at or above):',
+      ...spectrum.filter((_, k) => k % Math.max(1, Math.floor(spectrum.length / 8)) === 0).map((s) => `  ${formatNumber(s.rangeFrom).padStart(10)} ${u}  ${formatNumber(s.exceedances)}`),
+      ...summary.warnings.map((w) => `warning (signal): ${w}`),
+    ];
+    io.stdout(lines.join('\n') + '\n');
+  }
+  return 0;
+}
+
+function materialCommand(args: string[], io: Io): number {
+  const { values } = parse(
+    args,
+    {
+      list: { type: 'boolean' },
+      su: { type: 'string' },
+      method: { type: 'string' },
+      metal: { type: 'string' },
+      'reduction-of-area': { type: 'string' },
+      hardness: { type: 'string' },
+      e: { type: 'string' },
+      out: { type: 'string' },
+    },
+    'material',
+  );
+  if (values.help) {
+    io.stdout(HELP.material + '\n');
+    return 0;
+  }
+  if (values.list) {
+    io.stdout(
+      stableJson({ note: 'handbook reference values, not certified design data', materials: handbookSteels.map((m) => ({ ...m, warnings: m.warnings })) }) + '\n',
+    );
+    return 0;
+  }
+  const su = num(values, 'su');
+  const hb = num(values, 'hardness');
+  if ((su === undefined) === (hb === undefined)) throw new UsageError('--su or --hardness: give exactly one (or --list)');
+  const E = num(values, 'e');
+  const method = (values.method as string | undefined) ?? 'uniform-material-law';
+  const spec: MaterialSpec =
+    hb !== undefined
+      ? { estimate: { method: 'hardness', hardnessHB: hb, ...(E ? { EMPa: E } : {}) } }
+      : method === 'modified-universal-slopes'
+        ? { estimate: { method, SuMPa: su as number, reductionOfArea: num(values, 'reduction-of-area') ?? NaN, ...(E ? { EMPa: E } : {}) } }
+        : method === 'uniform-material-law'
+          ? { estimate: { method, SuMPa: su as number, metal: ((values.metal as string) ?? 'steel') as 'steel', ...(E ? { EMPa: E } : {}) } }
+          : (() => {
+              throw new UsageError(`--method: uniform-material-law or modified-universal-slopes, got "${method}"`);
+            })();
+  const m = resolveMaterial(spec, process.cwd(), '--su');
+  const text = stableJson({ ...m, warnings: m.warnings }) + '\n';
+  if (values.out) writeOutputAtomic(values.out as string, text, []);
+  io.stdout(text);
+  return 0;
+}
+
+/** Folder of the bundled demo data (next to the built files, or in the source tree). */
+function demoFolder(): string {
+  const here = dirname(fileURLToPath(import.meta.url));
+  for (const candidate of [join(here, '..', 'demo'), join(here, '..', '..', 'demo')]) if (existsSync(join(candidate, 'demo-job.json'))) return candidate;
+  throw new UsageError('demo: the bundled demo data is missing from this installation');
+}
+
+async function demoCommand(args: string[], io: Io): Promise<number> {
+  const { values } = parse(args, { 'html-out': { type: 'string' }, json: { type: 'boolean' } }, 'demo');
+  if (values.help) {
+    io.stdout(HELP.demo + '\n');
+    return 0;
+  }
+  const job = readJobFile(join(demoFolder(), 'demo-job.json'));
+  const results = await runAssessment(job);
+  const title = 'Demo (INVENTED data): utility-trailer axle, shoulder fillet, rough farm track';
+  writeOutputs(values, results, inputsOf(job), 'demo', title);
+  io.stdout(values.json ? jsonReport('demo', TOOL, results) : summaryText(results, `${title}\nThis demo uses invented data, not a measurement.`));
+  return 0;
+}

@@ -1,0 +1,166 @@
+import type { LifeReport } from '@loopwise/engine';
+import { CAUTION } from '@loopwise/engine';
+import type { ChannelResult } from './runAssessment';
+import { formatNumber } from './formatNumber';
+
+/** Version of the JSON report format written by `--json` (documented in the CLI README). */
+export const JSON_REPORT_VERSION = 1;
+
+/** One row of the results table: a channel under one correction. */
+export interface ResultRow {
+  channel: string;
+  correction: string;
+  damagePerRepeat: number;
+  repeats: number;
+  designRepeats: number;
+  unit: string | null;
+  life: number | null;
+  designLife: number | null;
+}
+
+/** The results table of all channels (and all corrections when compared). */
+export function resultRows(results: ChannelResult[]): ResultRow[] {
+  const rows: ResultRow[] = [];
+  for (const r of results) {
+    const list = r.corrections ?? [{ correction: r.report.damage.correction, damagePerRepeat: r.report.damage.perRepeat, life: r.report.life }];
+    for (const c of list) {
+      rows.push({
+        channel: r.name,
+        correction: c.correction,
+        damagePerRepeat: c.damagePerRepeat,
+        repeats: c.life.repeats,
+        designRepeats: c.life.designRepeats,
+        unit: c.life.unit ?? null,
+        life: c.life.life ?? null,
+        designLife: c.life.designLife ?? null,
+      });
+    }
+  }
+  return rows;
+}
+
+/** JSON with typed arrays as arrays and non-finite numbers as strings (JSON has no Infinity). */
+export function stableJson(value: unknown): string {
+  return JSON.stringify(
+    value,
+    (_key, v) => {
+      if (ArrayBuffer.isView(v) && !(v instanceof DataView)) return Array.from(v as unknown as ArrayLike<number>, finiteOrText);
+      if (typeof v === 'number') return finiteOrText(v);
+      return v;
+    },
+    2,
+  );
+}
+
+function finiteOrText(x: number): number | string {
+  if (Number.isFinite(x)) return Object.is(x, -0) ? 0 : x;
+  return x !== x ? 'NaN' : x > 0 ? 'Infinity' : '-Infinity';
+}
+
+/** The `--json` document: versioned, deterministic (no dates), byte-identical for the same input. */
+export function jsonReport(command: string, tool: string, results: ChannelResult[]): string {
+  return (
+    stableJson({
+      format: 'loopwise-cli-report',
+      version: JSON_REPORT_VERSION,
+      tool,
+      command,
+      results: resultRows(results),
+      channels: results.map((r) => ({
+        name: r.name,
+        unit: r.unit,
+        sources: r.sources.map((s) => ({
+          file: s.file,
+          samples: s.samples,
+          reader: s.reader,
+          delimiter: s.dialect.delimiter,
+          header: s.dialect.header,
+          channels: s.channels.map((c) => ({ name: c.name, column: c.column, conversion: c.conversion.statement })),
+          warnings: s.warnings.map((w) => w.message),
+        })),
+        corrections: r.corrections,
+        report: r.report,
+      })),
+      caution: CAUTION,
+    }) + '\n'
+  );
+}
+
+/** The cycles CSV: one row per counted loop of every channel, with its local values and damage. */
+export function cyclesCsv(results: ChannelResult[]): string {
+  const head = [
+    'channel', 'start_sample', 'turn_sample', 'close_sample', 'start_event', 'turn_event', 'count', 'stress_max', 'stress_min',
+    'strain_max', 'strain_min', 'damage_parameter', 'cycles_to_failure', 'damage_per_repeat',
+  ];
+  const lines = [head.join(',')];
+  for (const r of results) {
+    const l = r.report.loops;
+    const events = (r.report.inputs.events as { name: string }[]).map((e) => e.name);
+    const name = csvText(r.name);
+    for (let i = 0; i < l.count.length; i++) {
+      lines.push(
+        [
+          name,
+          l.startIndex[i],
+          l.turnIndex[i],
+          l.closeIndex[i],
+          csvText(l.startEvent[i] >= 0 ? events[l.startEvent[i]] : ''),
+          csvText(l.turnEvent[i] >= 0 ? events[l.turnEvent[i]] : ''),
+          l.count[i],
+          l.stressMax[i],
+          l.stressMin[i],
+          l.strainMax[i],
+          l.strainMin[i],
+          l.parameter[i],
+          l.cyclesToFailure[i] === Infinity ? 'inf' : l.cyclesToFailure[i],
+          l.damage[i],
+        ].join(','),
+      );
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+function csvText(s: string): string {
+  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** The human summary on stdout. */
+export function summaryText(results: ChannelResult[], title: string | null): string {
+  const out: string[] = [];
+  if (title) out.push(title, '');
+  for (const r of results) {
+    const rep: LifeReport = r.report;
+    const life = rep.life;
+    out.push(`channel ${r.name} (${r.unit}), correction ${rep.damage.correction}`);
+    out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
+    out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.life as number)} ${life.unit}` : ''}`);
+    if (life.scatterFactor > 1) {
+      out.push(`  ${`design life (÷${life.scatterFactor})`.padEnd(22)} ${formatNumber(life.designRepeats)} repeats${life.unit ? ` = ${formatNumber(life.designLife as number)} ${life.unit}` : ''}`);
+    }
+    const events = [...rep.events].sort((a, b) => b.damage - a.damage).slice(0, 5);
+    if (rep.events.length > 1) {
+      out.push('  worst events');
+      for (const e of events) out.push(`    ${e.name.padEnd(20)} ${formatNumber(100 * e.share, 3).padStart(6)} % of the damage (${e.repeats} repeats)`);
+    }
+    const worst = rep.worstLoops.slice(0, 3);
+    if (worst.length > 0) {
+      out.push('  worst loops');
+      for (const w of worst) {
+        const seam = w.startIndex > w.turnIndex ? ' (across the seam into the next repeat)' : '';
+        out.push(
+          `    samples ${w.startIndex}–${w.turnIndex}${seam}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+        );
+      }
+    }
+    for (const s of r.sources) for (const w of s.warnings) out.push(`  warning (signal): ${w.message}`);
+    for (const w of rep.warnings) out.push(`  warning: ${w.message}`);
+    if (r.corrections) {
+      out.push('  all corrections');
+      for (const c of r.corrections) out.push(`    ${c.correction.padEnd(18)} ${formatNumber(c.life.repeats)} repeats`);
+    }
+    out.push('');
+  }
+  out.push(`Caution: ${CAUTION}`);
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,92 @@
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import {
+  defineMaterial,
+  estimateModifiedUniversalSlopes,
+  estimateRoessleFatemi,
+  estimateUniformMaterialLaw,
+  handbookSteels,
+  type Material,
+  type MaterialInput,
+} from '@loopwise/material';
+import { UsageError } from './CliError';
+
+/** How a job names its material: a handbook row, a JSON file, inline constants, or an estimate. */
+export type MaterialSpec =
+  | string
+  | { handbook: string }
+  | { file: string }
+  | { estimate: EstimateSpec }
+  | MaterialInput;
+
+/** A published estimate from tensile strength or hardness (all values in MPa). */
+export type EstimateSpec =
+  | { method: 'uniform-material-law'; SuMPa: number; EMPa?: number; metal?: 'steel' | 'aluminium-titanium' }
+  | { method: 'hardness'; hardnessHB: number; EMPa?: number }
+  | { method: 'modified-universal-slopes'; SuMPa: number; EMPa?: number; reductionOfArea: number };
+
+/** Young's modulus assumed for steel estimates when none is given, MPa (common practice, no source). */
+export const DEFAULT_STEEL_E_MPA = 207000;
+
+/**
+ * Resolves a material spec. A string is a handbook row name (exact, or a unique case-insensitive
+ * prefix such as "SAE 1045") or, when it ends in .json, a file of material constants. Relative
+ * files are read from `baseDir`.
+ */
+export function resolveMaterial(spec: MaterialSpec | undefined, baseDir: string, field = 'material'): Material {
+  if (spec === undefined || spec === null) throw new UsageError(`${field}: a material is required (a handbook name, a .json file, or constants)`);
+  if (typeof spec === 'string') return spec.toLowerCase().endsWith('.json') ? fromFile(spec, baseDir, field) : handbook(spec, field);
+  if (typeof spec !== 'object') throw new UsageError(`${field}: must be a name, a file or an object, got ${JSON.stringify(spec)}`);
+  if ('handbook' in spec) return handbook(spec.handbook, `${field}.handbook`);
+  if ('file' in spec) return fromFile(spec.file, baseDir, `${field}.file`);
+  if ('estimate' in spec) return estimate(spec.estimate, `${field}.estimate`);
+  return defineMaterial(spec);
+}
+
+/** The names of the handbook rows. */
+export function handbookNames(): string[] {
+  return handbookSteels.map((m) => m.name ?? '');
+}
+
+function handbook(name: string, field: string): Material {
+  const exact = handbookSteels.find((m) => m.name === name);
+  if (exact) return exact;
+  const matches = handbookSteels.filter((m) => (m.name ?? '').toLowerCase().startsWith(name.toLowerCase()));
+  if (matches.length === 1) return matches[0];
+  throw new UsageError(
+    `${field}: ${matches.length === 0 ? 'no' : 'more than one'} handbook material matches "${name}"; the table has: ${handbookNames().join('; ')}`,
+  );
+}
+
+function fromFile(path: string, baseDir: string, field: string): Material {
+  const full = resolve(baseDir, path);
+  let text: string;
+  try {
+    text = readFileSync(full, 'utf8');
+  } catch {
+    throw new UsageError(`${field}: cannot read material file ${path}`);
+  }
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (error) {
+    throw new UsageError(`${path}: invalid material JSON: ${(error as Error).message}`);
+  }
+  if (json === null || typeof json !== 'object' || Array.isArray(json)) throw new UsageError(`${path}: a material file holds one JSON object of constants`);
+  return defineMaterial(json as MaterialInput);
+}
+
+function estimate(spec: EstimateSpec, field: string): Material {
+  if (spec === null || typeof spec !== 'object') throw new UsageError(`${field}: must be { method, ... }`);
+  const E = spec.EMPa ?? DEFAULT_STEEL_E_MPA;
+  switch (spec.method) {
+    case 'uniform-material-law':
+      return estimateUniformMaterialLaw({ SuMPa: spec.SuMPa, EMPa: E, metal: spec.metal ?? 'steel' });
+    case 'hardness':
+      return estimateRoessleFatemi({ hardnessHB: spec.hardnessHB, EMPa: E });
+    case 'modified-universal-slopes':
+      return estimateModifiedUniversalSlopes({ SuMPa: spec.SuMPa, EMPa: E, reductionOfArea: spec.reductionOfArea });
+    default:
+      throw new UsageError(`${field}.method: must be 'uniform-material-law', 'hardness' or 'modified-universal-slopes', got ${JSON.stringify((spec as { method: unknown }).method)}`);
+  }
+}
