@@ -45,6 +45,15 @@ export function historyPlot(channel: HtmlChannel, id: string): string {
   for (let i = 0; i < n; i++) d += `${i === 0 ? 'M' : 'L'}${svgNumber(x(h.index[i]))} ${svgNumber(y(h.value[i]))}`;
   parts.push(`<path class="history-line" d="${d}" data-points="${n}"/>`);
   const markers: string[] = [];
+  // Rank labels sit above maxima and below minima; a label that would overlap one already
+  // placed on the same side moves further out, one line at a time.
+  const placed: Array<{ x: number; y: number }> = [];
+  const labelY = (px: number, py: number, up: boolean) => {
+    let ly = up ? py - 8 : py + 17;
+    for (let tries = 0; tries < 12 && placed.some((p) => Math.abs(p.x - px) < 16 && Math.abs(p.y - ly) < 13); tries++) ly += up ? -13 : 13;
+    placed.push({ x: px, y: ly });
+    return ly;
+  };
   channel.report.worstLoops.forEach((loop, k) => {
     const rank = k + 1;
     const at = (index: number) => (index < first || index > last ? -1 : nearest(h.index, index));
@@ -55,12 +64,14 @@ export function historyPlot(channel: HtmlChannel, id: string): string {
     const mark = (role: 'start' | 'turn', index: number, p: number, v: number, other: number) => {
       if (p < 0) return;
       const up = !(v < other);
-      const px = svgNumber(x(h.index[p]));
+      const cx = x(h.index[p]);
+      const px = svgNumber(cx);
       const py = y(v);
+      const ly = labelY(cx, py, up);
       markers.push(
         `<g class="loop-marker marker-${role}" data-rank="${rank}" data-role="${role}" data-index="${dataNumber(index)}" data-value="${dataNumber(v)}">` +
           `<circle cx="${px}" cy="${svgNumber(py)}" r="4.5"/>` +
-          `<text x="${px}" y="${svgNumber(up ? py - 8 : py + 17)}" text-anchor="middle">${rank}</text></g>`,
+          `<text x="${px}" y="${svgNumber(ly)}" text-anchor="middle">${rank}</text></g>`,
       );
     };
     mark('start', loop.startIndex, s, vs, vt);

@@ -78,6 +78,13 @@ export function loopsPlot(channel: HtmlChannel, id: string, stressUnit: string):
   // Worst loop drawn last, on top.
   parts.push(`<g class="loops" fill="none">${paths.reverse().join('')}</g>`);
   parts.push(`<g class="legend"><text class="legend-title" x="${lx}" y="${f.top}">rank: stress range, share</text>${legend.join('')}</g>`);
+  // Nearly elastic loops are narrow by nature; say so rather than leave the reader guessing.
+  const plasticWidth = loops.map((l) => Math.abs(l.strainMax - l.strainMin - (l.stressMax - l.stressMin) / material.E) / Math.max(1e-300, Math.abs(l.strainMax - l.strainMin)));
+  const widest = Math.max(...plasticWidth);
+  if (widest < 0.1) {
+    parts.push(`<text class="plot-note" x="${lx}" y="${f.height - f.bottom - 30}">Nearly elastic: plastic strain range</text>`);
+    parts.push(`<text class="plot-note" x="${lx}" y="${f.height - f.bottom - 14}">at most ${escapeHtml(formatPercent(widest))} of the strain range.</text>`);
+  }
   parts.push(`<text class="plot-note" x="${lx}" y="${f.height - f.bottom + 18}">Corners from the assessment;</text>`);
   parts.push(`<text class="plot-note" x="${lx}" y="${f.height - f.bottom + 34}">branches drawn from the material model.</text>`);
   return svgPlot('loops', id, title, f, parts.join(''), ` data-loops="${loops.length}"`);

@@ -12,7 +12,8 @@ import { dataNumber, svgNumber } from './svgNumber.js';
 /**
  * The rainflow range-mean matrix as a heat map: one `<rect class="cell">` per non-zero count
  * with `data-row`, `data-column`, `data-count` and its bin edges; colour on a logarithmic
- * viridis scale between the smallest and the largest count, with a legend.
+ * viridis scale between the smallest and the largest count, with a legend. The axes span the
+ * occupied bins and one empty bin around them (rows from the first bin).
  */
 export function matrixPlot(channel: HtmlChannel, id: string): string {
   const f = plotFrame(440, 84, 190);
@@ -36,14 +37,31 @@ export function matrixPlot(channel: HtmlChannel, id: string): string {
       if (c > cmax) cmax = c;
     }
   }
+  // Draw the occupied block of bins with one empty bin around it (rows from the first bin, so
+  // the smallest ranges stay in view): wide bin layouts would otherwise leave the cells tiny.
+  let r0 = rows;
+  let r1 = -1;
+  let c0 = columns;
+  let c1 = -1;
+  for (let r = 0; r < rows; r++) {
+    for (let c = 0; c < columns; c++) {
+      if (m.counts[r * columns + c] > 0) (r0 = Math.min(r0, r)), (r1 = Math.max(r1, r)), (c0 = Math.min(c0, c)), (c1 = Math.max(c1, c));
+    }
+  }
+  if (r1 < 0) (r0 = 0), (r1 = rows - 1), (c0 = 0), (c1 = columns - 1);
+  r0 = 0;
+  r1 = Math.min(rows - 1, r1 + 1);
+  c0 = Math.max(0, c0 - 1);
+  c1 = Math.min(columns - 1, c1 + 1);
   const [xr0, xr1] = innerX(f);
   const [yr0, yr1] = innerY(f);
-  const cx0 = m.columnEdges[0];
-  const cx1 = m.columnEdges[columns];
-  const ry0 = m.rowEdges[0];
-  const ry1 = m.rowEdges[rows];
+  const cx0 = m.columnEdges[c0];
+  const cx1 = m.columnEdges[c1 + 1];
+  const ry0 = m.rowEdges[r0];
+  const ry1 = m.rowEdges[r1 + 1];
   const x = linearScale(cx0, cx1, xr0, xr1);
-  const y = linearScale(ry0, ry1, yr0, yr1);
+  // A little headroom, so the largest-range cells do not sit on the frame.
+  const y = linearScale(ry0, ry1 + (ry1 - ry0) * 0.03, yr0, yr1);
   const parts: string[] = [];
   const logMin = Math.log10(cells > 0 ? cmin : 1);
   const logMax = Math.log10(cells > 0 ? cmax : 1);
@@ -68,7 +86,7 @@ export function matrixPlot(channel: HtmlChannel, id: string): string {
   parts.push(svgAxes(f, { scale: x, ticks: niceTicks(cx0, cx1, 10), label: m.columnLabel, grid: false }, { scale: y, ticks: niceTicks(ry0, ry1, 6), label: m.rowLabel, grid: false }));
   if (cells === 0) parts.push(svgEmptyNote(f, 'No cycles in the matrix.'));
   else parts.push(legend(f, id, cmin, cmax, logMin, logMax));
-  return svgPlot('matrix', id, title, f, parts.join(''), ` data-cells="${cells}" data-total="${dataNumber(total)}"`);
+  return svgPlot('matrix', id, title, f, parts.join(''), ` data-cells="${cells}" data-total="${dataNumber(total)}" data-rows="${rows}" data-columns="${columns}"`);
 }
 
 function legend(f: ReturnType<typeof plotFrame>, id: string, cmin: number, cmax: number, logMin: number, logMax: number): string {

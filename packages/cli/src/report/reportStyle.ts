@@ -24,6 +24,7 @@ dl div { display: flex; gap: 8px; border-bottom: 1px dotted #ccc; padding: 2px 0
 dt { color: #444; min-width: 11em; }
 dd { margin: 0; font-variant-numeric: tabular-nums; }
 dl.inputs { grid-template-columns: 1fr; }
+dl.inputs div { display: grid; grid-template-columns: 20em 1fr; }
 ul.warnings li { margin: 4px 0; }
 code { font-size: 13px; background: #f3f3f3; padding: 0 3px; }
 figure { margin: 12px 0 20px; }
