@@ -35,7 +35,7 @@ export function niceTicks(min: number, max: number, target = 6): Ticks {
   const values: number[] = [];
   const labels: string[] = [];
   for (let k = first; k <= last; k++) {
-    const v = k * step;
+    const v = k * step + 0; // + 0 turns -0 into 0
     values.push(v);
     // k * mult * 10^(power - exponent) is the label; round away binary noise.
     const label = Number(((k * step) / scale).toPrecision(12));
