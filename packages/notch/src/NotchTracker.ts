@@ -100,6 +100,7 @@ export class NotchTracker {
   private readonly scale: number = 0;
   private readonly offset: number = 0;
   private readonly strainLimit: number = 0;
+  private readonly recordReversals: boolean = true;
   private revs = new ReversalTable();
   private loopTable = new LoopTable();
   private next = 0;
@@ -126,6 +127,7 @@ export class NotchTracker {
     this.scale = o.scale;
     this.offset = o.offset;
     this.strainLimit = o.strainLimit;
+    this.recordReversals = o.recordReversals;
     this.ext = o.initial;
   }
 
@@ -300,7 +302,7 @@ export class NotchTracker {
     this.computeAtExtreme(true);
     const stress = this.outStress;
     const strain = this.outStrain;
-    this.revs.add(index, v, stress, strain);
+    if (this.recordReversals) this.revs.add(index, v, stress, strain);
     if (this.k === this.sv.length) this.growMemory();
     const k = this.k++;
     this.sv[k] = v;
@@ -482,6 +484,7 @@ export class NotchTracker {
       initial: encodeNumber(o.initial),
       offset: encodeNumber(o.offset),
       strainLimit: encodeNumber(o.strainLimit),
+      recordReversals: o.recordReversals,
       tolerance: o.tolerance,
       maxIterations: o.maxIterations,
     };
@@ -529,6 +532,7 @@ export class NotchTracker {
       initial: num('options.initial', o.initial),
       offset: num('options.offset', o.offset),
       strainLimit: num('options.strainLimit', o.strainLimit),
+      ...(o.recordReversals === false ? { recordReversals: false } : {}),
       tolerance: o.tolerance as number,
       maxIterations: o.maxIterations as number,
     });

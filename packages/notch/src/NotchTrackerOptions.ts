@@ -43,6 +43,11 @@ export interface NotchTrackerOptions {
    * strain-life curve at one reversal.
    */
   strainLimit?: number;
+  /**
+   * Whether to keep every reversal in the `reversals` table; default true. A caller that needs
+   * only the closed loops (the life pipeline) saves the table's memory and writes with false.
+   */
+  recordReversals?: boolean;
   /** Relative tolerance of every branch solve; default 1e-12 (at most 1e-10 is allowed). */
   tolerance?: number;
   /** Iteration cap of every branch solve; default 60. Reaching it throws `ConvergenceError`. */
@@ -60,6 +65,7 @@ export interface ResolvedTrackerOptions {
   initial: number;
   offset: number;
   strainLimit: number;
+  recordReversals: boolean;
   tolerance: number;
   maxIterations: number;
   /** Factor from a history difference to a pseudo-elastic (or strain) difference. */
@@ -104,6 +110,8 @@ export function resolveTrackerOptions(options: NotchTrackerOptions): ResolvedTra
   const offset = finite('offset', options.offset ?? 0);
   const strainLimit = options.strainLimit ?? material.sigmaF / material.E + material.epsilonF;
   if (!(typeof strainLimit === 'number' && strainLimit > 0)) throw new NotchOptionError('strainLimit', strainLimit, 'must be a number > 0');
+  const recordReversals = options.recordReversals ?? true;
+  if (typeof recordReversals !== 'boolean') throw new NotchOptionError('recordReversals', recordReversals, 'must be true or false');
   const tolerance = options.tolerance ?? 1e-12;
   if (!(typeof tolerance === 'number' && tolerance >= 1e-15 && tolerance <= 1e-10)) {
     throw new NotchOptionError('tolerance', tolerance, 'must be a number in [1e-15, 1e-10]');
@@ -112,7 +120,7 @@ export function resolveTrackerOptions(options: NotchTrackerOptions): ResolvedTra
   if (!Number.isInteger(maxIterations) || maxIterations < 1) throw new NotchOptionError('maxIterations', maxIterations, 'must be an integer >= 1');
   const factor = input === 'nominal' ? (Kf ?? Kt!) * loadToStress : 1;
   const kind: BranchKind = input === 'local-strain' ? 'local-strain' : rule;
-  return { material, input, rule, Kt, Kf, loadToStress, initial, offset, strainLimit, tolerance, maxIterations, scale: factor, kind };
+  return { material, input, rule, Kt, Kf, loadToStress, initial, offset, strainLimit, recordReversals, tolerance, maxIterations, scale: factor, kind };
 }
 
 /** The plain fields of a material, for JSON state (internal). */

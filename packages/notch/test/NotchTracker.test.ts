@@ -86,3 +86,16 @@ describe('NotchTracker.pushIndexed(values, indices, from, to)', () => {
     expect(() => new NotchTracker(opts).pushIndexed([Infinity], [5], 0, 1)).toThrow(/history\[5\]/);
   });
 });
+
+describe('NotchTracker({ recordReversals: false })', () => {
+  it('keeps no reversal table and closes exactly the same loops', () => {
+    const material = sae1045;
+    const history = [0, 300, -240, 360, -100, 280, -320, 150, 0];
+    const a = new NotchTracker({ material, Kt: 2 }).push(history).end();
+    const b = new NotchTracker({ material, Kt: 2, recordReversals: false }).push(history).end();
+    expect(b.reversals.length).toBe(0);
+    expect(a.reversals.length).toBeGreaterThan(0);
+    expect(b.loops.toRows()).toEqual(a.loops.toRows());
+    expect(() => new NotchTracker({ material, Kt: 2, recordReversals: 'no' as never })).toThrow(/recordReversals/);
+  });
+});
