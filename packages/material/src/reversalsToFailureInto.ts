@@ -3,6 +3,7 @@ import { assertMaterial } from './assertMaterial';
 import type { Material } from './Material';
 import type { ReversalsOptions } from './reversalsToFailure';
 import { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals } from './solveTwoTermReversals';
+import { REVERSALS_TABLE_MIN_COUNT, TwoTermReversalsTable } from './TwoTermReversalsTable';
 
 /**
  * Bit values of the optional flags column of the typed-array kernels: `below-cutoff` = 1,
@@ -20,7 +21,13 @@ export const STRAIN_LIFE_FLAG_BITS = Object.freeze({
  * ordinary root).
  *
  * Method and special cases as in {@link reversalsToFailure}; the result is reversals (2Nf), not
- * cycles.
+ * cycles. From {@link REVERSALS_TABLE_MIN_COUNT} (256) amplitudes on, every amplitude is checked
+ * first (a bad one throws before anything is written), then one {@link TwoTermReversalsTable}
+ * over the range of amplitudes present gives each Newton iteration its start (usually one step
+ * then passes the same stopping rule); results agree with {@link reversalsToFailure} to the
+ * solver's tolerance (1e-12 in ln 2Nf; 1 and Infinity exactly). Fewer amplitudes are solved one
+ * by one exactly as {@link reversalsToFailure} does. The iteration cap counts iterations from
+ * the start used.
  *
  * @throws {ArgumentError} when `out` (or `flags`) is shorter than `strainAmplitudes`, or an
  *   amplitude is NaN, ±Infinity or negative (naming its index).
@@ -47,12 +54,34 @@ export function reversalsToFailureInto(
   const lnB = Math.log(material.epsilonF);
   const b = material.b;
   const c = material.c;
+  if (count < REVERSALS_TABLE_MIN_COUNT) {
+    for (let i = 0; i < count; i++) {
+      const ea = strainAmplitudes[i];
+      if (!(ea >= 0 && ea < Infinity)) {
+        throw new ArgumentError('strainAmplitudes', ea, 'must be a finite number >= 0', i);
+      }
+      const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log(ea), cutoff, maxIterations);
+      out[i] = r;
+      if (flags !== undefined) flags[i] = r === Infinity ? 1 : r === 1 ? 2 : 0;
+    }
+    return out;
+  }
+  // Many amplitudes: check them all and find their range, then solve from a table start.
+  let yMin = Infinity;
+  let yMax = 0;
   for (let i = 0; i < count; i++) {
     const ea = strainAmplitudes[i];
     if (!(ea >= 0 && ea < Infinity)) {
       throw new ArgumentError('strainAmplitudes', ea, 'must be a finite number >= 0', i);
     }
-    const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log(ea), cutoff, maxIterations);
+    if (ea > 0 && ea < yMin) yMin = ea;
+    if (ea > yMax) yMax = ea;
+  }
+  const table = new TwoTermReversalsTable(lnA, b, lnB, c, {
+    cutoffReversals: cutoff, maxIterations, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
+  });
+  for (let i = 0; i < count; i++) {
+    const r = table.solve(Math.log(strainAmplitudes[i]));
     out[i] = r;
     if (flags !== undefined) flags[i] = r === Infinity ? 1 : r === 1 ? 2 : 0;
   }
