@@ -2,7 +2,9 @@ import {
   assertMaterial,
   DEFAULT_CUTOFF_REVERSALS,
   DEFAULT_MAX_ITERATIONS,
+  REVERSALS_TABLE_MIN_COUNT,
   solveTwoTermReversals,
+  TwoTermReversalsTable,
   type Material,
   type ReversalsOptions,
 } from '@loopwise/material';
@@ -76,13 +78,56 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
     const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
     const lnEpsilonF = Math.log(material.epsilonF);
     const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    if (count < REVERSALS_TABLE_MIN_COUNT) {
+      for (let i = 0; i < count; i++) {
+        const sMax = sigmaMax[i];
+        const sMin = sigmaMin[i];
+        const eMax = epsilonMax[i];
+        const eMin = epsilonMin[i];
+        checkLoop(sMax, sMin, eMax, eMin, i);
+        const r = modifiedMorrowReversals(material, lnEpsilonF, sMax, sMin, (eMax - eMin) / 2, cutoff, maxIt);
+        out[i] = r;
+        if (flags !== undefined) flags[i] = flagBits(material, sMax, sMin, r);
+      }
+      return out;
+    }
+    // Many loops: with w = x·r^(1/b), r = (σf' − σm)/σf', the equation is the fully reversed
+    // curve in w, so one table of it serves every mean stress (solve with shift ln(r)/b).
+    // Check every loop and find the ranges of εa and σm, then solve from a table start.
+    const { sigmaF, E, b, c } = material;
+    let yMin = Infinity;
+    let yMax = 0;
+    let mLo = Infinity;
+    let mHi = -Infinity;
     for (let i = 0; i < count; i++) {
       const sMax = sigmaMax[i];
       const sMin = sigmaMin[i];
       const eMax = epsilonMax[i];
       const eMin = epsilonMin[i];
       checkLoop(sMax, sMin, eMax, eMin, i);
-      const r = modifiedMorrowReversals(material, lnEpsilonF, sMax, sMin, (eMax - eMin) / 2, cutoff, maxIt);
+      const sm = (sMax + sMin) / 2;
+      if (sigmaF - sm > 0) {
+        const y = (eMax - eMin) / 2;
+        if (y > 0 && y < yMin) yMin = y;
+        if (y > yMax) yMax = y;
+        if (sm < mLo) mLo = sm;
+        if (sm > mHi) mHi = sm;
+      }
+    }
+    const ranged = mLo <= mHi;
+    const table = new TwoTermReversalsTable(Math.log(sigmaF / E), b, lnEpsilonF, c, {
+      cutoffReversals: cutoff,
+      maxIterations: maxIt,
+      lnTargetMin: Math.log(yMin),
+      lnTargetMax: Math.log(yMax),
+      minShift: ranged ? Math.log((sigmaF - mLo) / sigmaF) / b : 0,
+      maxShift: ranged ? Math.log((sigmaF - mHi) / sigmaF) / b : 0,
+    });
+    for (let i = 0; i < count; i++) {
+      const sMax = sigmaMax[i];
+      const sMin = sigmaMin[i];
+      const elastic = sigmaF - (sMax + sMin) / 2;
+      const r = elastic > 0 ? table.solve(Math.log((epsilonMax[i] - epsilonMin[i]) / 2), Math.log(elastic / sigmaF) / b) : 1;
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(material, sMax, sMin, r);
     }

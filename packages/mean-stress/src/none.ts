@@ -2,7 +2,9 @@ import {
   assertMaterial,
   DEFAULT_CUTOFF_REVERSALS,
   DEFAULT_MAX_ITERATIONS,
+  REVERSALS_TABLE_MIN_COUNT,
   solveTwoTermReversals,
+  TwoTermReversalsTable,
   type Material,
   type ReversalsOptions,
 } from '@loopwise/material';
@@ -59,11 +61,33 @@ export const none: DamageParameter<'none'> = Object.freeze({
     const b = material.b;
     const c = material.c;
     const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    if (count < REVERSALS_TABLE_MIN_COUNT) {
+      for (let i = 0; i < count; i++) {
+        const eMax = epsilonMax[i];
+        const eMin = epsilonMin[i];
+        checkLoop(sigmaMax[i], sigmaMin[i], eMax, eMin, i);
+        const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log((eMax - eMin) / 2), cutoff, maxIt);
+        out[i] = r;
+        if (flags !== undefined) flags[i] = flagBits(r);
+      }
+      return out;
+    }
+    // Many loops: check them all and find the range of amplitudes, then solve from a table start.
+    let yMin = Infinity;
+    let yMax = 0;
     for (let i = 0; i < count; i++) {
       const eMax = epsilonMax[i];
       const eMin = epsilonMin[i];
       checkLoop(sigmaMax[i], sigmaMin[i], eMax, eMin, i);
-      const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log((eMax - eMin) / 2), cutoff, maxIt);
+      const y = (eMax - eMin) / 2;
+      if (y > 0 && y < yMin) yMin = y;
+      if (y > yMax) yMax = y;
+    }
+    const table = new TwoTermReversalsTable(lnA, b, lnB, c, {
+      cutoffReversals: cutoff, maxIterations: maxIt, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
+    });
+    for (let i = 0; i < count; i++) {
+      const r = table.solve(Math.log((epsilonMax[i] - epsilonMin[i]) / 2));
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(r);
     }

@@ -2,7 +2,9 @@ import {
   assertMaterial,
   DEFAULT_CUTOFF_REVERSALS,
   DEFAULT_MAX_ITERATIONS,
+  REVERSALS_TABLE_MIN_COUNT,
   solveTwoTermReversals,
+  TwoTermReversalsTable,
   type Material,
   type ReversalsOptions,
 } from '@loopwise/material';
@@ -71,12 +73,38 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
     const lnB = Math.log(sigmaF * epsilonF);
     const q = b + c;
     const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    if (count < REVERSALS_TABLE_MIN_COUNT) {
+      for (let i = 0; i < count; i++) {
+        const sMax = sigmaMax[i];
+        const eMax = epsilonMax[i];
+        const eMin = epsilonMin[i];
+        checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+        const r = sMax > 0 ? solveTwoTermReversals(lnA, p, lnB, q, Math.log((sMax * (eMax - eMin)) / 2), cutoff, maxIt) : Infinity;
+        out[i] = r;
+        if (flags !== undefined) flags[i] = flagBits(sMax, r);
+      }
+      return out;
+    }
+    // Many loops: check them all and find the range of σmax·εa, then solve from a table start.
+    let yMin = Infinity;
+    let yMax = 0;
     for (let i = 0; i < count; i++) {
       const sMax = sigmaMax[i];
       const eMax = epsilonMax[i];
       const eMin = epsilonMin[i];
       checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
-      const r = sMax > 0 ? solveTwoTermReversals(lnA, p, lnB, q, Math.log((sMax * (eMax - eMin)) / 2), cutoff, maxIt) : Infinity;
+      if (sMax > 0) {
+        const y = (sMax * (eMax - eMin)) / 2;
+        if (y > 0 && y < yMin) yMin = y;
+        if (y > yMax) yMax = y;
+      }
+    }
+    const table = new TwoTermReversalsTable(lnA, p, lnB, q, {
+      cutoffReversals: cutoff, maxIterations: maxIt, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
+    });
+    for (let i = 0; i < count; i++) {
+      const sMax = sigmaMax[i];
+      const r = sMax > 0 ? table.solve(Math.log((sMax * (epsilonMax[i] - epsilonMin[i])) / 2)) : Infinity;
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(sMax, r);
     }

@@ -2,7 +2,9 @@ import {
   assertMaterial,
   DEFAULT_CUTOFF_REVERSALS,
   DEFAULT_MAX_ITERATIONS,
+  REVERSALS_TABLE_MIN_COUNT,
   solveTwoTermReversals,
+  TwoTermReversalsTable,
   type Material,
   type ReversalsOptions,
 } from '@loopwise/material';
@@ -129,12 +131,48 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
       const cutoff = opts.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
       const maxIt = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
       const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+      if (count < REVERSALS_TABLE_MIN_COUNT) {
+        for (let i = 0; i < count; i++) {
+          const sMax = sigmaMax[i];
+          const eMax = epsilonMax[i];
+          const eMin = epsilonMin[i];
+          checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+          const r = walkerReversals(t, sMax, (eMax - eMin) / 2, cutoff, maxIt);
+          out[i] = r;
+          if (flags !== undefined) flags[i] = flagBits(t, sMax, r);
+        }
+        return out;
+      }
+      // Many loops: check them all and bound ln Y = k·ln σmax + ln εa by the ranges of σmax and
+      // εa (k ≥ 0), then solve from a table start.
+      const k = t.k;
+      let sLo = Infinity;
+      let sHi = 0;
+      let eLo = Infinity;
+      let eHi = 0;
       for (let i = 0; i < count; i++) {
         const sMax = sigmaMax[i];
         const eMax = epsilonMax[i];
         const eMin = epsilonMin[i];
         checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
-        const r = walkerReversals(t, sMax, (eMax - eMin) / 2, cutoff, maxIt);
+        if (k === 0 || sMax > 0) {
+          const ea = (eMax - eMin) / 2;
+          if (ea > 0 && ea < eLo) eLo = ea;
+          if (ea > eHi) eHi = ea;
+          if (sMax > 0 && sMax < sLo) sLo = sMax;
+          if (sMax > sHi) sHi = sMax;
+        }
+      }
+      const table = new TwoTermReversalsTable(t.lnA, t.p, t.lnB, t.q, {
+        cutoffReversals: cutoff,
+        maxIterations: maxIt,
+        lnTargetMin: k === 0 ? Math.log(eLo) : k * Math.log(sLo) + Math.log(eLo),
+        lnTargetMax: k === 0 ? Math.log(eHi) : k * Math.log(sHi) + Math.log(eHi),
+      });
+      for (let i = 0; i < count; i++) {
+        const sMax = sigmaMax[i];
+        const ea = (epsilonMax[i] - epsilonMin[i]) / 2;
+        const r = k === 0 ? table.solve(Math.log(ea)) : sMax > 0 ? table.solve(k * Math.log(sMax) + Math.log(ea)) : Infinity;
         out[i] = r;
         if (flags !== undefined) flags[i] = flagBits(t, sMax, r);
       }

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ConvergenceError, handbookSteels, MaterialError, type Material } from '@loopwise/material';
+import { ConvergenceError, handbookSteels, MaterialError, REVERSALS_TABLE_MIN_COUNT, type Material } from '@loopwise/material';
 import {
   createWalker,
   DAMAGE_FLAG_BITS,
@@ -62,6 +62,67 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
       ),
       { numRuns: 60 },
     );
+  });
+
+  it.each(names)(`%s.reversalsToFailureInto from ${REVERSALS_TABLE_MIN_COUNT} loops on (table start) equals the scalar to 1e-12 relative`, (name) => {
+    const p = damageParameters[name];
+    checkProperty(
+      `${name} kernel with table = scalar`,
+      fc.property(
+        realisticMaterial,
+        range(0.05, 1),
+        fc.array(fc.tuple(range(-7, 0.5), range(-1500, 1500), range(0, 3000)), {
+          minLength: REVERSALS_TABLE_MIN_COUNT, maxLength: REVERSALS_TABLE_MIN_COUNT + 100,
+        }),
+        fc.nat(),
+        (m0, gamma, rows, tie) => {
+          // Arrange: amplitudes from zero and far below the cut-off to above the first reversal,
+          // tensile and compressive peaks and means (Walker with a generated γ), and ties
+          const m = { ...m0, Su: 800 } as Material;
+          const param = name === 'walker' ? createWalker({ gamma }) : p;
+          const n = rows.length;
+          const cols = { sigmaMax: new Float64Array(n), sigmaMin: new Float64Array(n), epsilonMax: new Float64Array(n), epsilonMin: new Float64Array(n) };
+          rows.forEach(([lg, sMax, range2], i) => {
+            const [lgT, sMaxT, range2T] = i % 5 === tie % 5 ? rows[0] : [lg, sMax, range2];
+            const ea = lgT < -6.9 ? 0 : 10 ** lgT;
+            cols.sigmaMax[i] = sMaxT;
+            cols.sigmaMin[i] = sMaxT - range2T;
+            cols.epsilonMax[i] = ea;
+            cols.epsilonMin[i] = -ea;
+          });
+          const out = new Float64Array(n);
+          const flags = new Uint8Array(n);
+          // Act
+          expect(param.reversalsToFailureInto(cols, m, out, flags)).toBe(out);
+          // Assert: 1 and Infinity exactly, roots to the solver's tolerance, flags exactly, no NaN
+          for (let i = 0; i < n; i++) {
+            const r = param.reversalsToFailure({ sigmaMax: cols.sigmaMax[i], sigmaMin: cols.sigmaMin[i], epsilonMax: cols.epsilonMax[i], epsilonMin: cols.epsilonMin[i] }, m);
+            expect(Number.isNaN(out[i])).toBe(false);
+            if (r.reversals === 1 || r.reversals === Infinity) expect(out[i]).toBe(r.reversals);
+            else expect(Math.abs(out[i] / r.reversals - 1)).toBeLessThan(1e-12);
+            expect(flags[i]).toBe(r.flags.reduce((bits, f) => bits | DAMAGE_FLAG_BITS[f], 0));
+          }
+        },
+      ),
+      { numRuns: 25 },
+    );
+  });
+
+  // Morrow lowers A alone with the mean stress, so no one-dimensional table serves it: its kernel
+  // solves each loop from the bracket at every size (and writes loop by loop).
+  it.each(names)('%s.reversalsToFailureInto from the table size on names a bad loop (before writing, with a table) and honours the cap', (name) => {
+    const p = damageParameters[name];
+    const n = REVERSALS_TABLE_MIN_COUNT;
+    const cols = {
+      sigmaMax: new Float64Array(n).fill(good.sigmaMax), sigmaMin: new Float64Array(n).fill(good.sigmaMin),
+      epsilonMax: new Float64Array(n).fill(good.epsilonMax), epsilonMin: new Float64Array(n).fill(good.epsilonMin),
+    };
+    const out = new Float64Array(n).fill(-1);
+    cols.sigmaMin[n - 1] = NaN;
+    expect(() => p.reversalsToFailureInto(cols, aisi4340, out)).toThrow(new RegExp(`sigmaMin\\[${n - 1}\\]`));
+    if (name !== 'morrow') expect(out.every((v) => v === -1)).toBe(true);
+    cols.sigmaMin[n - 1] = good.sigmaMin;
+    expect(() => p.reversalsToFailureInto(cols, aisi4340, out, undefined, { maxIterations: 0 })).toThrow(ConvergenceError);
   });
 
   describe.each(names)('%s: bad input', (name) => {
