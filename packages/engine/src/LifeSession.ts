@@ -38,7 +38,6 @@ export class LifeSession {
   private readonly tv = new Float64Array(BLOCK + 2);
   private readonly ti = new Float64Array(BLOCK + 2);
   private readonly loops = new LoopTable();
-  private peakReversal = new ReversalTable(2);
   private stage: 'first' | 'second' | 'done' = 'first';
   private samples = 0;
   private best = -1;
@@ -64,7 +63,7 @@ export class LifeSession {
     }
     this.gate = j.gate ?? (j.gateFraction !== undefined ? j.gateFraction * (j.fullScale as number) : 0);
     this.filter = new ReversalFilter({ gate: this.gate });
-    this.tracker = new NotchTracker(trackerOptionsOf(j));
+    this.tracker = new NotchTracker({ ...trackerOptionsOf(j), recordReversals: false });
   }
 
   /** Samples pushed in the first pass so far. */
@@ -144,7 +143,6 @@ export class LifeSession {
         toSample: identity,
         track: {
           loops: this.loops,
-          reversals: this.peakReversal,
           beyondStrainLimit: this.beyond,
           firstBeyondIndex: this.firstBeyond,
           first,
@@ -187,15 +185,6 @@ export class LifeSession {
   private drain(): void {
     const r = this.tracker.takeResult();
     this.loops.appendRange(r.loops, 0, r.loops.length);
-    const rv = r.reversals.columns();
-    for (let i = 0; i < rv.stress.length; i++) {
-      const top = this.peakReversal.length > 0 ? this.peakReversal.columns().stress[0] : -Infinity;
-      if (rv.stress[i] > top) {
-        const t = new ReversalTable(2);
-        t.add(rv.index[i], rv.value[i], rv.stress[i], rv.strain[i]);
-        this.peakReversal = t;
-      }
-    }
     if (r.beyondStrainLimit && !this.beyond) {
       this.beyond = true;
       this.firstBeyond = r.firstBeyondIndex;

@@ -1,4 +1,4 @@
-import { damageByEvent, damageTimeline, lifeFromDamage, MinerSum, mostDamagingLoops } from '@loopwise/miner';
+import { damageByEvent, damageTimeline, lifeFromDamage, MinerSum, mostDamagingLoops, sumDamage } from '@loopwise/miner';
 import { branchResponse, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
 import { NonFiniteSampleError, turningPoints } from '@loopwise/rainflow';
 import { ASSUMPTIONS, CAUTION } from './assumptions';
@@ -176,7 +176,8 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
   const first = gather(all, lives, track.first, toSample);
   if (!job.repeating) appendResidueHalves(first, track.firstResidue, job, toSample);
 
-  const sum = new MinerSum(job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
+  const cutoff = job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } };
+  const sum = new MinerSum({ ...cutoff, initialCapacity: stabilised.count.length });
   sum.addColumns({
     count: stabilised.count,
     cyclesToFailure: stabilised.cyclesToFailure,
@@ -186,13 +187,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
   });
   const minerCols = sum.columns();
   stabilised.damage.set(minerCols.damage);
-  const firstSum = new MinerSum(job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
-  firstSum.addColumns({
-    count: first.count,
-    cyclesToFailure: first.cyclesToFailure,
-    startIndex: clampIndex(first.startIndex),
-    endIndex: clampIndex(first.turnIndex),
-  });
+  const firstDamage = sumDamage(first.count, first.cyclesToFailure, cutoff);
   const damage = sum.damage();
 
   const perRepeat = serviceOf(job, events);
@@ -240,7 +235,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
       correction: job.meanStress,
       parameterUnit: PARAMETER_UNITS[job.meanStress],
       perRepeat: damage,
-      firstPass: firstSum.damage(),
+      firstPass: firstDamage,
       reusedFirstPass: track.reusedFirstPass,
     },
     life,
@@ -288,14 +283,14 @@ function gather(
   let j = 0;
   const scratch = new Float64Array(1);
   for (const s of segments) {
+    c.stressMax.set(all.stressMax.subarray(s.from, s.to), j);
+    c.stressMin.set(all.stressMin.subarray(s.from, s.to), j);
+    c.strainMax.set(all.strainMax.subarray(s.from, s.to), j);
+    c.strainMin.set(all.strainMin.subarray(s.from, s.to), j);
+    c.parameter.set(lives.parameter.subarray(s.from, s.to), j);
+    c.reversalsToFailure.set(lives.reversalsToFailure.subarray(s.from, s.to), j);
+    c.cyclesToFailure.set(lives.cyclesToFailure.subarray(s.from, s.to), j);
     for (let i = s.from; i < s.to; i++, j++) {
-      c.stressMax[j] = all.stressMax[i];
-      c.stressMin[j] = all.stressMin[i];
-      c.strainMax[j] = all.strainMax[i];
-      c.strainMin[j] = all.strainMin[i];
-      c.parameter[j] = lives.parameter[i];
-      c.reversalsToFailure[j] = lives.reversalsToFailure[i];
-      c.cyclesToFailure[j] = lives.cyclesToFailure[i];
       c.count[j] = all.count[i] * s.weight;
       toSample(all.startIndex[i], c.startIndex, j, c.startEvent);
       toSample(all.turnIndex[i], c.turnIndex, j, c.turnEvent);
@@ -439,17 +434,30 @@ function warningsOf(
  * ends of the history (a removed last reversal, or the seam of a repeating block).
  */
 function gateDamageBound(job: ResolvedJob, track: TrackedLoops, gate: number, removed: number): number {
-  const revs = track.reversals.columns();
-  let best = -1;
-  for (let i = 0; i < revs.stress.length; i++) if (best < 0 || revs.stress[i] > revs.stress[best]) best = i;
-  if (best < 0) return 0;
-  const options = trackerOptionsOf(job);
-  const origin = { value: revs.value[best], stress: revs.stress[best], strain: revs.strain[best] };
-  const low = branchResponse(options, origin, revs.value[best] - gate);
+  // the point of highest local stress: the top of a closed loop, or a point still open at the end
+  let stress = -Infinity;
+  let strain = 0;
+  const l = track.loops.columns();
+  for (let i = 0; i < l.stressMax.length; i++) {
+    if (l.stressMax[i] > stress) {
+      stress = l.stressMax[i];
+      strain = l.strainMax[i];
+    }
+  }
+  const r = track.firstResidue.columns();
+  for (let i = 0; i < r.stress.length; i++) {
+    if (r.stress[i] > stress) {
+      stress = r.stress[i];
+      strain = r.strain[i];
+    }
+  }
+  if (stress === -Infinity) return 0;
+  // only the history difference from the origin enters a branch: origin value 0, target -gate
+  const low = branchResponse(trackerOptionsOf(job), { value: 0, stress, strain }, -gate);
   const loop = {
-    stressMax: Float64Array.of(origin.stress),
+    stressMax: Float64Array.of(stress),
     stressMin: Float64Array.of(low.stress),
-    strainMax: Float64Array.of(origin.strain),
+    strainMax: Float64Array.of(strain),
     strainMin: Float64Array.of(low.strain),
   };
   const lives = evaluateLoops(loop, job.material, job.meanStress, job.walkerGamma);

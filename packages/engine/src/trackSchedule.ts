@@ -28,8 +28,6 @@ export interface LoopSegment {
 export interface TrackedLoops {
   /** Every loop the tracker closed, in either pass. */
   loops: LoopTable;
-  /** The reversals the tracker saw (only the one of highest local stress is needed). */
-  reversals: ReversalTable;
   /** True when some local strain amplitude exceeded the strain limit; index of the first such point. */
   beyondStrainLimit: boolean;
   firstBeyondIndex: number;
@@ -68,7 +66,7 @@ export interface ScheduleTrack extends TrackedLoops {
  * |value| for the second, whatever the repeat counts.
  */
 export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOptions, repeating: boolean): ScheduleTrack {
-  const t = new NotchTracker(options);
+  const t = new NotchTracker({ ...options, recordReversals: false });
   const offset = t.options.offset;
   // the schedule's first turning point of largest |value|
   let peakEvent = -1;
@@ -84,8 +82,22 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
       }
     }
   });
+  // points the passes will push (repeats stop after about two copies), to size the tables once
+  let expected = 0;
+  for (const e of events) expected += e.values.length * Math.min(e.repeats, 3);
+  if (repeating) expected *= 2;
   let pushed = 0;
+  let reserved = false;
   const push = (e: ScheduleEvent, from: number, to: number) => {
+    if (!reserved && to - from > 65536) {
+      // a first piece sets the loop rate; then the tables are sized for the whole schedule, so
+      // tables of millions of rows are not copied at every doubling
+      t.pushRange(e.values, from, from + 65536);
+      pushed += 65536;
+      from += 65536;
+      t.reserveFor(expected);
+      reserved = true;
+    }
     t.pushRange(e.values, from, to);
     pushed += to - from;
   };
@@ -171,7 +183,6 @@ function finish(
   const r = t.takeResult();
   return {
     loops: r.loops,
-    reversals: r.reversals,
     beyondStrainLimit: r.beyondStrainLimit,
     firstBeyondIndex: r.firstBeyondIndex,
     first,
