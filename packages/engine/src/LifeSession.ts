@@ -1,4 +1,4 @@
-import { LoopTable, NotchTracker, ReversalTable } from '@loopwise/notch';
+import { LoopTable, NotchSampleError, NotchTracker, ReversalTable } from '@loopwise/notch';
 import { ReversalFilter } from '@loopwise/rainflow';
 import { reportFrom, trackerOptionsOf, type IndexMap } from './assessDutyCycle';
 import { EngineError } from './EngineError';
@@ -84,6 +84,18 @@ export class LifeSession {
   /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
+    if (this.gate === 0) {
+      try {
+        this.feedRawFirst(chunk);
+      } catch (err) {
+        if (err instanceof NotchSampleError) {
+          throw new EngineError('invalid-history', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index);
+        }
+        throw err;
+      }
+      this.samples += chunk.length;
+      return this;
+    }
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
       const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
@@ -98,7 +110,11 @@ export class LifeSession {
     this.endFirstPass();
     if (this.stage !== 'second') throw new EngineError('session-state', 'pushSecondPass', undefined, 'no second pass is open');
     const want = Math.min(chunk.length, this.secondNeeded - this.secondSeen);
-    for (let s = 0; s < want; s += BLOCK) {
+    if (this.gate === 0) {
+      if (want > 0) this.tracker.pushRange(chunk, 0, want);
+      this.drain();
+    }
+    for (let s = 0; this.gate > 0 && s < want; s += BLOCK) {
       const e = Math.min(want, s + BLOCK);
       const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
       this.feed(k);
@@ -129,9 +145,11 @@ export class LifeSession {
       stabilised = [{ from: this.firstRows, to: n, weight: 1 }];
       if (this.reused) stabilised.push({ from: this.peakRow, to: this.firstRows, weight: 1 });
     }
-    const identity: IndexMap = (index, out, at, events) => {
-      out[at] = index;
-      events[at] = index < 0 ? -1 : 0;
+    const identity: IndexMap = (src, from, to, out, at, events) => {
+      for (let i = from, j = at; i < to; i++, j++) {
+        out[j] = src[i];
+        events[j] = src[i] < 0 ? -1 : 0;
+      }
     };
     return reportFrom(
       {
@@ -153,6 +171,28 @@ export class LifeSession {
       },
       this.job,
     );
+  }
+
+  /** Pushes raw samples of the first pass (no gate), splitting at each new largest |value|. */
+  private feedRawFirst(chunk: ArrayLike<number>): void {
+    const off = this.job.offset;
+    let from = 0;
+    for (let j = 0; j < chunk.length; j++) {
+      const x = chunk[j] + off;
+      const a = x < 0 ? -x : x;
+      if (a > this.best) {
+        this.best = a;
+        this.tracker.pushRange(chunk, from, j + 1);
+        from = j + 1;
+        this.drain();
+        this.peakIndex = this.samples + j;
+        this.peakValue = chunk[j];
+        this.peakRow = this.loops.length;
+        this.peakSnapshot = this.tracker.snapshot();
+      }
+    }
+    if (from < chunk.length) this.tracker.pushRange(chunk, from, chunk.length);
+    this.drain();
   }
 
   /** Feeds k turning points of the first pass, splitting at each new largest |value|. */
@@ -198,8 +238,7 @@ export class LifeSession {
       return;
     }
     // the last extreme is a turning point too
-    const p = this.filter.pendingInto(this.tv, this.ti, 0);
-    this.feedFirst(p);
+    if (this.gate > 0) this.feedFirst(this.filter.pendingInto(this.tv, this.ti, 0));
     this.removed = this.filter.removedCount;
     this.firstRows = this.loops.length;
     this.firstResidue = this.tracker.residue();
@@ -210,20 +249,23 @@ export class LifeSession {
     this.secondFull = Math.abs(this.job.initial + this.job.offset) > this.best;
     this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
     this.filter = new ReversalFilter({ gate: this.gate });
+    if (this.gate === 0) this.tracker.restartIndex(0);
     this.stage = 'second';
   }
 
   private endSecondPass(): void {
     if (this.secondFull) {
-      this.feed(this.filter.pendingInto(this.tv, this.ti, 0));
+      if (this.gate > 0) this.feed(this.filter.pendingInto(this.tv, this.ti, 0));
       this.stage = 'done';
       return;
     }
-    // The samples up to the largest |value| confirm every turning point before it again; the one
-    // at it was confirmed by later samples in the first pass, so it is pushed as found there.
-    this.tv[0] = this.peakValue;
-    this.ti[0] = this.peakIndex;
-    this.feed(1);
+    if (this.gate > 0) {
+      // The samples up to the largest |value| confirm every turning point before it again; the
+      // one at it was confirmed by later samples in the first pass, so it is pushed as found there.
+      this.tv[0] = this.peakValue;
+      this.ti[0] = this.peakIndex;
+      this.feed(1);
+    }
     if (this.peakSnapshot !== null && this.tracker.matches(this.peakSnapshot)) {
       this.reused = true;
       this.stage = 'done';

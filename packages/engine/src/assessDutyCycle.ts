@@ -1,5 +1,5 @@
-import { damageByEvent, damageTimeline, lifeFromDamage, MinerSum, mostDamagingLoops, sumDamage } from '@loopwise/miner';
-import { branchResponse, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
+import { damageByEvent, damageInto, damageTimeline, lifeFromDamage, mostDamagingLoops } from '@loopwise/miner';
+import { branchResponse, NotchSampleError, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
 import { NonFiniteSampleError, turningPoints } from '@loopwise/rainflow';
 import { ASSUMPTIONS, CAUTION } from './assumptions';
 import { EngineError } from './EngineError';
@@ -111,8 +111,11 @@ export function trackerOptionsOf(job: ResolvedJob): NotchTrackerOptions {
   return o;
 }
 
-/** Maps a tracker index to the schedule sample index and the event (-1, -1 for the initial state). */
-export type IndexMap = (index: number, out: Float64Array, at: number, events: Float64Array) => void;
+/**
+ * Maps tracker indices `src[from..to)` to schedule sample indices in `out` from `at` on, and their
+ * events in `events` (-1 and -1 for the initial state).
+ */
+export type IndexMap = (src: Float64Array, from: number, to: number, out: Float64Array, at: number, events: Float64Array) => void;
 
 /** What the tracking stage leaves for the damage stage (internal). */
 export interface TrackedSchedule {
@@ -134,6 +137,13 @@ export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSch
   let ordinalBase = 0;
   let removed = 0;
   events.forEach((e, k) => {
+    if (gate === 0) {
+      // without a gate the tracker reads the raw samples: it finds the reversals itself (plateaus
+      // collapse to their first sample), which costs less than a separate turning-point pass
+      schedule.push({ values: e.history, indices: null, repeats: e.repeats, sampleBase, ordinalBase: sampleBase });
+      sampleBase += e.history.length;
+      return;
+    }
     let tp;
     try {
       tp = turningPoints(e.history, { gate });
@@ -148,7 +158,19 @@ export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSch
     sampleBase += e.history.length;
     ordinalBase += tp.values.length;
   });
-  const track = trackSchedule(schedule, trackerOptionsOf(job), job.repeating);
+  let track;
+  try {
+    track = trackSchedule(schedule, trackerOptionsOf(job), job.repeating);
+  } catch (err) {
+    if (err instanceof NotchSampleError) {
+      // raw samples carry schedule indices: name the event and its own sample index
+      let k = 0;
+      while (k + 1 < schedule.length && schedule[k + 1].sampleBase <= err.index) k++;
+      const i = err.index - schedule[k].sampleBase;
+      throw new EngineError('invalid-history', `events[${k}].history`, err.value, `sample ${i} of event '${events[k].name}' is ${err.value}`, i);
+    }
+    throw err;
+  }
   return {
     events,
     eventStarts: schedule.map((s) => s.sampleBase),
@@ -173,23 +195,15 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
   const lives = evaluateLoops(all, job.material, job.meanStress, job.walkerGamma);
   const stabilised = gather(all, lives, track.stabilised, toSample);
   if (!job.repeating) appendResidueHalves(stabilised, track.firstResidue, job, toSample);
-  const first = gather(all, lives, track.first, toSample);
-  if (!job.repeating) appendResidueHalves(first, track.firstResidue, job, toSample);
-
   const cutoff = job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } };
-  const sum = new MinerSum({ ...cutoff, initialCapacity: stabilised.count.length });
-  sum.addColumns({
-    count: stabilised.count,
-    cyclesToFailure: stabilised.cyclesToFailure,
+  damageInto(stabilised.count, stabilised.cyclesToFailure, stabilised.damage, cutoff);
+  const damage = compensatedSum(stabilised.damage);
+  const firstDamage = job.repeating ? segmentDamage(all.count, lives.cyclesToFailure, track.first, job.cutoffCycles ?? Infinity) : damage;
+  const attribution = {
+    damage: stabilised.damage,
     startIndex: clampIndex(stabilised.startIndex),
     endIndex: clampIndex(stabilised.turnIndex),
-    range: strainRanges(stabilised),
-  });
-  const minerCols = sum.columns();
-  stabilised.damage.set(minerCols.damage);
-  const firstDamage = sumDamage(first.count, first.cyclesToFailure, cutoff);
-  const damage = sum.damage();
-
+  };
   const perRepeat = serviceOf(job, events);
   const life = lifeFromDamage(damage, {
     criticalDamage: job.criticalDamage,
@@ -198,8 +212,8 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
   });
 
   const binSize = Math.max(1, Math.ceil(totalSamples / job.timelineBins));
-  const timeline = damageTimeline(sum, { binSize, sampleCount: totalSamples });
-  const byEvent = damageByEvent(sum, { starts: eventStarts });
+  const timeline = damageTimeline(attribution, { binSize, sampleCount: totalSamples });
+  const byEvent = damageByEvent(attribution, { starts: eventStarts });
   const eventDamage: EventDamage[] = events.map((e, k) => ({
     name: e.name,
     repeats: e.repeats,
@@ -207,7 +221,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     damage: byEvent[k],
     share: damage > 0 ? byEvent[k] / damage : 0,
   }));
-  const worstRows = mostDamagingLoops(sum, Math.min(job.worstLoopCount, stabilised.count.length));
+  const worstRows = mostDamagingLoops({ damage: stabilised.damage }, Math.min(job.worstLoopCount, stabilised.count.length));
   const worstLoops: WorstLoop[] = Array.from(worstRows, (row) => ({
     row,
     damage: stabilised.damage[row],
@@ -224,7 +238,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     turnEvent: stabilised.turnEvent[row] >= 0 ? events[stabilised.turnEvent[row]].name : null,
   }));
 
-  const warnings = warningsOf(job, track, stabilised, sum, damage, gate, removed);
+  const warnings = warningsOf(job, track, stabilised, damage, gate, removed);
   return {
     format: 'loopwise-life-report',
     version: 1,
@@ -251,22 +265,35 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
 /** Maps a tracker index (turning-point ordinal) to the schedule sample index and the event. */
 function ordinalMap(schedule: ScheduleEvent[]): IndexMap {
   const bases = schedule.map((s) => s.ordinalBase);
-  return (o, out, at, ev) => {
-    if (o < 0) {
-      out[at] = -1;
-      ev[at] = -1;
-      return;
+  if (schedule.length === 1) {
+    const idx = schedule[0].indices;
+    return (src, from, to, out, at, ev) => {
+      for (let i = from, j = at; i < to; i++, j++) {
+        const o = src[i];
+        out[j] = o < 0 ? -1 : idx === null ? o : idx[o];
+        ev[j] = o < 0 ? -1 : 0;
+      }
+    };
+  }
+  return (src, from, to, out, at, ev) => {
+    for (let i = from, j = at; i < to; i++, j++) {
+      const o = src[i];
+      if (o < 0) {
+        out[j] = -1;
+        ev[j] = -1;
+        continue;
+      }
+      let lo = 0;
+      let hi = bases.length - 1;
+      while (lo < hi) {
+        const mid = (lo + hi + 1) >>> 1;
+        if (bases[mid] <= o) lo = mid;
+        else hi = mid - 1;
+      }
+      const s = schedule[lo];
+      out[j] = s.indices === null ? o : s.sampleBase + s.indices[o - s.ordinalBase];
+      ev[j] = lo;
     }
-    let lo = 0;
-    let hi = bases.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >>> 1;
-      if (bases[mid] <= o) lo = mid;
-      else hi = mid - 1;
-    }
-    const s = schedule[lo];
-    out[at] = s.sampleBase + s.indices[o - s.ordinalBase];
-    ev[at] = lo;
   };
 }
 
@@ -281,7 +308,7 @@ function gather(
   for (const s of segments) n += s.to - s.from;
   const c = emptyColumns(n);
   let j = 0;
-  const scratch = new Float64Array(1);
+  const scratch = new Float64Array(n);
   for (const s of segments) {
     c.stressMax.set(all.stressMax.subarray(s.from, s.to), j);
     c.stressMin.set(all.stressMin.subarray(s.from, s.to), j);
@@ -290,12 +317,10 @@ function gather(
     c.parameter.set(lives.parameter.subarray(s.from, s.to), j);
     c.reversalsToFailure.set(lives.reversalsToFailure.subarray(s.from, s.to), j);
     c.cyclesToFailure.set(lives.cyclesToFailure.subarray(s.from, s.to), j);
-    for (let i = s.from; i < s.to; i++, j++) {
-      c.count[j] = all.count[i] * s.weight;
-      toSample(all.startIndex[i], c.startIndex, j, c.startEvent);
-      toSample(all.turnIndex[i], c.turnIndex, j, c.turnEvent);
-      toSample(all.closeIndex[i], c.closeIndex, j, scratch);
-    }
+    toSample(all.startIndex, s.from, s.to, c.startIndex, j, c.startEvent);
+    toSample(all.turnIndex, s.from, s.to, c.turnIndex, j, c.turnEvent);
+    toSample(all.closeIndex, s.from, s.to, c.closeIndex, j, scratch);
+    for (let i = s.from; i < s.to; i++, j++) c.count[j] = all.count[i] * s.weight;
   }
   return c;
 }
@@ -332,10 +357,10 @@ function appendResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: Re
     h.strainMax[i] = Math.max(r.strain[i], r.strain[i + 1]);
     h.strainMin[i] = Math.min(r.strain[i], r.strain[i + 1]);
     h.count[i] = 0.5;
-    toSample(r.index[i], h.startIndex, i, h.startEvent);
-    toSample(r.index[i + 1], h.turnIndex, i, h.turnEvent);
-    h.closeIndex[i] = h.turnIndex[i];
   }
+  toSample(r.index, 0, m, h.startIndex, 0, h.startEvent);
+  toSample(r.index, 1, m + 1, h.turnIndex, 0, h.turnEvent);
+  h.closeIndex.set(h.turnIndex);
   const lives = evaluateLoops(h, job.material, job.meanStress, job.walkerGamma);
   h.parameter.set(lives.parameter);
   h.reversalsToFailure.set(lives.reversalsToFailure);
@@ -348,17 +373,49 @@ function appendResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: Re
   }
 }
 
+/** Σ x with Neumaier's compensation, so 10^6 small damages add up without loss. */
+function compensatedSum(x: Float64Array): number {
+  let s = 0;
+  let c = 0;
+  for (let i = 0; i < x.length; i++) {
+    const v = x[i];
+    const t = s + v;
+    c += Math.abs(s) >= Math.abs(v) ? s - t + v : v - t + s;
+    s = t;
+  }
+  return s + c;
+}
+
+/** Damage of tracker rows in weighted segments: Σ weight · count / Nf (0 beyond the cut-off). */
+function segmentDamage(count: Float64Array, nf: Float64Array, segments: LoopSegment[], limit: number): number {
+  const d = new Float64Array(segments.reduce((a, s) => a + (s.to - s.from), 0));
+  let j = 0;
+  for (const s of segments) for (let i = s.from; i < s.to; i++) d[j++] = nf[i] > limit ? 0 : (s.weight * count[i]) / nf[i];
+  return compensatedSum(d);
+}
+
+/** What the cut-off removed, and the share of damage within a factor 2 below it. */
+function cutoffReport(l: LifeLoopColumns, cutoffCycles: number, damage: number) {
+  const nearFactor = 2;
+  let removedCount = 0;
+  let removedDamage = 0;
+  let near = 0;
+  for (let i = 0; i < l.count.length; i++) {
+    const nf = l.cyclesToFailure[i];
+    if (nf > cutoffCycles) {
+      removedCount += l.count[i];
+      if (nf < Infinity) removedDamage += l.count[i] / nf;
+    } else if (nf * nearFactor > cutoffCycles) near += l.damage[i];
+  }
+  return { removedCount, removedDamage, nearFactor, nearCutoffShare: damage > 0 ? near / damage : 0 };
+}
+
 function clampIndex(a: Float64Array): Float64Array {
   const out = new Float64Array(a.length);
   for (let i = 0; i < a.length; i++) out[i] = a[i] < 0 ? 0 : a[i];
   return out;
 }
 
-function strainRanges(c: LifeLoopColumns): Float64Array {
-  const out = new Float64Array(c.strainMax.length);
-  for (let i = 0; i < out.length; i++) out[i] = c.strainMax[i] - c.strainMin[i];
-  return out;
-}
 
 /** Service per repeat of the schedule: the job's `unit.perRepeat`, or the sum of the events' durations. */
 function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
@@ -379,7 +436,6 @@ function warningsOf(
   job: ResolvedJob,
   track: TrackedLoops,
   loops: LifeLoopColumns,
-  sum: MinerSum,
   damage: number,
   gate: number,
   removed: number,
@@ -394,7 +450,7 @@ function warningsOf(
     });
   }
   if (job.cutoffCycles !== undefined) {
-    const r = sum.cutoffReport();
+    const r = cutoffReport(loops, job.cutoffCycles, damage);
     if (r.removedCount > 0 || r.nearCutoffShare > 0.1) {
       out.push({
         code: 'cutoff-share',

@@ -2,10 +2,10 @@ import { NotchTracker, type LoopTable, type NotchTrackerOptions, type ReversalTa
 
 /** One event of a schedule, as turning points, with its repeat count (internal). */
 export interface ScheduleEvent {
-  /** Turning-point values of one repeat of the event. */
-  values: Float64Array;
-  /** Sample index (within the event) of each turning point. */
-  indices: Float64Array;
+  /** Turning-point values of one repeat of the event (gated), or its raw samples (no gate). */
+  values: ArrayLike<number>;
+  /** Sample index (within the event) of each turning point; null when `values` are the raw samples. */
+  indices: Float64Array | null;
   /** Consecutive repeats of the event, >= 1. */
   repeats: number;
   /** Index of the event's first sample in the schedule's sample space (events laid end to end once). */

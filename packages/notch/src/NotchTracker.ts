@@ -428,8 +428,11 @@ export class NotchTracker {
    */
   reserveFor(total: number): void {
     if (this.samples === 0) return;
-    const rows = Math.min(total + 1, Math.ceil((1.25 * this.revs.length * total) / this.samples) + 64);
-    this.revs.reserve(rows);
+    // the reversal rate, from the reversal table or, when it is not kept, from the loops (two
+    // reversals each)
+    const seen = this.recordReversals ? this.revs.length : 2 * this.loopTable.length;
+    const rows = Math.min(total + 1, Math.ceil((1.25 * seen * total) / this.samples) + 64);
+    if (this.recordReversals) this.revs.reserve(rows);
     this.loopTable.reserve((rows >> 1) + 1);
   }
 
