@@ -3,7 +3,8 @@
 // read up to the largest value) against ingestion alone (the fast reader delivering the column
 // to a no-op), both in this process; and the peak resident set size of the assessment, measured
 // in a child process from /proc/self/status (VmHWM). Inputs are written outside the timed region;
-// the assessment is checked against the engine run on the same values in memory.
+// the assessment (loops folded into running totals, as the command does without --cycles-out)
+// is checked against the engine run on the same values in memory.
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync, createWriteStream } from 'node:fs';
 import { tmpdir } from 'node:os';

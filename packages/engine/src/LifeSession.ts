@@ -1,12 +1,36 @@
 import { LoopTable, NotchSampleError, NotchTracker, ReversalTable } from '@loopwise/notch';
 import { ReversalFilter } from '@loopwise/rainflow';
-import { reportFrom, trackerOptionsOf, type IndexMap } from './assessDutyCycle';
+import { lifeFromDamage } from '@loopwise/miner';
+import {
+  echoInputs,
+  gateBoundAt,
+  PARAMETER_UNITS,
+  reportFrom,
+  serviceOf,
+  trackerOptionsOf,
+  warningsOf,
+  type IndexMap,
+} from './assessDutyCycle';
+import { ASSUMPTIONS, CAUTION } from './assumptions';
+import { LoopAggregate } from './LoopAggregate';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
 import type { LifeReport } from './LifeReport';
 import type { LoopSegment } from './trackSchedule';
 
 const BLOCK = 65536;
+
+/** Options of {@link LifeSession}. */
+export interface LifeSessionOptions {
+  /**
+   * Keep every closed loop for the report's loop table (default true: the report then equals
+   * `assessLife`'s). With false, loops are folded into running totals as they close and the
+   * report's loop columns are empty: memory no longer grows with the history.
+   */
+  keepLoops?: boolean;
+  /** Samples per bin of the damage timeline when loops are not kept; default 65536. */
+  timelineBinSize?: number;
+}
 
 /**
  * A streaming assessment of one history that arrives in chunks (a file larger than memory):
@@ -55,9 +79,26 @@ export class LifeSession {
   private beyond = false;
   private firstBeyond = -1;
 
-  constructor(job: LifeJob) {
+  private readonly keepLoops: boolean;
+  private readonly binSize: number;
+  private before: LoopAggregate | null = null;
+  private current: LoopAggregate | null = null;
+  private second: LoopAggregate | null = null;
+
+  constructor(job: LifeJob, options: LifeSessionOptions = {}) {
     this.job = resolveLifeJob(job);
     const j = this.job;
+    this.keepLoops = options.keepLoops ?? true;
+    if (typeof this.keepLoops !== 'boolean') throw new EngineError('invalid-job', 'keepLoops', this.keepLoops, 'must be true or false');
+    this.binSize = options.timelineBinSize ?? 65536;
+    if (!Number.isInteger(this.binSize) || this.binSize < 1) {
+      throw new EngineError('invalid-job', 'timelineBinSize', this.binSize, 'must be an integer >= 1');
+    }
+    if (!this.keepLoops) {
+      this.before = this.aggregate();
+      this.current = this.aggregate();
+      this.second = this.aggregate();
+    }
     if (j.gateFraction !== undefined && j.fullScale === undefined) {
       throw new EngineError('invalid-job', 'fullScale', undefined, 'a streamed history needs a declared fullScale for gateFraction');
     }
@@ -138,6 +179,7 @@ export class LifeSession {
     if (this.stage === 'done' && this.samples === 0) {
       throw new EngineError('invalid-event', 'history', '[]', "event 'history' has no samples");
     }
+    if (!this.keepLoops) return this.aggregateReport();
     const n = this.loops.length;
     const first: LoopSegment[] = [{ from: 0, to: this.firstRows, weight: 1 }];
     let stabilised: LoopSegment[] = first;
@@ -173,6 +215,17 @@ export class LifeSession {
     );
   }
 
+  private aggregate(): LoopAggregate {
+    return new LoopAggregate(this.binSize, this.job.worstLoopCount, this.job.cutoffCycles ?? Infinity);
+  }
+
+  /** Loops closed before a new largest |value| belong to the first pass only. */
+  private newPeak(): void {
+    if (this.keepLoops) return;
+    this.before!.merge(this.current!);
+    this.current = this.aggregate();
+  }
+
   /** Pushes raw samples of the first pass (no gate), splitting at each new largest |value|. */
   private feedRawFirst(chunk: ArrayLike<number>): void {
     const off = this.job.offset;
@@ -185,6 +238,7 @@ export class LifeSession {
         this.tracker.pushRange(chunk, from, j + 1);
         from = j + 1;
         this.drain();
+        this.newPeak();
         this.peakIndex = this.samples + j;
         this.peakValue = chunk[j];
         this.peakRow = this.loops.length;
@@ -206,6 +260,7 @@ export class LifeSession {
         this.tracker.pushIndexed(this.tv, this.ti, from, j + 1);
         from = j + 1;
         this.drain();
+        this.newPeak();
         this.peakIndex = this.ti[j];
         this.peakValue = this.tv[j];
         this.peakRow = this.loops.length;
@@ -224,7 +279,11 @@ export class LifeSession {
   /** Moves the tracker's new loops into the session's table and keeps the highest-stress reversal. */
   private drain(): void {
     const r = this.tracker.takeResult();
-    this.loops.appendRange(r.loops, 0, r.loops.length);
+    if (this.keepLoops) this.loops.appendRange(r.loops, 0, r.loops.length);
+    else {
+      const into = this.stage === 'first' ? this.current! : this.second!;
+      into.add(r.loops.columns(), this.job.material, this.job.meanStress, this.job.walkerGamma);
+    }
     if (r.beyondStrainLimit && !this.beyond) {
       this.beyond = true;
       this.firstBeyond = r.firstBeyondIndex;
@@ -279,5 +338,111 @@ export class LifeSession {
       this.peakIndex,
       `the two passes hold different memories at sample ${this.peakIndex}; assess this history with assessLife`,
     );
+  }
+
+  /** The report from the running totals (loops not kept). */
+  private aggregateReport(): LifeReport {
+    const job = this.job;
+    const residue = (this.firstResidue as ReversalTable).columns();
+    const stab = this.aggregate();
+    const firstPass = this.aggregate();
+    firstPass.merge(this.before!);
+    firstPass.merge(this.current!);
+    if (job.repeating) {
+      stab.merge(this.second!);
+      if (this.reused) stab.merge(this.current!);
+    } else {
+      // a one-off history: the first pass, and its open loops as half cycles
+      const m = residue.index.length - 1;
+      if (m > 0) {
+        const half = {
+          stressMax: new Float64Array(m),
+          stressMin: new Float64Array(m),
+          strainMax: new Float64Array(m),
+          strainMin: new Float64Array(m),
+          startIndex: residue.index.slice(0, m),
+          turnIndex: residue.index.slice(1),
+          closeIndex: residue.index.slice(1),
+          count: new Float64Array(m).fill(0.5),
+        };
+        for (let i = 0; i < m; i++) {
+          half.stressMax[i] = Math.max(residue.stress[i], residue.stress[i + 1]);
+          half.stressMin[i] = Math.min(residue.stress[i], residue.stress[i + 1]);
+          half.strainMax[i] = Math.max(residue.strain[i], residue.strain[i + 1]);
+          half.strainMin[i] = Math.min(residue.strain[i], residue.strain[i + 1]);
+        }
+        firstPass.add(half, job.material, job.meanStress, job.walkerGamma);
+      }
+      stab.merge(firstPass);
+    }
+    const damage = stab.total();
+    let stress = stab.peakStress;
+    let strain = stab.peakStrain;
+    for (let i = 0; i < residue.stress.length; i++) {
+      if (residue.stress[i] > stress) {
+        stress = residue.stress[i];
+        strain = residue.strain[i];
+      }
+    }
+    const events = [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }];
+    const perRepeat = serviceOf(job, events);
+    const life = lifeFromDamage(damage, {
+      criticalDamage: job.criticalDamage,
+      scatterFactor: job.scatterFactor,
+      ...(perRepeat === undefined ? {} : { unit: { label: job.unit!.label, perRepeat } }),
+    });
+    const bins = Math.max(1, Math.ceil(this.samples / this.binSize));
+    const timeline = new Float64Array(bins);
+    timeline.set(stab.timeline.subarray(0, Math.min(bins, stab.timeline.length)));
+    const worstLoops = stab.worst.map((w) => ({ ...w, share: damage > 0 ? w.damage / damage : 0 }));
+    const empty = new Float64Array(0);
+    return {
+      format: 'loopwise-life-report',
+      version: 1,
+      inputs: echoInputs(job, events, this.gate),
+      assumptions: [...ASSUMPTIONS],
+      caution: CAUTION,
+      damage: {
+        correction: job.meanStress,
+        parameterUnit: PARAMETER_UNITS[job.meanStress],
+        perRepeat: damage,
+        firstPass: firstPass.total(),
+        reusedFirstPass: this.reused,
+      },
+      life,
+      loops: {
+        stressMax: empty,
+        stressMin: empty,
+        strainMax: empty,
+        strainMin: empty,
+        parameter: empty,
+        reversalsToFailure: empty,
+        cyclesToFailure: empty,
+        count: empty,
+        damage: empty,
+        startIndex: empty,
+        turnIndex: empty,
+        closeIndex: empty,
+        startEvent: empty,
+        turnEvent: empty,
+      },
+      worstLoops,
+      timeline: { binSize: this.binSize, samples: this.samples, damage: timeline },
+      events: [{ name: 'history', repeats: 1, samples: this.samples, damage, share: damage > 0 ? 1 : 0 }],
+      gate: { range: this.gate, removedReversals: this.removed },
+      warnings: warningsOf(job, {
+        damage,
+        gate: this.gate,
+        removed: this.removed,
+        gateBound: this.removed > 0 ? gateBoundAt(job, stress, strain, this.gate, this.removed) : 0,
+        cutoff:
+          job.cutoffCycles === undefined
+            ? null
+            : { removedCount: stab.removedCount, removedDamage: stab.removedDamage, nearFactor: 2, nearCutoffShare: damage > 0 ? stab.nearDamage / damage : 0 },
+        beyondStrainLimit: this.beyond,
+        firstBeyondIndex: this.firstBeyond,
+        firstReversal: stab.firstReversal,
+      }),
+    };
   }
 }

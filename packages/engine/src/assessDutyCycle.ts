@@ -20,7 +20,7 @@ export interface DutyEvent {
   duration?: number;
 }
 
-const PARAMETER_UNITS: Record<string, string> = {
+export const PARAMETER_UNITS: Record<string, string> = {
   none: 'strain amplitude',
   morrow: 'strain amplitude',
   modifiedMorrow: 'strain amplitude',
@@ -238,7 +238,18 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     turnEvent: stabilised.turnEvent[row] >= 0 ? events[stabilised.turnEvent[row]].name : null,
   }));
 
-  const warnings = warningsOf(job, track, stabilised, damage, gate, removed);
+  let firstReversal = 0;
+  for (let i = 0; i < stabilised.count.length; i++) if (stabilised.reversalsToFailure[i] <= 1) firstReversal++;
+  const warnings = warningsOf(job, {
+    damage,
+    gate,
+    removed,
+    gateBound: removed > 0 ? gateDamageBound(job, track, gate, removed) : 0,
+    cutoff: job.cutoffCycles === undefined ? null : cutoffReport(stabilised, job.cutoffCycles, damage),
+    beyondStrainLimit: track.beyondStrainLimit,
+    firstBeyondIndex: track.firstBeyondIndex,
+    firstReversal,
+  });
   return {
     format: 'loopwise-life-report',
     version: 1,
@@ -418,7 +429,7 @@ function clampIndex(a: Float64Array): Float64Array {
 
 
 /** Service per repeat of the schedule: the job's `unit.perRepeat`, or the sum of the events' durations. */
-function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
+export function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
   if (job.unit === undefined) return undefined;
   if (events.some((e) => e.duration !== undefined)) {
     if (job.unit.perRepeat !== undefined) {
@@ -432,25 +443,33 @@ function serviceOf(job: ResolvedJob, events: DutyEvent[]): number | undefined {
   return job.unit.perRepeat;
 }
 
-function warningsOf(
-  job: ResolvedJob,
-  track: TrackedLoops,
-  loops: LifeLoopColumns,
-  damage: number,
-  gate: number,
-  removed: number,
-): LifeWarning[] {
+/** What the warnings are made from (internal; shared with the streaming session). */
+export interface WarningFacts {
+  damage: number;
+  gate: number;
+  removed: number;
+  /** Upper bound of the damage the gate removed. */
+  gateBound: number;
+  cutoff: { removedCount: number; removedDamage: number; nearFactor: number; nearCutoffShare: number } | null;
+  beyondStrainLimit: boolean;
+  firstBeyondIndex: number;
+  firstReversal: number;
+}
+
+/** The warnings of a report (internal). */
+export function warningsOf(job: ResolvedJob, f: WarningFacts): LifeWarning[] {
   const out: LifeWarning[] = [];
+  const { damage, gate, removed } = f;
   if (removed > 0) {
-    const bound = gateDamageBound(job, track, gate, removed);
+    const bound = f.gateBound;
     out.push({
       code: 'gate-removed-damage',
       message: `the gate of ${gate} removed ${removed} reversals per repeat; they could have done at most ${bound.toPrecision(3)} damage per repeat (${damage > 0 ? ((100 * bound) / damage).toPrecision(3) : '∞'} % of the counted damage)`,
       details: { gate, removedReversals: removed, damageBound: bound },
     });
   }
-  if (job.cutoffCycles !== undefined) {
-    const r = cutoffReport(loops, job.cutoffCycles, damage);
+  if (job.cutoffCycles !== undefined && f.cutoff !== null) {
+    const r = f.cutoff;
     if (r.removedCount > 0 || r.nearCutoffShare > 0.1) {
       out.push({
         code: 'cutoff-share',
@@ -459,21 +478,18 @@ function warningsOf(
       });
     }
   }
-  const state = track;
-  if (state.beyondStrainLimit) {
+  if (f.beyondStrainLimit) {
     out.push({
       code: 'beyond-material-model',
-      message: `local strain amplitude exceeds the strain-life curve at one reversal (from turning point ${state.firstBeyondIndex}); the material model is extrapolating and the load is near or beyond static failure`,
-      details: { firstBeyondPoint: state.firstBeyondIndex },
+      message: `local strain amplitude exceeds the strain-life curve at one reversal (from turning point ${f.firstBeyondIndex}); the material model is extrapolating and the load is near or beyond static failure`,
+      details: { firstBeyondPoint: f.firstBeyondIndex },
     });
   }
-  let firstReversal = 0;
-  for (let i = 0; i < loops.count.length; i++) if (loops.reversalsToFailure[i] <= 1) firstReversal++;
-  if (firstReversal > 0) {
+  if (f.firstReversal > 0) {
     out.push({
       code: 'first-reversal-failure',
-      message: `${firstReversal} loop(s) fail on the first reversal (beyond the strain-life curve or a mean stress at or above σf'); the life is not meaningful`,
-      details: { loops: firstReversal },
+      message: `${f.firstReversal} loop(s) fail on the first reversal (beyond the strain-life curve or a mean stress at or above σf'); the life is not meaningful`,
+      details: { loops: f.firstReversal },
     });
   }
   for (const w of job.material.warnings) {
@@ -507,7 +523,12 @@ function gateDamageBound(job: ResolvedJob, track: TrackedLoops, gate: number, re
       strain = r.strain[i];
     }
   }
-  if (stress === -Infinity) return 0;
+  return gateBoundAt(job, stress, strain, gate, removed);
+}
+
+/** The gate bound for a loop of the gate's range hanging from the point (stress, strain) (internal). */
+export function gateBoundAt(job: ResolvedJob, stress: number, strain: number, gate: number, removed: number): number {
+  if (stress === -Infinity || removed === 0) return 0;
   // only the history difference from the origin enters a branch: origin value 0, target -gate
   const low = branchResponse(trackerOptionsOf(job), { value: 0, stress, strain }, -gate);
   const loop = {
@@ -523,7 +544,7 @@ function gateDamageBound(job: ResolvedJob, track: TrackedLoops, gate: number, re
   return ((removed + 1) / 2) * perLoop;
 }
 
-function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {
+export function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {
   const m = job.material;
   return {
     material: { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },

@@ -6,4 +6,4 @@ export { assessLife } from './assessLife';
 export { assessDutyCycle, type DutyEvent } from './assessDutyCycle';
 export { compareCorrections, type CorrectionResult } from './compareCorrections';
 export { findLoadMargin, type MarginOptions, type MarginResult } from './findLoadMargin';
-export { LifeSession } from './LifeSession';
+export { LifeSession, type LifeSessionOptions } from './LifeSession';

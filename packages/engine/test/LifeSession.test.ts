@@ -73,3 +73,35 @@ describe('LifeSession', () => {
     expect(() => new LifeSession(job).finish()).toThrow(/no samples/);
   });
 });
+
+describe('LifeSession({ keepLoops: false })', () => {
+  test('running totals give the damage, life, worst loops and timeline totals of the kept-loop report', () => {
+    checkProperty(
+      'aggregate session = batch',
+      fc.property(
+        fc.array(fc.integer({ min: -400, max: 400 }), { minLength: 1, maxLength: 80 }),
+        fc.boolean(),
+        fc.constantFrom(0, 20),
+        fc.constantFrom(undefined, 2e4),
+        (history, repeating, gate, cutoffCycles) => {
+          const job = { material: sae1045, notch: { Kt: 2 }, repeating, gate, worstLoopCount: 5, ...(cutoffCycles ? { cutoffCycles } : {}) };
+          const batch = assessLife(history, job);
+          const s = new LifeSession(job, { keepLoops: false, timelineBinSize: 7 });
+          s.push(history);
+          if (s.secondPassSamples > 0) s.pushSecondPass(history);
+          const r = s.finish();
+          const close = (a: number, b: number) => Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+          expect(close(r.damage.perRepeat, batch.damage.perRepeat)).toBe(true);
+          expect(close(r.damage.firstPass, batch.damage.firstPass)).toBe(true);
+          expect(r.life.repeats === batch.life.repeats || close(r.life.repeats, batch.life.repeats)).toBe(true);
+          expect(r.loops.count.length).toBe(0);
+          expect(r.worstLoops.map((w) => w.damage)).toEqual(batch.worstLoops.map((w) => w.damage));
+          const sum = r.timeline.damage.reduce((a, b) => a + b, 0);
+          expect(close(sum, r.damage.perRepeat) || sum === r.damage.perRepeat).toBe(true);
+          expect(r.warnings.map((w) => w.code)).toEqual(batch.warnings.map((w) => w.code));
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+});

@@ -260,7 +260,8 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   const inputs = inputsOf(job);
   if (margin) return marginOf(job, values, io);
   const progress = progressOf(io, Boolean(values.quiet));
-  const results = await runAssessment(job, progress);
+  // the loop table is kept only when it is written (--cycles-out); otherwise memory stays flat
+  const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined });
   if (progress) io.stderr('\r\x1b[K');
   writeOutputs(values, results, inputs, command, null);
   io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));

@@ -59,18 +59,21 @@ function unitLabel(c: CliChannel): string {
 
 /**
  * Runs a job: one file streamed through one life session per channel (two reads of the file
- * for a repeating history; memory does not grow with the file), or a duty cycle of event files
+ * for a repeating history; with `keepLoops: false` memory does not grow with the file, and the
+ * reports list the worst loops but no loop table), or a duty cycle of event files
  * (each event read whole). With `meanStress: 'all'` the histories are held in memory and every
  * correction is assessed side by side.
  */
-export async function runAssessment(job: CliJob, progress?: Progress): Promise<ChannelResult[]> {
+export async function runAssessment(job: CliJob, progress?: Progress, settings: { keepLoops?: boolean } = {}): Promise<ChannelResult[]> {
   const main: DamageParameterName = job.meanStress === 'all' ? 'smithWatsonTopper' : job.meanStress;
   if (job.events !== null) return runDutyCycle(job, main);
   const file = job.file as string;
   if (job.meanStress === 'all' || !job.repeating || job.gateFraction !== undefined && job.fullScale === undefined) {
     return runInMemory(job, file, main);
   }
-  const sessions = job.channels.map((c) => new LifeSession(lifeJobOf(job, c, main)));
+  // without a loop table to write, loops are folded into running totals: memory stays flat
+  const keepLoops = settings.keepLoops ?? true;
+  const sessions = job.channels.map((c) => new LifeSession(lifeJobOf(job, c, main), { keepLoops }));
   const displays = job.channels.map(() => new DisplayHistory());
   const options = { channels: job.channels, ...(job.time ? { time: job.time } : {}) };
   const first = await readDelimited(file, {

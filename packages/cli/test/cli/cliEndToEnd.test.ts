@@ -38,7 +38,7 @@ describe('loopwise (built binary)', () => {
     const a = run([...args, '--json-out', 'a.json', '--cycles-out', 'a.csv', '--html-out', 'a.html']);
     expect(a.stderr).toBe('');
     expect(a.code).toBe(0);
-    const b = run([...args, '--json-out', 'b.json']);
+    const b = run([...args, '--json-out', 'b.json', '--cycles-out', 'b.csv']);
     expect(b.code).toBe(0);
     const ja = readFileSync(join(dir, 'a.json'), 'utf8');
     expect(ja).toBe(readFileSync(join(dir, 'b.json'), 'utf8'));
@@ -50,6 +50,10 @@ describe('loopwise (built binary)', () => {
     expect(csv[0]).toMatch(/^channel,start_sample/);
     expect(csv.length - 1).toBe(report.channels[0].report.loops.count.length);
     expect(readFileSync(join(dir, 'a.html'), 'utf8')).toMatch(/data-plot="history"/);
+    // without --cycles-out the loops are folded into totals as they close: same damage, no table
+    const c = JSON.parse((run([...args, '--json']).stdout));
+    expect(c.channels[0].report.loops.count).toEqual([]);
+    expect(Math.abs(c.results[0].damagePerRepeat / report.results[0].damagePerRepeat - 1)).toBeLessThan(1e-12);
   });
 
   test('loopwise assess --correction all lists every correction in one results table, for two channels', () => {

@@ -1,0 +1,134 @@
+import type { LoopColumns } from '@loopwise/notch';
+import type { Material } from '@loopwise/material';
+import type { DamageParameterName } from '@loopwise/mean-stress';
+import { evaluateLoops } from './evaluateLoops';
+import type { WorstLoop } from './LifeReport';
+
+/**
+ * Running totals of a stream of closed loops, for a life session that does not keep its loops
+ * (internal): compensated damage sum, the damage timeline in bins of a fixed number of samples,
+ * the most damaging loops, the cut-off and first-reversal counts and the highest local stress.
+ * Memory is O(bins + worst loops), whatever the number of loops.
+ */
+export class LoopAggregate {
+  damage = 0;
+  private comp = 0;
+  loops = 0;
+  firstReversal = 0;
+  removedCount = 0;
+  removedDamage = 0;
+  nearDamage = 0;
+  peakStress = -Infinity;
+  peakStrain = 0;
+  timeline: Float64Array;
+  readonly worst: WorstLoop[] = [];
+
+  constructor(
+    private readonly binSize: number,
+    private readonly worstCount: number,
+    private readonly cutoffCycles: number,
+  ) {
+    this.timeline = new Float64Array(64);
+  }
+
+  /** Evaluates and adds the loops of a drained table. */
+  add(cols: LoopColumns, material: Material, correction: DamageParameterName, walkerGamma: number | undefined): void {
+    const n = cols.stressMax.length;
+    if (n === 0) return;
+    const lives = evaluateLoops(cols, material, correction, walkerGamma);
+    const limit = this.cutoffCycles;
+    for (let i = 0; i < n; i++) {
+      const nf = lives.cyclesToFailure[i];
+      const count = cols.count[i];
+      this.loops++;
+      if (lives.reversalsToFailure[i] <= 1) this.firstReversal++;
+      if (cols.stressMax[i] > this.peakStress) {
+        this.peakStress = cols.stressMax[i];
+        this.peakStrain = cols.strainMax[i];
+      }
+      let d = count / nf;
+      if (nf > limit) {
+        this.removedCount += count;
+        if (nf < Infinity) this.removedDamage += d;
+        d = 0;
+      } else if (nf * 2 > limit) this.nearDamage += d;
+      const t = this.damage + d;
+      this.comp += Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage;
+      this.damage = t;
+      const start = cols.startIndex[i] < 0 ? 0 : cols.startIndex[i];
+      const turn = cols.turnIndex[i] < 0 ? 0 : cols.turnIndex[i];
+      this.bin(start, d / 2);
+      this.bin(turn, d / 2);
+      this.offerWorst(d, count, cols, lives.cyclesToFailure[i], i);
+    }
+  }
+
+  /** The compensated damage total. */
+  total(): number {
+    return this.damage + this.comp;
+  }
+
+  /** Adds another aggregate (a later part of the same pass). */
+  merge(other: LoopAggregate): void {
+    const d = other.total();
+    const t = this.damage + d;
+    this.comp += (Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage) + 0;
+    this.damage = t;
+    this.loops += other.loops;
+    this.firstReversal += other.firstReversal;
+    this.removedCount += other.removedCount;
+    this.removedDamage += other.removedDamage;
+    this.nearDamage += other.nearDamage;
+    if (other.peakStress > this.peakStress) {
+      this.peakStress = other.peakStress;
+      this.peakStrain = other.peakStrain;
+    }
+    this.ensureBins(other.timeline.length);
+    for (let k = 0; k < other.timeline.length; k++) this.timeline[k] += other.timeline[k];
+    for (const w of other.worst) this.insertWorst(w);
+  }
+
+  private bin(index: number, d: number): void {
+    const k = Math.floor(index / this.binSize);
+    this.ensureBins(k + 1);
+    this.timeline[k] += d;
+  }
+
+  private ensureBins(n: number): void {
+    if (n <= this.timeline.length) return;
+    let cap = this.timeline.length;
+    while (cap < n) cap *= 2;
+    const t = new Float64Array(cap);
+    t.set(this.timeline);
+    this.timeline = t;
+  }
+
+  private offerWorst(d: number, count: number, c: LoopColumns, nf: number, i: number): void {
+    if (this.worstCount === 0) return;
+    if (this.worst.length === this.worstCount && d <= this.worst[this.worst.length - 1].damage) return;
+    this.insertWorst({
+      row: -1,
+      damage: d,
+      share: 0,
+      count,
+      stressMax: c.stressMax[i],
+      stressMin: c.stressMin[i],
+      strainMax: c.strainMax[i],
+      strainMin: c.strainMin[i],
+      cyclesToFailure: nf,
+      startIndex: c.startIndex[i],
+      turnIndex: c.turnIndex[i],
+      startEvent: c.startIndex[i] < 0 ? null : 'history',
+      turnEvent: c.turnIndex[i] < 0 ? null : 'history',
+    });
+  }
+
+  private insertWorst(w: WorstLoop): void {
+    const list = this.worst;
+    let k = list.length;
+    while (k > 0 && list[k - 1].damage < w.damage) k--;
+    if (k >= this.worstCount) return;
+    list.splice(k, 0, w);
+    if (list.length > this.worstCount) list.pop();
+  }
+}
