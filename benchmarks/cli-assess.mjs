@@ -20,4 +20,4 @@ const t0 = performance.now();
 const [result] = await runAssessment(job, undefined, { keepLoops: false });
 const seconds = (performance.now() - t0) / 1000;
 const m = /VmHWM:\s+(\d+) kB/.exec(readFileSync('/proc/self/status', 'utf8'));
-console.log(JSON.stringify({ seconds, damage: result.report.damage.perRepeat, maxRssMB: m ? Number(m[1]) / 1024 : null }));
+console.log(JSON.stringify({ seconds, damage: result.report.damage.perRepeat, samples: result.report.timeline.samples, maxRssMB: m ? Number(m[1]) / 1024 : null }));

@@ -11,9 +11,25 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readDelimited } from '@loopwise/cli';
-import { referenceHistory } from '../../fixtures/generate.mjs';
+import { referenceHistory, referenceStream } from '../../fixtures/generate.mjs';
 
 const ROWS = 1e7;
+const BIG_ROWS = 1e8;
+
+/** Writes BIG_ROWS rows of the reference signal, generated chunk by chunk (never held whole). */
+async function writeBigFile(path) {
+  const out = createWriteStream(path);
+  out.write('time_s,strain_ue\n');
+  const source = referenceStream();
+  const chunk = new Float64Array(100000);
+  for (let done = 0; done < BIG_ROWS; done += chunk.length) {
+    source.fill(chunk);
+    const lines = new Array(chunk.length);
+    for (let k = 0; k < chunk.length; k++) lines[k] = `${((done + k) / 500).toFixed(4)},${(4 * chunk[k]).toFixed(2)}`;
+    if (!out.write(lines.join('\n') + '\n')) await new Promise((r) => out.once('drain', r));
+  }
+  await new Promise((r) => out.end(r));
+}
 
 async function writeFile(path, values) {
   const out = createWriteStream(path);
@@ -65,7 +81,24 @@ export async function run(h) {
     for (let i = 0; i < ROWS; i++) strains[i] = Number(values[i].toFixed(2)) / 1e6;
     const direct = assessLife(strains, { material, input: 'local-strain' }).damage.perRepeat;
     h.check(Math.abs(direct - out.damage) <= 1e-12 * direct, `command path ${out.damage} differs from the engine ${direct}`);
+    // the same on a 1e8-row file (about 1.9 GB): the memory must not grow with the file
+    const big = join(dir, 'reference-1e8.csv');
+    await writeBigFile(big);
+    const bigOut = JSON.parse(execFileSync(process.execPath, [child, big], { encoding: 'utf8', maxBuffer: 1 << 26 }));
+    h.check(bigOut.damage > 0 && Number.isFinite(bigOut.damage) && bigOut.samples === BIG_ROWS, 'the 1e8-row assessment is incomplete');
+    rmSync(big, { force: true });
     return [
+      {
+        figure: 'cli/peak RSS, assess a streamed 1e8-row file, repeating (MB)',
+        ratio: bigOut.maxRssMB,
+        baseline: 'absolute (MB, /proc/self/status VmHWM)',
+        baselineSeconds: null,
+        seconds: bigOut.seconds,
+        sizes: { rows: BIG_ROWS },
+        nsPerSample: (bigOut.seconds / BIG_ROWS) * 1e9,
+        nsPerReversal: null,
+        target: 256,
+      },
       {
         figure: 'cli/assess 1e7-row file end to end vs ingestion alone',
         ratio: out.seconds / ingestSeconds,

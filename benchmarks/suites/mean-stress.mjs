@@ -4,23 +4,12 @@
 // result is checked against a slow bisection reference so the figure cannot be fast and wrong.
 import { defineMaterial } from '@loopwise/material';
 import { damageParameters } from '@loopwise/mean-stress';
+import { mulberry32 } from '../../fixtures/generate.mjs';
 
 const LOOPS = 1_000_000;
 const CHECKED = 2_000;
 /** Target ratios from issue 3: at most 12 for SWT and Morrow; the others are reported only. */
 const TARGETS = { none: null, morrow: 12, modifiedMorrow: null, smithWatsonTopper: 12, walker: null };
-
-/** Seeded generator (mulberry32), so every run times the same loops. */
-function random(seed) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * 10^6 loops of a steel (SAE 1045 row of the handbook table, with Su for Walker): strain
@@ -28,7 +17,7 @@ function random(seed) {
  * linear-hardening guess (the solve does not need a consistent σa; invented data for timing).
  */
 function prepare() {
-  const rnd = random(20261201);
+  const rnd = mulberry32(20261201); // seeded, so every run times the same loops
   const sigmaMax = new Float64Array(LOOPS);
   const sigmaMin = new Float64Array(LOOPS);
   const epsilonMax = new Float64Array(LOOPS);
