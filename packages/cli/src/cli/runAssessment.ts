@@ -8,7 +8,7 @@ import {
   type LifeReport,
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
-import { readDelimited, readDelimitedColumns, type IngestReport } from '../ingest';
+import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '../ingest';
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
 import { DisplayHistory } from './DisplayHistory';
@@ -76,7 +76,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const sessions = job.channels.map((c) => new LifeSession(lifeJobOf(job, c, main), { keepLoops }));
   const displays = job.channels.map(() => new DisplayHistory());
   const options = { channels: job.channels, ...(job.time ? { time: job.time } : {}) };
-  const first = await readDelimited(file, {
+  // parsing runs on a second core while the sessions assess the chunks here
+  const first = await readDelimitedParallel(file, {
     ...options,
     onChunk: (chunk) => {
       chunk.channels.forEach((values, k) => {
@@ -89,7 +90,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const need = Math.max(...sessions.map((s) => s.secondPassSamples));
   if (need > 0) {
     // the stabilised pass needs the samples up to the largest |value| once more: read them again
-    await readDelimited(file, {
+    await readDelimitedParallel(file, {
       ...options,
       checks: false,
       onChunk: (chunk) => {

@@ -12,3 +12,4 @@ export { TimeAxisCheck } from './TimeAxisCheck.js';
 export type { TimeAxisSummary } from './TimeAxisCheck.js';
 export { IngestError, IngestOptionError } from './IngestError.js';
 export type { IngestErrorCode } from './IngestError.js';
+export { readDelimitedParallel } from './readDelimitedParallel.js';

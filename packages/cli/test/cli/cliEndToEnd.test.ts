@@ -140,3 +140,21 @@ describe('loopwise bad input: exit 2, one line naming where, no partial output',
     });
   }
 });
+
+describe('readDelimitedParallel (built package, parsing on a worker thread)', () => {
+  test('delivers the same chunks and report as readDelimited, and the same errors', async () => {
+    const dist = await import(new URL('../../dist/index.js', import.meta.url).href);
+    const file = join(dir, 'rig.csv');
+    const channels = [{ column: 'strain_ue', quantity: 'strain', unit: 'microstrain' }];
+    const collect = async (read: (p: string, o: unknown) => Promise<unknown>) => {
+      const parts: number[] = [];
+      const report = await read(file, { channels, chunkSamples: 333, onChunk: (c: { firstSample: number; channels: Float64Array[] }) => parts.push(c.firstSample, ...c.channels[0]) });
+      return { parts, report };
+    };
+    const worker = await collect(dist.readDelimitedParallel);
+    const local = await collect(dist.readDelimited);
+    expect(worker.parts).toEqual(local.parts);
+    expect(worker.report).toEqual(local.report);
+    await expect(dist.readDelimitedParallel(join(dir, 'text.csv'), { channels: [{ column: 'b', quantity: 'stress', unit: 'MPa' }] })).rejects.toThrow(/text\.csv, line 3, column 2/);
+  });
+});
