@@ -1,4 +1,4 @@
-import { existsSync } from 'node:fs';
+import { closeSync, existsSync, openSync, readSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
@@ -238,14 +238,35 @@ function inputsOf(job: CliJob): string[] {
   return files;
 }
 
-function progressOf(io: Io, quiet: boolean) {
-  if (quiet || !io.stderrIsTerminal) return undefined;
+/**
+ * A progress bar on stderr while a file is read, only when stderr is a terminal. The total is
+ * estimated from the file size and the bytes per line of its first 64 KiB.
+ */
+function progressOf(io: Io, quiet: boolean, file: string | null) {
+  if (quiet || !io.stderrIsTerminal || file === null) return undefined;
+  let estimate = 0;
+  try {
+    const size = statSync(file).size;
+    const head = Buffer.alloc(Math.min(size, 65536));
+    const fd = openSync(file, 'r');
+    readSync(fd, head, 0, head.length, 0);
+    closeSync(fd);
+    let lines = 0;
+    for (const b of head) if (b === 10) lines++;
+    estimate = lines > 0 ? (size / head.length) * lines : 0;
+  } catch {
+    estimate = 0;
+  }
   let last = 0;
   return (samples: number, pass: 1 | 2) => {
     const now = Date.now();
     if (now - last < 200) return;
     last = now;
-    io.stderr(`\r${pass === 1 ? 'reading' : 'second read'}: ${samples.toLocaleString('en-US')} samples`);
+    const share = estimate > 0 ? Math.min(1, samples / estimate) : 0;
+    const width = 30;
+    const filled = Math.round(share * width);
+    const bar = estimate > 0 ? `[${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${String(Math.round(100 * share)).padStart(3)} % ` : '';
+    io.stderr(`\r${pass === 1 ? 'reading    ' : 'second read'} ${bar}${samples.toLocaleString('en-US')} samples`);
   };
 }
 
@@ -259,7 +280,7 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   const job = jobFromFlags(values, positionals, command);
   const inputs = inputsOf(job);
   if (margin) return marginOf(job, values, io);
-  const progress = progressOf(io, Boolean(values.quiet));
+  const progress = progressOf(io, Boolean(values.quiet), job.file);
   // the loop table is kept only when it is written (--cycles-out); otherwise memory stays flat
   const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined });
   if (progress) io.stderr('\r\x1b[K');

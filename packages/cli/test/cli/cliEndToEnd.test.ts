@@ -158,3 +158,17 @@ describe('readDelimitedParallel (built package, parsing on a worker thread)', ()
     await expect(dist.readDelimitedParallel(join(dir, 'text.csv'), { channels: [{ column: 'b', quantity: 'stress', unit: 'MPa' }] })).rejects.toThrow(/text\.csv, line 3, column 2/);
   });
 });
+
+describe('progress display', () => {
+  test('a progress bar goes to stderr only when stderr is a terminal', async () => {
+    const { main } = await import(new URL('../../dist/index.js', import.meta.url).href);
+    const args = ['assess', join(dir, 'rig.csv'), '--column', '2', '--material', 'SAE 1045'];
+    for (const terminal of [true, false]) {
+      let err = '';
+      const code = await main(args, { stdout: () => {}, stderr: (t: string) => (err += t), stderrIsTerminal: terminal });
+      expect(code).toBe(0);
+      if (terminal) expect(err).toMatch(/reading +\[#+\.*\] +\d+ % [\d,]+ samples/);
+      else expect(err).toBe('');
+    }
+  });
+});
