@@ -306,7 +306,25 @@ export async function readDelimitedColumns(
   options: Omit<IngestOptions, 'onChunk'>,
 ): Promise<{ report: IngestReport; channels: Float64Array[]; time: Float64Array | null }> {
   const n = options.channels.length;
+  // size the columns once from the file: its length over the bytes per line of its head
   let capacity = 1 << 16;
+  try {
+    const st = await stat(path);
+    if (st.isFile() && st.size > 0) {
+      const handle = await open(path, 'r');
+      try {
+        const head = Buffer.alloc(Math.min(st.size, 1 << 16));
+        const { bytesRead } = await handle.read(head, 0, head.length, 0);
+        let lines = 0;
+        for (let i = 0; i < bytesRead; i++) if (head[i] === 10) lines++;
+        if (lines > 0) capacity = Math.max(capacity, Math.ceil((1.02 * st.size * lines) / bytesRead) + 1024);
+      } finally {
+        await handle.close();
+      }
+    }
+  } catch {
+    // readDelimited reports a missing or unreadable file with its own error
+  }
   let channels: Float64Array[] = Array.from({ length: n }, () => new Float64Array(capacity));
   let time: Float64Array | null = null;
   let length = 0;
@@ -326,7 +344,9 @@ export async function readDelimitedColumns(
       length += chunk.length;
     },
   });
-  return { report, channels: channels.map((c) => c.slice(0, length)), time: time ? (time as Float64Array).slice(0, length) : null };
+  // a view when the estimate was close (no copy of millions of rows), a trimmed copy otherwise
+  const trim = (c: Float64Array) => (c.length - length <= c.length / 4 ? c.subarray(0, length) : c.slice(0, length));
+  return { report, channels: channels.map(trim), time: time ? trim(time as Float64Array) : null };
 }
 
 function grow(a: Float64Array, capacity: number, used: number): Float64Array {
@@ -340,31 +360,48 @@ async function scanFile(handle: import('node:fs/promises').FileHandle, scanner: 
   let work = Buffer.allocUnsafe(Math.max(2 * chunkBytes, 4096) + 1);
   let carry = 0;
   let filePos = from;
-  for (;;) {
-    if (carry + chunkBytes + 1 > work.length) {
-      const bigger = Buffer.allocUnsafe(2 * (carry + chunkBytes) + 1);
-      work.copy(bigger, 0, 0, carry);
-      work = bigger;
+  // double buffering: the next chunk is read while this one is scanned
+  const buffers = [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)];
+  let which = 0;
+  let next: Promise<{ bytesRead: number }> | null = handle.read(buffers[which], 0, chunkBytes, filePos);
+  try {
+    for (;;) {
+      const { bytesRead } = await (next as Promise<{ bytesRead: number }>);
+      next = null;
+      const got = buffers[which];
+      const readAt = filePos;
+      filePos += bytesRead;
+      if (carry + bytesRead + 1 > work.length) {
+        const bigger = Buffer.allocUnsafe(2 * (carry + bytesRead) + 1);
+        work.copy(bigger, 0, 0, carry);
+        work = bigger;
+      }
+      got.copy(work, carry, 0, bytesRead);
+      if (bytesRead > 0) {
+        which ^= 1;
+        next = handle.read(buffers[which], 0, chunkBytes, filePos);
+      }
+      const workOffset = readAt - carry;
+      let len = carry + bytesRead;
+      if (bytesRead === 0) {
+        if (len === 0) return -1;
+        work[len++] = 10; // the last line has no line feed
+        const r = scanner.scan(work, 0, len);
+        return r === SCAN_QUOTED ? workOffset + scanner.stopOffset : -1;
+      }
+      const lastLineFeed = work.lastIndexOf(10, len - 1);
+      if (lastLineFeed < carry) {
+        carry = len;
+        continue;
+      }
+      const r = scanner.scan(work, 0, lastLineFeed + 1);
+      if (r === SCAN_QUOTED) return workOffset + scanner.stopOffset;
+      work.copy(work, 0, lastLineFeed + 1, len);
+      carry = len - lastLineFeed - 1;
     }
-    const workOffset = filePos - carry;
-    const { bytesRead } = await handle.read(work, carry, chunkBytes, filePos);
-    filePos += bytesRead;
-    let len = carry + bytesRead;
-    if (bytesRead === 0) {
-      if (len === 0) return -1;
-      work[len++] = 10; // the last line has no line feed
-      const r = scanner.scan(work, 0, len);
-      return r === SCAN_QUOTED ? workOffset + scanner.stopOffset : -1;
-    }
-    const lastLineFeed = work.lastIndexOf(10, len - 1);
-    if (lastLineFeed < carry) {
-      carry = len;
-      continue;
-    }
-    const r = scanner.scan(work, 0, lastLineFeed + 1);
-    if (r === SCAN_QUOTED) return workOffset + scanner.stopOffset;
-    work.copy(work, 0, lastLineFeed + 1, len);
-    carry = len - lastLineFeed - 1;
+  } finally {
+    // no read may still be running when the caller closes the file
+    if (next) await next.catch(() => undefined);
   }
 }
 
