@@ -41,6 +41,9 @@ export interface TrackedLoops {
   reusedFirstPass: boolean;
 }
 
+/** Samples per piece of the first pass (the largest-|value| search stays in cache). */
+const PIECE = 16384;
+
 /** What {@link trackSchedule} returns (internal). */
 export interface ScheduleTrack extends TrackedLoops {
   /** Turning points the tracker was fed (repeats not materialised are not counted). */
@@ -68,20 +71,10 @@ export interface ScheduleTrack extends TrackedLoops {
 export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOptions, repeating: boolean): ScheduleTrack {
   const t = new NotchTracker({ ...options, recordReversals: false });
   const offset = t.options.offset;
-  // the schedule's first turning point of largest |value|
+  // the schedule's first point of largest |value|, found piece by piece during the first pass
   let peakEvent = -1;
   let peakPoint = -1;
   let best = -1;
-  events.forEach((e, k) => {
-    for (let i = 0; i < e.values.length; i++) {
-      const a = Math.abs(e.values[i] + offset);
-      if (a > best) {
-        best = a;
-        peakEvent = k;
-        peakPoint = i;
-      }
-    }
-  });
   // points the passes will push (repeats stop after about two copies), to size the tables once
   let expected = 0;
   for (const e of events) expected += e.values.length * Math.min(e.repeats, 3);
@@ -89,17 +82,14 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
   let pushed = 0;
   let reserved = false;
   const push = (e: ScheduleEvent, from: number, to: number) => {
-    if (!reserved && to - from > 65536) {
-      // a first piece sets the loop rate; then the tables are sized for the whole schedule, so
+    t.pushRange(e.values, from, to);
+    pushed += to - from;
+    if (!reserved && pushed >= 65536) {
+      // the first points set the loop rate; then the tables are sized for the whole schedule, so
       // tables of millions of rows are not copied at every doubling
-      t.pushRange(e.values, from, from + 65536);
-      pushed += 65536;
-      from += 65536;
       t.reserveFor(expected);
       reserved = true;
     }
-    t.pushRange(e.values, from, to);
-    pushed += to - from;
   };
 
   // first pass
@@ -113,12 +103,36 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
     for (let r = 1; r <= e.repeats; r++) {
       const before = t.loops.length;
       t.restartIndex(e.ordinalBase);
-      if (r === 1 && k === peakEvent) {
-        push(e, 0, peakPoint + 1);
-        peakSnapshot = t.snapshot();
-        peakRow = t.loops.length;
-        peakSegment = first.length;
-        push(e, peakPoint + 1, e.values.length);
+      if (r === 1) {
+        // In pieces small enough to stay in cache: a piece whose largest |value| beats every
+        // earlier one is split there and the memory is saved (repeats bring no new values).
+        const v = e.values;
+        const n = v.length;
+        for (let s = 0; s < n; s += PIECE) {
+          const end = Math.min(n, s + PIECE);
+          let j = -1;
+          let top = best;
+          for (let i = s; i < end; i++) {
+            const x = v[i] + offset;
+            const a = x < 0 ? -x : x;
+            if (a > top) {
+              top = a;
+              j = i;
+            }
+          }
+          if (j < 0) {
+            push(e, s, end);
+            continue;
+          }
+          push(e, s, j + 1);
+          best = top;
+          peakEvent = k;
+          peakPoint = j;
+          peakSnapshot = t.snapshot();
+          peakRow = t.loops.length;
+          peakSegment = first.length;
+          push(e, j + 1, end);
+        }
       } else {
         push(e, 0, e.values.length);
       }
