@@ -11,7 +11,7 @@ import type { DamageParameterName } from '@loopwise/mean-stress';
 import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '../ingest';
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
-import { DisplayHistory } from './DisplayHistory';
+import { DisplayHistory } from '../report/displayHistory';
 
 /** The result of one channel. */
 export interface ChannelResult {

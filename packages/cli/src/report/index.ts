@@ -1,3 +1,3 @@
 export { renderHtmlReport } from './renderHtmlReport.js';
-export { displayHistory } from './displayHistory.js';
+export { DisplayHistory, displayHistory } from './displayHistory.js';
 export type { HtmlChannel, HtmlHistory, HtmlMatrix, HtmlReportInput } from './HtmlReportInput.js';
