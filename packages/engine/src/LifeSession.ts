@@ -19,6 +19,8 @@ import type { LifeReport } from './LifeReport';
 import type { LoopSegment } from './trackSchedule';
 
 const BLOCK = 65536;
+/** Points per piece of the first pass's largest-|value| search. */
+const PIECE = 16384;
 
 /** Options of {@link LifeSession}. */
 export interface LifeSessionOptions {
@@ -127,7 +129,7 @@ export class LifeSession {
     if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
     if (this.gate === 0) {
       try {
-        this.feedRawFirst(chunk);
+        this.feedFirstPass(chunk, null, chunk.length, this.samples);
       } catch (err) {
         if (err instanceof NotchSampleError) {
           throw new EngineError('invalid-history', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index);
@@ -140,7 +142,7 @@ export class LifeSession {
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
       const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
-      this.feedFirst(k);
+      this.feedFirstPass(this.tv, this.ti, k, 0);
     }
     this.samples += chunk.length;
     return this;
@@ -226,49 +228,48 @@ export class LifeSession {
     this.current = this.aggregate();
   }
 
-  /** Pushes raw samples of the first pass (no gate), splitting at each new largest |value|. */
-  private feedRawFirst(chunk: ArrayLike<number>): void {
+  /**
+   * Pushes points of the first pass: raw samples (indices null: sample indices from `base`) or
+   * turning points with their indices. In pieces that stay in cache, a piece whose largest
+   * |value| beats every earlier one is split there: loops closed so far belong to the first
+   * pass only, and the memory at that point is saved for the second pass. One split per piece
+   * at most, so a steadily growing history costs no more than any other.
+   */
+  private feedFirstPass(values: ArrayLike<number>, indices: Float64Array | null, count: number, base: number): void {
     const off = this.job.offset;
-    let from = 0;
-    for (let j = 0; j < chunk.length; j++) {
-      const x = chunk[j] + off;
-      const a = x < 0 ? -x : x;
-      if (a > this.best) {
-        this.best = a;
-        this.tracker.pushRange(chunk, from, j + 1);
-        from = j + 1;
-        this.drain();
-        this.newPeak();
-        this.peakIndex = this.samples + j;
-        this.peakValue = chunk[j];
-        this.peakRow = this.loops.length;
-        this.peakSnapshot = this.tracker.snapshot();
+    for (let s = 0; s < count; s += PIECE) {
+      const end = Math.min(count, s + PIECE);
+      let j = -1;
+      let top = this.best;
+      for (let i = s; i < end; i++) {
+        const x = values[i] + off;
+        const a = x < 0 ? -x : x;
+        if (a > top) {
+          top = a;
+          j = i;
+        }
       }
+      if (j < 0) {
+        this.pushPart(values, indices, s, end);
+        continue;
+      }
+      this.pushPart(values, indices, s, j + 1);
+      this.drain();
+      this.newPeak();
+      this.best = top;
+      this.peakIndex = indices === null ? base + j : indices[j];
+      this.peakValue = values[j];
+      this.peakRow = this.loops.length;
+      this.peakSnapshot = this.tracker.snapshot();
+      this.pushPart(values, indices, j + 1, end);
     }
-    if (from < chunk.length) this.tracker.pushRange(chunk, from, chunk.length);
     this.drain();
   }
 
-  /** Feeds k turning points of the first pass, splitting at each new largest |value|. */
-  private feedFirst(k: number): void {
-    const off = this.job.offset;
-    let from = 0;
-    for (let j = 0; j < k; j++) {
-      const a = Math.abs(this.tv[j] + off);
-      if (a > this.best) {
-        this.best = a;
-        this.tracker.pushIndexed(this.tv, this.ti, from, j + 1);
-        from = j + 1;
-        this.drain();
-        this.newPeak();
-        this.peakIndex = this.ti[j];
-        this.peakValue = this.tv[j];
-        this.peakRow = this.loops.length;
-        this.peakSnapshot = this.tracker.snapshot();
-      }
-    }
-    if (from < k) this.tracker.pushIndexed(this.tv, this.ti, from, k);
-    this.drain();
+  private pushPart(values: ArrayLike<number>, indices: Float64Array | null, from: number, to: number): void {
+    if (to <= from) return;
+    if (indices === null) this.tracker.pushRange(values, from, to);
+    else this.tracker.pushIndexed(values, indices, from, to);
   }
 
   private feed(k: number): void {
@@ -297,7 +298,7 @@ export class LifeSession {
       return;
     }
     // the last extreme is a turning point too
-    if (this.gate > 0) this.feedFirst(this.filter.pendingInto(this.tv, this.ti, 0));
+    if (this.gate > 0) this.feedFirstPass(this.tv, this.ti, this.filter.pendingInto(this.tv, this.ti, 0), 0);
     this.removed = this.filter.removedCount;
     this.firstRows = this.loops.length;
     this.firstResidue = this.tracker.residue();

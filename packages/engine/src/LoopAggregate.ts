@@ -72,7 +72,7 @@ export class LoopAggregate {
   merge(other: LoopAggregate): void {
     const d = other.total();
     const t = this.damage + d;
-    this.comp += (Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage) + 0;
+    this.comp += Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage;
     this.damage = t;
     this.loops += other.loops;
     this.firstReversal += other.firstReversal;

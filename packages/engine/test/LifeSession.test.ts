@@ -42,6 +42,12 @@ describe('LifeSession', () => {
     );
   });
 
+  test('a steadily growing history (a new largest value at every sample) streams like any other', () => {
+    const history = Array.from({ length: 200000 }, (_, i) => 0.002 * i + 30 * Math.sin(i / 7));
+    const job = { material: sae1045, notch: { Kt: 2 }, timelineBins: 5 };
+    expect(plain(streamed(history, [50000, 120000], job))).toBe(plain(assessLife(history, job)));
+  });
+
   test('the second pass needs only the samples up to the largest |value|', () => {
     const history = [0, 100, -50, 300, -120, 80, -60, 40];
     const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } });
