@@ -4,7 +4,6 @@ import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { findLoadMargin, type DutyEvent } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
-import type { DamageParameterName } from '@loopwise/mean-stress';
 import { RainflowCounter, RangeMeanMatrix, CycleTable } from '@loopwise/rainflow';
 import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
@@ -126,6 +125,14 @@ function parse<O extends Record<string, { type: 'string' | 'boolean'; multiple?:
 
 const MARGIN = { 'target-repeats': { type: 'string' }, 'target-life': { type: 'string' } } as const;
 
+/** A choice option: one of `allowed`, with the option named in the error; undefined when absent. */
+function oneOf<T extends string>(values: Record<string, unknown>, name: string, allowed: readonly T[]): T | undefined {
+  const v = values[name];
+  if (v === undefined) return undefined;
+  if (!allowed.includes(v as T)) throw new UsageError(`--${name}: one of ${allowed.join(', ')}, got "${String(v)}"`);
+  return v as T;
+}
+
 /** A number option: finite, with the option named in the error. */
 function num(values: Record<string, unknown>, name: string): number | undefined {
   const v = values[name];
@@ -197,10 +204,10 @@ function jobFromFlags(values: Record<string, unknown>, positionals: string[], co
       : su !== undefined
         ? { estimate: { method: 'uniform-material-law', SuMPa: su } }
         : { estimate: { method: 'hardness', hardnessHB: hb as number } };
-  const correction = (values.correction as string | undefined) ?? 'smithWatsonTopper';
+  const correction = oneOf(values, 'correction', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'] as const) ?? 'smithWatsonTopper';
   const job: CliJob = {
     material: resolveMaterial(spec, process.cwd(), '--material'),
-    meanStress: correction as DamageParameterName | 'all',
+    meanStress: correction,
     scatterFactor: num(values, 'scatter-factor') ?? 1,
     repeating: !values['one-off'],
     channels: channelsOf(values),
@@ -209,7 +216,7 @@ function jobFromFlags(values: Record<string, unknown>, positionals: string[], co
   };
   const kt = num(values, 'kt');
   const kf = num(values, 'kf');
-  const rule = values.rule as CliJob['notch'] extends infer N ? (N extends { rule?: infer R } ? R : never) : never;
+  const rule = oneOf(values, 'rule', ['neuber', 'glinka', 'linear'] as const);
   if (kt !== undefined || kf !== undefined || rule !== undefined) {
     job.notch = {};
     if (kt !== undefined) job.notch.Kt = kt;
@@ -468,17 +475,16 @@ function materialCommand(args: string[], io: Io): number {
   const hb = num(values, 'hardness');
   if ((su === undefined) === (hb === undefined)) throw new UsageError('--su or --hardness: give exactly one (or --list)');
   const E = num(values, 'e');
-  const method = (values.method as string | undefined) ?? 'uniform-material-law';
-  const spec: MaterialSpec =
-    hb !== undefined
-      ? { estimate: { method: 'hardness', hardnessHB: hb, ...(E ? { EMPa: E } : {}) } }
-      : method === 'modified-universal-slopes'
-        ? { estimate: { method, SuMPa: su as number, reductionOfArea: num(values, 'reduction-of-area') ?? NaN, ...(E ? { EMPa: E } : {}) } }
-        : method === 'uniform-material-law'
-          ? { estimate: { method, SuMPa: su as number, metal: ((values.metal as string) ?? 'steel') as 'steel', ...(E ? { EMPa: E } : {}) } }
-          : (() => {
-              throw new UsageError(`--method: uniform-material-law or modified-universal-slopes, got "${method}"`);
-            })();
+  const method = oneOf(values, 'method', ['uniform-material-law', 'modified-universal-slopes'] as const) ?? 'uniform-material-law';
+  const metal = oneOf(values, 'metal', ['steel', 'aluminium-titanium'] as const) ?? 'steel';
+  const withE = E ? { EMPa: E } : {};
+  let spec: MaterialSpec;
+  if (hb !== undefined) spec = { estimate: { method: 'hardness', hardnessHB: hb, ...withE } };
+  else if (method === 'modified-universal-slopes') {
+    const ra = num(values, 'reduction-of-area');
+    if (ra === undefined) throw new UsageError('--reduction-of-area: modified universal slopes need the reduction of area (0 … 1)');
+    spec = { estimate: { method, SuMPa: su as number, reductionOfArea: ra, ...withE } };
+  } else spec = { estimate: { method, SuMPa: su as number, metal, ...withE } };
   const m = resolveMaterial(spec, process.cwd(), '--su');
   const text = stableJson({ ...m, warnings: m.warnings }) + '\n';
   if (values.out) writeOutputAtomic(values.out as string, text, []);
