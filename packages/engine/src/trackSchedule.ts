@@ -92,96 +92,91 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
     }
   };
 
-  // first pass
+  /**
+   * One pass over the schedule: each event's repeats in a row, the loops of each repeat as a
+   * segment; once the memory after a repeat equals the memory after the one before, the
+   * remaining repeats close the same loops and are counted by weight. `firstRepeat` pushes the
+   * first repeat of an event (starting at loop row `before`) and returns false to end the pass.
+   */
+  const pass = (segments: LoopSegment[], firstRepeat: (e: ScheduleEvent, k: number, before: number) => boolean): void => {
+    for (let k = 0; k < events.length; k++) {
+      const e = events[k];
+      let previous: ReturnType<NotchTracker['snapshot']> | null = null;
+      for (let r = 1; r <= e.repeats; r++) {
+        const before = t.loops.length;
+        t.restartIndex(e.ordinalBase);
+        if (r > 1) push(e, 0, e.values.length);
+        else if (!firstRepeat(e, k, before)) return;
+        const segment: LoopSegment = { from: before, to: t.loops.length, weight: 1 };
+        segments.push(segment);
+        if (r === e.repeats) break;
+        if (previous !== null && t.matches(previous)) {
+          segment.weight += e.repeats - r; // every further repeat closes the same loops
+          break;
+        }
+        previous = t.snapshot();
+      }
+    }
+  };
+
+  // first pass: in pieces small enough to stay in cache, a piece whose largest |value| beats
+  // every earlier one is split there and the memory is saved (repeats bring no new values)
   const first: LoopSegment[] = [];
   let peakSnapshot: ReturnType<NotchTracker['snapshot']> | null = null;
   let peakRow = -1;
   let peakSegment = -1;
-  for (let k = 0; k < events.length; k++) {
-    const e = events[k];
-    let previous: ReturnType<NotchTracker['snapshot']> | null = null;
-    for (let r = 1; r <= e.repeats; r++) {
-      const before = t.loops.length;
-      t.restartIndex(e.ordinalBase);
-      if (r === 1) {
-        // In pieces small enough to stay in cache: a piece whose largest |value| beats every
-        // earlier one is split there and the memory is saved (repeats bring no new values).
-        const v = e.values;
-        const n = v.length;
-        for (let s = 0; s < n; s += PIECE) {
-          const end = Math.min(n, s + PIECE);
-          let j = -1;
-          let top = best;
-          for (let i = s; i < end; i++) {
-            const x = v[i] + offset;
-            const a = x < 0 ? -x : x;
-            if (a > top) {
-              top = a;
-              j = i;
-            }
-          }
-          if (j < 0) {
-            push(e, s, end);
-            continue;
-          }
-          push(e, s, j + 1);
-          best = top;
-          peakEvent = k;
-          peakPoint = j;
-          peakSnapshot = t.snapshot();
-          peakRow = t.loops.length;
-          peakSegment = first.length;
-          push(e, j + 1, end);
+  pass(first, (e, k) => {
+    const v = e.values;
+    const n = v.length;
+    for (let s = 0; s < n; s += PIECE) {
+      const end = Math.min(n, s + PIECE);
+      let j = -1;
+      let top = best;
+      for (let i = s; i < end; i++) {
+        const x = v[i] + offset;
+        const a = x < 0 ? -x : x;
+        if (a > top) {
+          top = a;
+          j = i;
         }
-      } else {
-        push(e, 0, e.values.length);
       }
-      const segment: LoopSegment = { from: before, to: t.loops.length, weight: 1 };
-      first.push(segment);
-      if (r === e.repeats) break;
-      if (previous !== null && t.matches(previous)) {
-        segment.weight += e.repeats - r; // every further repeat closes the same loops
-        break;
+      if (j < 0) {
+        push(e, s, end);
+        continue;
       }
-      previous = t.snapshot();
+      push(e, s, j + 1);
+      best = top;
+      peakEvent = k;
+      peakPoint = j;
+      peakSnapshot = t.snapshot();
+      peakRow = t.loops.length;
+      peakSegment = first.length;
+      push(e, j + 1, end);
     }
-  }
+    return true;
+  });
   const firstResidue = t.residue();
   if (!repeating) return finish(t, first, first, firstResidue, false, pushed);
 
-  // stabilised pass
+  // stabilised pass: up to the largest |value|, then the first pass's loops if the memories agree
   const stabilised: LoopSegment[] = [];
   let reused = false;
-  outer: for (let k = 0; k < events.length; k++) {
-    const e = events[k];
-    let previous: ReturnType<NotchTracker['snapshot']> | null = null;
-    for (let r = 1; r <= e.repeats; r++) {
-      const before = t.loops.length;
-      t.restartIndex(e.ordinalBase);
-      if (r === 1 && k === peakEvent && peakSnapshot !== null) {
-        push(e, 0, peakPoint + 1);
-        if (t.matches(peakSnapshot)) {
-          stabilised.push({ from: before, to: t.loops.length, weight: 1 });
-          const s = first[peakSegment];
-          stabilised.push({ from: peakRow, to: s.to, weight: 1 });
-          for (let j = peakSegment + 1; j < first.length; j++) stabilised.push({ ...first[j] });
-          reused = true;
-          break outer;
-        }
-        push(e, peakPoint + 1, e.values.length);
-      } else {
-        push(e, 0, e.values.length);
-      }
-      const segment: LoopSegment = { from: before, to: t.loops.length, weight: 1 };
-      stabilised.push(segment);
-      if (r === e.repeats) break;
-      if (previous !== null && t.matches(previous)) {
-        segment.weight += e.repeats - r;
-        break;
-      }
-      previous = t.snapshot();
+  pass(stabilised, (e, k, before) => {
+    if (k !== peakEvent || peakSnapshot === null) {
+      push(e, 0, e.values.length);
+      return true;
     }
-  }
+    push(e, 0, peakPoint + 1);
+    if (!t.matches(peakSnapshot)) {
+      push(e, peakPoint + 1, e.values.length);
+      return true;
+    }
+    stabilised.push({ from: before, to: t.loops.length, weight: 1 });
+    stabilised.push({ from: peakRow, to: first[peakSegment].to, weight: 1 });
+    for (let j = peakSegment + 1; j < first.length; j++) stabilised.push({ ...first[j] });
+    reused = true;
+    return false;
+  });
   return finish(t, first, stabilised, firstResidue, reused, pushed);
 }
 
