@@ -5,6 +5,15 @@ import { solveEnergyEquation } from './solveEnergyEquation';
 const CELL_BITS = 6;
 /** Doubles per cell: left end, 1 / width, four cubic coefficients. */
 const STRIDE = 6;
+/**
+ * Cells per binade of the answer tables, tried in this order: the first whose verified error
+ * meets the tolerance with the margin below is used.
+ */
+const ANSWER_BITS = [8, 9];
+/** An answer table serves a tolerance at least this many times its verified worst error. */
+const ANSWER_MARGIN = 10;
+/** Doubles per answer cell: left end, 1 / width, four cubic coefficients of σ, four of ε. */
+const ANSWER_STRIDE = 10;
 /** Index of the 32-bit word of a binary64 that holds its sign, exponent and leading bits. */
 const HI_WORD = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
 
@@ -24,6 +33,15 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * a's binary64 encoding, without a logarithm; nodes are solved exactly, slopes come from the
  * implicit derivative ds/dt = 2/F'(s) (t = ln a).
  * Below the table (nearly elastic) the start is σ = a, above it the full log-space solve runs.
+ *
+ * At looser tolerances an answer table skips the Newton step: cubic Hermite pieces of σ(a) and
+ * ε(a) themselves (nodes solved to 1e-15, slopes from the implicit derivative), 2^8 or 2^9
+ * cells per binade from where the plastic term is 1e-17 of the elastic one (below, σ = a and
+ * ε = a/E hold to rounding) up to the start table's end. When the table is built, its error
+ * is measured against the exact solve at three points in every cell (a quarter, half and
+ * three quarters across, where a cubic Hermite piece errs most); the solver uses it only when
+ * the tolerance is at least ANSWER_MARGIN × that worst error (in practice tolerances from
+ * about 2e-11 up). Answer tables are built once per material and rule and shared.
  * Linear rule and local strain use the cyclic-curve inverse of @loopwise/material.
  */
 export class BranchSolver {
@@ -49,6 +67,11 @@ export class BranchSolver {
   private readonly bitsHi = new Uint32Array(this.bits.buffer, HI_WORD * 4, 1);
   private readonly tol: number = 0;
   private readonly maxIterations: number = 0;
+  /** The answer table in use (empty when the tolerance needs Newton steps), its first cell key, cells and cell bits. */
+  private readonly ans: Float64Array;
+  private readonly ansKeyLo: number = 0;
+  private readonly ansCells: number = 0;
+  private readonly ansShift: number = 0;
 
   constructor(
     private readonly material: Material,
@@ -105,6 +128,11 @@ export class BranchSolver {
       sL = sj;
       dL = dj;
     }
+    const answers = table ? answerTableFor(material, kind, tolerance) : null;
+    this.ans = answers !== null ? answers.tab : new Float64Array(0);
+    this.ansKeyLo = answers !== null ? answers.keyLo : 0;
+    this.ansCells = answers !== null ? answers.cells : 0;
+    this.ansShift = answers !== null ? 20 - answers.bits : 0;
   }
 
   /**
@@ -131,10 +159,26 @@ export class BranchSolver {
       this.strain = a / this.E;
       return;
     }
+    this.bits[0] = a;
+    if (this.ansCells > 0) {
+      const i = (this.bitsHi[0] >>> this.ansShift) - this.ansKeyLo;
+      if (i < 0) {
+        this.stress = a; // the plastic term is below 1e-17 of the elastic one
+        this.strain = a / this.E;
+        return;
+      }
+      if (i < this.ansCells) {
+        const t = this.ans;
+        const k = ANSWER_STRIDE * i;
+        const f = (a - t[k]) * t[k + 1];
+        this.stress = t[k + 2] + f * (t[k + 3] + f * (t[k + 4] + f * t[k + 5]));
+        this.strain = t[k + 6] + f * (t[k + 7] + f * (t[k + 8] + f * t[k + 9]));
+        return;
+      }
+    }
     const m = this.m;
     const lnK = this.lnK;
     // The cell from the exponent and leading mantissa bits: no logarithm needed to find it.
-    this.bits[0] = a;
     const j = (this.bitsHi[0] >>> (20 - CELL_BITS)) - this.keyLo;
     let sigma: number;
     let s: number;
@@ -178,4 +222,111 @@ export class BranchSolver {
     }
     throw new ConvergenceError('BranchSolver', this.maxIterations, sigma);
   }
+}
+
+/** An answer table of σ(a) and ε(a) (see {@link BranchSolver}) with its verified worst relative error. */
+interface AnswerTable {
+  bits: number;
+  keyLo: number;
+  cells: number;
+  tab: Float64Array;
+  worst: number;
+}
+
+/** Answer tables by material, then by rule and cell bits (null: the table could not be built). */
+const answerTables = new WeakMap<Material, Map<string, AnswerTable | null>>();
+
+/** The coarsest answer table that serves `tolerance` for this material and rule, or null. */
+function answerTableFor(material: Material, kind: BranchKind, tolerance: number): AnswerTable | null {
+  let byKey = answerTables.get(material);
+  if (byKey === undefined) {
+    byKey = new Map();
+    answerTables.set(material, byKey);
+  }
+  for (const bits of ANSWER_BITS) {
+    const key = `${kind}/${bits}`;
+    let t = byKey.get(key);
+    if (t === undefined) {
+      t = buildAnswerTable(material, kind, bits);
+      byKey.set(key, t);
+    }
+    if (t !== null && tolerance >= ANSWER_MARGIN * t.worst) return t;
+    // a finer table is only worth building when this one came close
+    if (t === null || tolerance < t.worst) return null;
+  }
+  return null;
+}
+
+/** Builds and verifies an answer table with 2^bits cells per binade (null if the range is unusable). */
+function buildAnswerTable(material: Material, kind: BranchKind, bits: number): AnswerTable | null {
+  const E = material.E;
+  const m = 1 / material.n;
+  const lnK = Math.log(material.K);
+  const lnE = Math.log(E);
+  const lnW = Math.log(kind === 'glinka' ? 2 / (1 + material.n) : 1);
+  const tStar = (m * lnK - lnW - lnE) / (m - 1);
+  const binLo = Math.floor((tStar + Math.log(1e-17) / (m - 1)) / Math.LN2);
+  const binHi = Math.ceil((tStar + 12) / Math.LN2);
+  if (!(binLo >= -1020 && binHi <= 1020 && binHi > binLo)) return null;
+  const perBinade = 1 << bits;
+  const cells = (binHi - binLo) << bits;
+  const tab = new Float64Array(ANSWER_STRIDE * cells);
+  // exact σ, ε and their slopes in a at amplitude a
+  let sg = 0;
+  let ep = 0;
+  let dsg = 0;
+  let dep = 0;
+  const exact = (a: number): void => {
+    const s = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
+    sg = Math.exp(s);
+    const plastic = Math.exp(m * (s - lnK));
+    ep = sg / E + plastic;
+    const q = Math.exp((m - 1) * s + lnW - m * lnK + lnE);
+    dsg = (sg * ((2 * (1 + q)) / (2 + (1 + m) * q))) / a; // dσ/da from ds/dt, t = ln a
+    dep = (1 / E + (m * plastic) / sg) * dsg;
+  };
+  let aL = 0;
+  let sL = 0;
+  let eL = 0;
+  let dsL = 0;
+  let deL = 0;
+  for (let j = 0; j <= cells; j++) {
+    const a = Math.pow(2, binLo + (j >> bits)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
+    exact(a);
+    if (j > 0) {
+      const h = a - aL;
+      const k = ANSWER_STRIDE * (j - 1);
+      tab[k] = aL;
+      tab[k + 1] = 1 / h;
+      hermite(tab, k + 2, sL, sg, dsL * h, dsg * h);
+      hermite(tab, k + 6, eL, ep, deL * h, dep * h);
+    }
+    aL = a;
+    sL = sg;
+    eL = ep;
+    dsL = dsg;
+    deL = dep;
+  }
+  let worst = 0;
+  for (let j = 0; j < cells; j++) {
+    const k = ANSWER_STRIDE * j;
+    for (let q = 1; q <= 3; q++) {
+      const f = q / 4;
+      exact(tab[k] + f / tab[k + 1]);
+      const s = tab[k + 2] + f * (tab[k + 3] + f * (tab[k + 4] + f * tab[k + 5]));
+      const e = tab[k + 6] + f * (tab[k + 7] + f * (tab[k + 8] + f * tab[k + 9]));
+      const err = Math.max(Math.abs(s / sg - 1), Math.abs(e / ep - 1));
+      if (!(err < Infinity)) return null; // NaN or overflow: no table
+      if (err > worst) worst = err;
+    }
+  }
+  return { bits, keyLo: (binLo + 1023) << bits, cells, tab, worst };
+}
+
+/** Cubic Hermite coefficients in the cell fraction f from end values y0, y1 and slopes d0, d1 (per unit f). */
+function hermite(tab: Float64Array, k: number, y0: number, y1: number, d0: number, d1: number): void {
+  tab[k] = y0;
+  tab[k + 1] = d0;
+  tab[k + 2] = 3 * (y1 - y0) - 2 * d0 - d1;
+  tab[k + 3] = 2 * (y0 - y1) + d0 + d1;
 }

@@ -59,6 +59,20 @@ export interface TrackerSnapshot {
   se: Float64Array;
 }
 
+/** The first point of largest |value| a tracker has seen, and the state right after it (internal). */
+export interface LargestPoint {
+  /** Sample index of the point (the first sample of its plateau). */
+  index: number;
+  /** Its value, offset applied. */
+  value: number;
+  /** Rows of the reversal table recorded before the point was reached (when reversals are recorded). */
+  reversalRow: number;
+  /** Rows of the loop table closed up to and including the point. */
+  loopRow: number;
+  /** The memory right after the point: empty, on the first-loading curve towards the point. */
+  after: TrackerSnapshot;
+}
+
 /**
  * The memory-aware local stress-strain tracker at a notch root, streaming: push chunks of the
  * history in any sizes (chunk size 1 included) and get the same events as one batch call.
@@ -116,6 +130,14 @@ export class NotchTracker {
   private se = new Float64Array(64);
   private beyond = false;
   private firstBeyond = -1;
+  // The first reversal point of largest |value| since construction, with the table rows at
+  // the time (for largestPoint); unknown for a tracker restored from JSON.
+  private peakAbs = -1;
+  private peakValue = 0;
+  private peakIndex = -1;
+  private peakReversalRow = 0;
+  private peakLoopRow = 0;
+  private peakKnown = true;
   // Output of computeAtExtreme.
   private outStress = 0;
   private outStrain = 0;
@@ -180,6 +202,7 @@ export class NotchTracker {
     this.run(values, indices, from, to);
     return this;
   }
+
 
   /**
    * The per-sample loop: one comparison with the running extreme, one with the closure level;
@@ -302,6 +325,16 @@ export class NotchTracker {
     this.computeAtExtreme(true);
     const stress = this.outStress;
     const strain = this.outStrain;
+    const av = v < 0 ? -v : v;
+    if (av > this.peakAbs) {
+      // nothing closes between reaching a new largest |value| and turning from it, so the
+      // table lengths now are those right after the point
+      this.peakAbs = av;
+      this.peakValue = v;
+      this.peakIndex = index;
+      this.peakReversalRow = this.revs.length;
+      this.peakLoopRow = this.loopTable.length;
+    }
     if (this.recordReversals) this.revs.add(index, v, stress, strain);
     if (this.k === this.sv.length) this.growMemory();
     const k = this.k++;
@@ -462,6 +495,39 @@ export class NotchTracker {
     };
   }
 
+  /**
+   * The first sample of largest |value| pushed so far (a reversal point or the pending extreme),
+   * the event-table rows up to it and the memory right after it (internal, for the repeating
+   * shortcut: it needs no scan of its own). Null when no sample exceeds |initial| in magnitude,
+   * when nothing was pushed, or for a tracker restored from JSON.
+   *
+   * Why the memory after it is known: every point in memory then is an earlier sample or the
+   * initial value, all strictly smaller in magnitude, so reaching the point closes every loop
+   * (memory 1, 2) and passes the mirror of the oldest point strictly (memory 3). The path is on
+   * the first-loading curve with an empty memory, moving towards the point.
+   */
+  largestPoint(): LargestPoint | null {
+    if (!this.peakKnown || this.dir === 0) return null;
+    let abs = this.peakAbs;
+    let value = this.peakValue;
+    let index = this.peakIndex;
+    let reversalRow = this.peakReversalRow;
+    let loopRow = this.peakLoopRow;
+    const e = this.ext;
+    if ((e < 0 ? -e : e) > abs) {
+      abs = e < 0 ? -e : e;
+      value = e;
+      index = this.extIndex;
+      reversalRow = this.revs.length;
+      loopRow = this.loopTable.length;
+    }
+    const init = this.options.initial;
+    if (index < 0 || !((init < 0 ? -init : init) < abs)) return null;
+    const none = new Float64Array(0);
+    const after: TrackerSnapshot = { k: 0, dir: value > 0 ? 1 : -1, ext: value, extIndex: index, sv: none, si: none, ss: none, se: none };
+    return { index, value, reversalRow, loopRow, after };
+  }
+
   /** True when the memory equals a snapshot exactly (internal). */
   matches(s: TrackerSnapshot): boolean {
     if (s.k !== this.k || s.dir !== this.dir || s.ext !== this.ext || s.extIndex !== this.extIndex) return false;
@@ -561,6 +627,7 @@ export class NotchTracker {
     t.ext = num('ext', state.ext);
     t.extIndex = state.extIndex;
     t.beyond = state.beyondStrainLimit === true;
+    t.peakKnown = false;
     t.firstBeyond = state.firstBeyondIndex;
     t.setThreshold();
     if (t.dir === 0) t.thr = 0;

@@ -1,8 +1,8 @@
 import { NotchTracker, type NotchTrackResult } from './NotchTracker';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
 
-/** Samples per piece of the first pass's search for the largest |value| (128 KiB of doubles). */
-const SCAN_PIECE = 16384;
+/** Samples of the first piece, whose reversal rate sizes the event tables for the whole block. */
+const SIZING_PIECE = 16384;
 
 /** What {@link trackNotchRepeating} returns. */
 export interface NotchRepeatingResult {
@@ -50,51 +50,30 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
     const r = t.end();
     return { first: r, stabilised: t.end(), largestIndex: -1, reusedFirstPass: false };
   }
-  // First pass, interleaved with the search for the largest |value| in cache-sized pieces: each
-  // piece is scanned and then tracked while it is still in cache (one trip through memory
-  // instead of two). Whenever a piece holds a new running maximum, the memory is frozen right
-  // after it; the last such snapshot is the one at the block's largest |value|.
-  let m = -1;
-  let best = -1;
-  let snap = t.snapshot();
-  let revAtM = 0;
-  let loopsAtM = 0;
-  for (let from = 0; from < n; from += SCAN_PIECE) {
-    const to = from + SCAN_PIECE < n ? from + SCAN_PIECE : n;
-    let j = -1;
-    for (let i = from; i < to; i++) {
-      const v = block[i] + off;
-      const a = v < 0 ? -v : v;
-      if (a > best) {
-        best = a;
-        j = i;
-      }
-    }
-    if (j < 0) {
-      t.pushRange(block, from, to); // NaN / Infinity checked here, with their indices
-    } else {
-      t.pushRange(block, from, j + 1);
-      m = j;
-      snap = t.snapshot();
-      revAtM = t.reversals.length;
-      loopsAtM = t.loops.length;
-      t.pushRange(block, j + 1, to);
-    }
-    if (from === 0) t.reserveFor(n); // the reversal rate of the first piece sizes the tables
-  }
+  // First pass. The tracker keeps the first sample of largest |value| and the memory right after
+  // it as it goes (at its reversals), so the block is read once.
+  const head = n < SIZING_PIECE ? n : SIZING_PIECE;
+  t.pushRange(block, 0, head);
+  t.reserveFor(n);
+  t.pushRange(block, head, n);
+  const peak = t.largestPoint();
+  const m = peak !== null ? peak.index : largestMagnitudeIndex(block, off);
   const rev1 = t.reversals.length;
   const loops1 = t.loops.length;
   // The stabilised pass holds one reversal per turning point of the block, as the first pass
   // does give or take its start: sized from it, its tables need no growing.
   const first = t.takeResult(rev1 + 16, (rev1 >> 1) + 16);
   t.restartIndex(0);
-  t.pushRange(block, 0, m + 1);
-  const reused = t.matches(snap);
-  if (reused) {
-    t.reversals.appendRange(first.reversals, revAtM, rev1);
-    t.loops.appendRange(first.loops, loopsAtM, loops1);
+  let reused = false;
+  if (peak !== null) {
+    t.pushRange(block, 0, m + 1);
+    reused = t.matches(peak.after);
+  }
+  if (reused && peak !== null) {
+    t.reversals.appendRange(first.reversals, peak.reversalRow, rev1);
+    t.loops.appendRange(first.loops, peak.loopRow, loops1);
   } else {
-    t.pushRange(block, m + 1, n);
+    t.pushRange(block, peak !== null ? m + 1 : 0, n);
   }
   const end = t.takeResult(16, 16);
   const stabilised: NotchTrackResult = {
@@ -106,4 +85,19 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
     firstBeyondIndex: end.firstBeyondIndex,
   };
   return { first, stabilised, largestIndex: m, reusedFirstPass: reused };
+}
+
+/** Index of the first sample of largest |value + offset| (the slow way, for the cases the tracker does not cover). */
+function largestMagnitudeIndex(block: ArrayLike<number>, offset: number): number {
+  let best = -1;
+  let at = -1;
+  for (let i = 0; i < block.length; i++) {
+    const v = block[i] + offset;
+    const a = v < 0 ? -v : v;
+    if (a > best) {
+      best = a;
+      at = i;
+    }
+  }
+  return at;
 }

@@ -291,6 +291,64 @@ describe('trackNotchRepeating(block, options)', () => {
     );
   });
 
+  it('the shortcut equals a second pass tracked in full: reversals, loops, residue, for any initial value and offset', () => {
+    checkProperty(
+      'repeating shortcut == full second pass',
+      fc.property(gridHistory(), fc.integer({ min: -9, max: 9 }), fc.integer({ min: -2, max: 2 }), (h, init, off) => {
+        const o: NotchTrackerOptions = { ...opts, initial: init * S, offset: off * S };
+        const block = h.map((x) => x * S);
+        const r = trackNotchRepeating(block, o);
+        const t = new NotchTracker(o);
+        t.push(block);
+        const first = t.end();
+        t.restartIndex(0);
+        const nRev = t.reversals.length;
+        const nLoops = t.loops.length;
+        t.push(block);
+        const all = t.end();
+        expect(r.first.reversals.toRows()).toEqual(first.reversals.toRows());
+        expect(r.first.loops.toRows()).toEqual(first.loops.toRows());
+        expect(r.first.residue.toRows()).toEqual(first.residue.toRows());
+        expect(r.stabilised.reversals.toRows()).toEqual(all.reversals.toRows().slice(nRev));
+        expect(r.stabilised.loops.toRows()).toEqual(all.loops.toRows().slice(nLoops));
+        expect(r.stabilised.residue.toRows()).toEqual(all.residue.toRows());
+        // the largest |value| found without a scan of its own is the first sample of largest |value|
+        const mags = block.map((x) => Math.abs(x + off * S));
+        expect(r.largestIndex).toBe(mags.indexOf(Math.max(...mags)));
+      }),
+    );
+  });
+
+  it('largestPoint: the first sample of largest |value|, its table rows and the memory right after it', () => {
+    checkProperty(
+      'largestPoint',
+      fc.property(gridHistory(), fc.integer({ min: -9, max: 9 }), (h, init) => {
+        const o: NotchTrackerOptions = { ...opts, initial: init * S };
+        const block = h.map((x) => x * S);
+        const t = new NotchTracker(o);
+        t.push(block);
+        const p = t.largestPoint();
+        const mags = block.map(Math.abs);
+        const best = Math.max(...mags);
+        const moves = block.some((x) => x !== init * S);
+        if (!moves || !(Math.abs(init * S) < best)) {
+          expect(p).toBeNull();
+          return;
+        }
+        expect(p).not.toBeNull();
+        const m = mags.indexOf(best);
+        expect(p!.index).toBe(m);
+        expect(p!.value).toBe(block[m]);
+        // replay up to the point and compare with what the tracker saw then
+        const u = new NotchTracker(o);
+        u.push(block.slice(0, m + 1));
+        expect(u.matches(p!.after)).toBe(true);
+        expect(p!.loopRow).toBe(u.loops.length);
+        expect(p!.reversalRow).toBe(u.reversals.length);
+      }),
+    );
+  });
+
   it('rotating the block changes nothing in the stabilised result', () => {
     checkProperty(
       'rotation',
