@@ -11,6 +11,15 @@ export interface ReversalFilterOptions {
   gate?: number;
   /** Sample index of the first sample pushed. Default 0. */
   startIndex?: number;
+  /**
+   * Also keep the extremes the gate would drop before the first reversal: the running maximum or
+   * minimum that precedes the first reversal in time (and, for a history that never leaves one
+   * gate range of its first sample, both). Without them the first excursion can end short of its
+   * true extreme by up to the gate when something came before the first sample (a non-zero
+   * initial state, an earlier event of a duty cycle); with them the points stay exact whatever
+   * came before. The extra points are real samples, in time order. Default false.
+   */
+  keepLeadingExtremes?: boolean;
 }
 
 /** Serialisable state of a {@link ReversalFilter}; see {@link ReversalFilter.toJSON}. */
@@ -32,6 +41,8 @@ export interface ReversalFilterState {
   rawFirstDir: number;
   rawLastDir: number;
   rawChanges: number;
+  /** Absent in states written before the option existed (false). */
+  keepLeadingExtremes?: boolean;
 }
 
 /**
@@ -78,6 +89,7 @@ export class ReversalFilter {
   private rawFirstDir = 0;
   private rawLastDir = 0;
   private rawChanges = 0;
+  private readonly keepLeading: boolean = false;
 
   constructor(options: ReversalFilterOptions = {}) {
     const gate = options.gate ?? 0;
@@ -89,6 +101,7 @@ export class ReversalFilter {
       throw new InvalidOptionError('startIndex', startIndex, 'must be a safe integer >= 0');
     }
     this.gate = gate;
+    this.keepLeading = options.keepLeadingExtremes === true;
     // ext - x >= Number.MIN_VALUE holds exactly when x < ext (IEEE 754 subtraction of distinct
     // doubles never rounds to zero), so one comparison serves the gate and the plain case.
     this.threshold = gate > 0 ? gate : Number.MIN_VALUE;
@@ -118,7 +131,8 @@ export class ReversalFilter {
   get removedCount(): number {
     if (!this.started) return 0;
     const raw = 1 + this.rawChanges + (this.rawLastDir !== 0 ? 1 : 0);
-    const kept = this.emitted + (this.dir !== 0 ? 1 : 0);
+    const leading = this.keepLeading ? (this.hiIndex !== this.firstIndex ? 1 : 0) + (this.loIndex !== this.firstIndex ? 1 : 0) : 0;
+    const kept = this.emitted + (this.dir !== 0 ? 1 : leading);
     return this.gate > 0 ? raw - kept : 0;
   }
 
@@ -208,9 +222,13 @@ export class ReversalFilter {
           extIndex = idx;
         }
       } else if (x > this.hi) {
-        this.hi = x;
-        this.hiIndex = idx;
         if (x - this.lo >= g) {
+          // the minimum is the first reversal; the maximum before it is dropped unless kept
+          if (this.keepLeading && this.hiIndex !== this.firstIndex && this.hiIndex < this.loIndex) {
+            outValues[w] = this.hi;
+            outIndices[w] = this.hiIndex;
+            w++;
+          }
           if (this.loIndex !== this.firstIndex) {
             outValues[w] = this.lo;
             outIndices[w] = this.loIndex;
@@ -220,10 +238,15 @@ export class ReversalFilter {
           ext = x;
           extIndex = idx;
         }
+        this.hi = x;
+        this.hiIndex = idx;
       } else if (x < this.lo) {
-        this.lo = x;
-        this.loIndex = idx;
         if (this.hi - x >= g) {
+          if (this.keepLeading && this.loIndex !== this.firstIndex && this.loIndex < this.hiIndex) {
+            outValues[w] = this.lo;
+            outIndices[w] = this.loIndex;
+            w++;
+          }
           if (this.hiIndex !== this.firstIndex) {
             outValues[w] = this.hi;
             outIndices[w] = this.hiIndex;
@@ -233,6 +256,8 @@ export class ReversalFilter {
           ext = x;
           extIndex = idx;
         }
+        this.lo = x;
+        this.loIndex = idx;
       }
     }
     this.next = idx;
@@ -249,10 +274,12 @@ export class ReversalFilter {
   /**
    * Writes the pending extreme of the last excursion (if any) at position `at` and returns 1, or
    * returns 0 when there is none (no samples, or a history that never left one gate range of its
-   * first sample). Does not change the state.
+   * first sample). With `keepLeadingExtremes`, a history that never left one gate range writes
+   * its running maximum and minimum instead (those that are not the first sample, in time
+   * order): 0, 1 or 2 points, so the output needs room for 2. Does not change the state.
    */
   pendingInto(outValues: Float64Array, outIndices: Float64Array, at = 0): number {
-    if (this.dir === 0) return 0;
+    if (this.dir === 0) return this.keepLeading ? this.pendingSamplesInto(outValues, outIndices, at) : 0;
     outValues[at] = this.ext;
     outIndices[at] = this.extIndex;
     return 1;
@@ -357,6 +384,7 @@ export class ReversalFilter {
       rawFirstDir: this.rawFirstDir,
       rawLastDir: this.rawLastDir,
       rawChanges: this.rawChanges,
+      keepLeadingExtremes: this.keepLeading,
     };
   }
 
@@ -365,7 +393,7 @@ export class ReversalFilter {
     if (state === null || typeof state !== 'object') {
       throw new CounterStateError('filter state must be an object');
     }
-    const f = new ReversalFilter({ gate: decodeNumber(state.gate, 'filter.gate') });
+    const f = new ReversalFilter({ gate: decodeNumber(state.gate, 'filter.gate'), keepLeadingExtremes: state.keepLeadingExtremes === true });
     f.next = state.next;
     f.started = state.started === true;
     f.firstValue = decodeNumber(state.firstValue, 'filter.firstValue');

@@ -1,7 +1,7 @@
 export { NonFiniteSampleError, InvalidOptionError, RangeOverflowError, CounterStateError, BinError } from './errors';
 export { encodeNumber, decodeNumber, type EncodedNumber } from './numberCodec';
 export { ReversalFilter, type ReversalFilterOptions, type ReversalFilterState } from './ReversalFilter';
-export { turningPoints, type TurningPoints } from './turningPoints';
+export { turningPoints, type TurningPoints, type TurningPointOptions } from './turningPoints';
 export { gateRange, type GateOptions } from './gateRange';
 export type { CycleSink } from './CycleSink';
 export { CycleTable, type CycleColumns, type CycleTableState } from './CycleTable';

@@ -1,5 +1,5 @@
 import { gateRange, type GateOptions } from './gateRange';
-import { ReversalFilter } from './ReversalFilter';
+import { ReversalFilter, type ReversalFilterOptions } from './ReversalFilter';
 
 /** Turning points of a history. */
 export interface TurningPoints {
@@ -11,6 +11,12 @@ export interface TurningPoints {
   removed: number;
   /** Gate range in effect. */
   gate: number;
+}
+
+/** Options of {@link turningPoints}: the gate, and whether to keep the extremes it would drop before the first reversal. */
+export interface TurningPointOptions extends GateOptions {
+  /** See {@link ReversalFilterOptions.keepLeadingExtremes}. Default false. */
+  keepLeadingExtremes?: boolean;
 }
 
 const BLOCK = 65536;
@@ -30,9 +36,9 @@ const BLOCK = 65536;
  * turningPoints([0, 2, 2, 1, 3, 3]).indices; // returns Float64Array [0, 1, 3, 4]
  * turningPoints([0, 2, 1.5, 3], { gate: 1 }).values; // returns Float64Array [0, 3]
  */
-export function turningPoints(history: ArrayLike<number>, options: GateOptions = {}): TurningPoints {
+export function turningPoints(history: ArrayLike<number>, options: TurningPointOptions = {}): TurningPoints {
   const gate = gateRange(options, history);
-  const filter = new ReversalFilter({ gate });
+  const filter = new ReversalFilter({ gate, keepLeadingExtremes: options.keepLeadingExtremes === true });
   let values = new Float64Array(Math.min(history.length + 1, BLOCK));
   let indices = new Float64Array(values.length);
   let n = 0;
@@ -51,7 +57,7 @@ export function turningPoints(history: ArrayLike<number>, options: GateOptions =
     ensure(n + (e - s) + 1);
     n += filter.pushRange(history, s, e, values, indices, n);
   }
-  ensure(n + 1);
+  ensure(n + 2);
   n += filter.pendingInto(values, indices, n);
   return { values: values.slice(0, n), indices: indices.slice(0, n), removed: filter.removedCount, gate };
 }

@@ -128,3 +128,44 @@ describe('ReversalFilter', () => {
     expect(JSON.stringify(f.toJSON())).toContain('"-0"');
   });
 });
+
+describe('turningPoints with keepLeadingExtremes', () => {
+  test('keeps the extreme before the first reversal that the gate would drop', () => {
+    // 38 precedes the first reversal 33: dropped by the plain gate, kept with the option
+    expect(Array.from(turningPoints([35, 38, 33, 80], { gate: 6 }).values)).toEqual([35, 33, 80]);
+    const kept = turningPoints([35, 38, 33, 80], { gate: 6, keepLeadingExtremes: true });
+    expect(Array.from(kept.values)).toEqual([35, 38, 33, 80]);
+    expect(Array.from(kept.indices)).toEqual([0, 1, 2, 3]);
+    expect(kept.removed).toBe(0);
+    // a history that never leaves one gate range of its first sample keeps its maximum and minimum
+    expect(Array.from(turningPoints([35, 36, 34, 35], { gate: 5 }).values)).toEqual([35]);
+    const flat = turningPoints([35, 36, 34, 35], { gate: 5, keepLeadingExtremes: true });
+    expect(Array.from(flat.values)).toEqual([35, 36, 34]);
+    expect(flat.removed).toBe(1); // the last sample, 35
+  });
+
+  test('whatever came before the first sample, the points a gate keeps over the longer history are among them', () => {
+    checkProperty(
+      'leading extremes cover any predecessor',
+      fc.property(tiedHistory(), fc.integer({ min: -20, max: 20 }), fc.integer({ min: 1, max: 6 }), (h, before, gate) => {
+        const kept = new Set(Array.from(turningPoints(h, { gate, keepLeadingExtremes: true }).indices));
+        const longer = turningPoints([before, ...h], { gate });
+        for (let k = 0; k < longer.indices.length; k++) {
+          const i = longer.indices[k] - 1; // index in h
+          if (i >= 0) expect(kept.has(i)).toBe(true);
+        }
+      }),
+    );
+  });
+
+  test('the option survives toJSON / fromJSON and gives the same points streamed', () => {
+    const f = new ReversalFilter({ gate: 6, keepLeadingExtremes: true });
+    const v = new Float64Array(8);
+    const i = new Float64Array(8);
+    let n = f.push([35, 38], v, i, 0);
+    const g = ReversalFilter.fromJSON(JSON.parse(JSON.stringify(f.toJSON())));
+    n += g.push([33, 80], v, i, n);
+    n += g.pendingInto(v, i, n);
+    expect(Array.from(v.subarray(0, n))).toEqual([35, 38, 33, 80]);
+  });
+});
