@@ -105,7 +105,7 @@ export class LifeSession {
       throw new EngineError('invalid-job', 'fullScale', undefined, 'a streamed history needs a declared fullScale for gateFraction');
     }
     this.gate = j.gate ?? (j.gateFraction !== undefined ? j.gateFraction * (j.fullScale as number) : 0);
-    this.filter = new ReversalFilter({ gate: this.gate });
+    this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     this.tracker = new NotchTracker({ ...trackerOptionsOf(j), recordReversals: false });
   }
 
@@ -202,6 +202,7 @@ export class LifeSession {
         gate: this.gate,
         removed: this.removed,
         totalSamples: this.samples,
+        largestKept: Math.max(this.best, Math.abs(this.job.initial)),
         toSample: identity,
         track: {
           loops: this.loops,
@@ -308,7 +309,7 @@ export class LifeSession {
     }
     this.secondFull = Math.abs(this.job.initial + this.job.offset) > this.best;
     this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
-    this.filter = new ReversalFilter({ gate: this.gate });
+    this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     if (this.gate === 0) this.tracker.restartIndex(0);
     this.stage = 'second';
   }
@@ -377,14 +378,6 @@ export class LifeSession {
       stab.merge(firstPass);
     }
     const damage = stab.total();
-    let stress = stab.peakStress;
-    let strain = stab.peakStrain;
-    for (let i = 0; i < residue.stress.length; i++) {
-      if (residue.stress[i] > stress) {
-        stress = residue.stress[i];
-        strain = residue.strain[i];
-      }
-    }
     const events = [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }];
     const perRepeat = serviceOf(job, events);
     const life = lifeFromDamage(damage, {
@@ -435,7 +428,7 @@ export class LifeSession {
         damage,
         gate: this.gate,
         removed: this.removed,
-        gateBound: this.removed > 0 ? gateBoundAt(job, stress, strain, this.gate, this.removed) : 0,
+        gateBound: this.removed > 0 ? gateBoundAt(job, Math.max(this.best, Math.abs(job.initial)), this.gate, this.removed) : 0,
         cutoff:
           job.cutoffCycles === undefined
             ? null

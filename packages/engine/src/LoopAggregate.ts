@@ -18,8 +18,6 @@ export class LoopAggregate {
   removedCount = 0;
   removedDamage = 0;
   nearDamage = 0;
-  peakStress = -Infinity;
-  peakStrain = 0;
   timeline: Float64Array;
   readonly worst: WorstLoop[] = [];
 
@@ -42,10 +40,6 @@ export class LoopAggregate {
       const count = cols.count[i];
       this.loops++;
       if (lives.reversalsToFailure[i] <= 1) this.firstReversal++;
-      if (cols.stressMax[i] > this.peakStress) {
-        this.peakStress = cols.stressMax[i];
-        this.peakStrain = cols.strainMax[i];
-      }
       let d = count / nf;
       if (nf > limit) {
         this.removedCount += count;
@@ -79,10 +73,6 @@ export class LoopAggregate {
     this.removedCount += other.removedCount;
     this.removedDamage += other.removedDamage;
     this.nearDamage += other.nearDamage;
-    if (other.peakStress > this.peakStress) {
-      this.peakStress = other.peakStress;
-      this.peakStrain = other.peakStrain;
-    }
     this.ensureBins(other.timeline.length);
     for (let k = 0; k < other.timeline.length; k++) this.timeline[k] += other.timeline[k];
     for (const w of other.worst) this.insertWorst(w);

@@ -125,6 +125,8 @@ export interface TrackedSchedule {
   gate: number;
   removed: number;
   totalSamples: number;
+  /** Largest |value| (offset applied) of the points the tracker kept and the initial value; 0 when the gate removed nothing. */
+  largestKept: number;
   track: TrackedLoops;
   toSample: IndexMap;
 }
@@ -146,7 +148,9 @@ export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSch
     }
     let tp;
     try {
-      tp = turningPoints(e.history, { gate });
+      // each event is gated on its own: keep the extremes before its first reversal, so its first
+      // excursion stays exact whatever event (or initial value) came before
+      tp = turningPoints(e.history, { gate, keepLeadingExtremes: true });
     } catch (err) {
       if (err instanceof NonFiniteSampleError) {
         throw new EngineError('invalid-history', `events[${k}].history`, err.value, `sample ${err.index} of event '${e.name}' is ${err.value}`, err.index);
@@ -177,6 +181,7 @@ export function trackResolved(events: DutyEvent[], job: ResolvedJob): TrackedSch
     gate,
     removed,
     totalSamples: sampleBase,
+    largestKept: removed > 0 ? largestKept(job, schedule) : 0,
     track,
     toSample: ordinalMap(schedule),
   };
@@ -189,7 +194,7 @@ export function assessResolved(events: DutyEvent[], job: ResolvedJob): LifeRepor
 
 /** The damage stage and the report, for one damage parameter (internal). */
 export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeReport {
-  const { events, eventStarts, gate, removed, totalSamples, track, toSample } = tracked;
+  const { events, eventStarts, gate, removed, totalSamples, largestKept, track, toSample } = tracked;
   // every loop the tracker closed, in either pass, is solved once
   const all = track.loops.columns();
   const lives = evaluateLoops(all, job.material, job.meanStress, job.walkerGamma);
@@ -244,7 +249,7 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     damage,
     gate,
     removed,
-    gateBound: removed > 0 ? gateDamageBound(job, track, gate, removed) : 0,
+    gateBound: removed > 0 ? gateBoundAt(job, largestKept, gate, removed) : 0,
     cutoff: job.cutoffCycles === undefined ? null : cutoffReport(stabilised, job.cutoffCycles, damage),
     beyondStrainLimit: track.beyondStrainLimit,
     firstBeyondIndex: track.firstBeyondIndex,
@@ -499,42 +504,46 @@ export function warningsOf(job: ResolvedJob, f: WarningFacts): LifeWarning[] {
 }
 
 /**
- * Upper bound of the damage the gate removed: every removed reversal pair is at most a loop of
- * the gate's range; the worst place for it is at the highest local stress of the history (the
- * largest σmax and mean stress), hanging from that peak on a Masing branch. The bound is that
- * loop's damage times (removed + 1) / 2: half the removed reversals, plus one more cycle for the
- * ends of the history (a removed last reversal, or the seam of a repeating block).
+ * Largest |value| (offset applied) of the kept points and the initial value, for the gate bound.
+ *
+ * The gate bound ({@link gateBoundAt}), an upper bound of the damage the gate removed: every removed reversal pair is at most a loop of
+ * the gate's range. The gate keeps every move of at least its range, so a removed point lies
+ * within the gate of a kept point (or of the initial value): its magnitude is at most the
+ * largest kept magnitude plus the gate, and its local stress at most the first-loading stress
+ * there (the cyclic-curve envelope bounds every local stress of the path). The worst place for
+ * a removed loop is hanging from that envelope point on a Masing branch (highest σmax and mean
+ * stress). The bound is that loop's damage times (removed + 1) / 2: half the removed
+ * reversals, plus one more cycle for the ends of the history (a removed last reversal, or the
+ * seam of a repeating block).
  */
-function gateDamageBound(job: ResolvedJob, track: TrackedLoops, gate: number, removed: number): number {
-  // the point of highest local stress: the top of a closed loop, or a point still open at the end
-  let stress = -Infinity;
-  let strain = 0;
-  const l = track.loops.columns();
-  for (let i = 0; i < l.stressMax.length; i++) {
-    if (l.stressMax[i] > stress) {
-      stress = l.stressMax[i];
-      strain = l.strainMax[i];
+function largestKept(job: ResolvedJob, schedule: ScheduleEvent[]): number {
+  let largest = Math.abs(job.initial);
+  for (const e of schedule) {
+    const v = e.values;
+    for (let i = 0; i < v.length; i++) {
+      const a = Math.abs(v[i] + job.offset);
+      if (a > largest) largest = a;
     }
   }
-  const r = track.firstResidue.columns();
-  for (let i = 0; i < r.stress.length; i++) {
-    if (r.stress[i] > stress) {
-      stress = r.stress[i];
-      strain = r.strain[i];
-    }
-  }
-  return gateBoundAt(job, stress, strain, gate, removed);
+  return largest;
 }
 
-/** The gate bound for a loop of the gate's range hanging from the point (stress, strain) (internal). */
-export function gateBoundAt(job: ResolvedJob, stress: number, strain: number, gate: number, removed: number): number {
-  if (stress === -Infinity || removed === 0) return 0;
-  // only the history difference from the origin enters a branch: origin value 0, target -gate
-  const low = branchResponse(trackerOptionsOf(job), { value: 0, stress, strain }, -gate);
+/**
+ * The gate bound (internal): a loop of the gate's range hanging from the first-loading point at
+ * `largest` + gate, where `largest` is the largest |value| (offset applied) of the kept points
+ * and the initial value.
+ */
+export function gateBoundAt(job: ResolvedJob, largest: number, gate: number, removed: number): number {
+  if (removed === 0) return 0;
+  const options = trackerOptionsOf(job);
+  const top = largest + gate;
+  const peak = branchResponse(options, null, top);
+  // only the history difference from the origin enters a branch
+  const low = branchResponse(options, { value: top, stress: peak.stress, strain: peak.strain }, top - gate);
   const loop = {
-    stressMax: Float64Array.of(stress),
+    stressMax: Float64Array.of(peak.stress),
     stressMin: Float64Array.of(low.stress),
-    strainMax: Float64Array.of(strain),
+    strainMax: Float64Array.of(peak.strain),
     strainMin: Float64Array.of(low.strain),
   };
   const lives = evaluateLoops(loop, job.material, job.meanStress, job.walkerGamma);

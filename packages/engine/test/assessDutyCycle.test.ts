@@ -44,8 +44,26 @@ describe('assessDutyCycle(events, job)', () => {
         }
         const spans = new Set([duty.loops.startEvent[largest], duty.loops.turnEvent[largest]]);
         expect(spans).toEqual(new Set([0, events.length - 1]));
+        // the second pass took the shortcut (a peak of 400 beats every generated value)
+        if (repeating) expect(duty.damage.reusedFirstPass).toBe(true);
       }),
       { numRuns: 60 },
+    );
+  });
+
+  test('the gate warning bounds the damage the gate removed from a duty cycle (each event gated on its own)', () => {
+    const ev = fc.record({ history: fc.array(fc.integer({ min: -350, max: 350 }), { minLength: 1, maxLength: 12 }), repeats: fc.integer({ min: 1, max: 4 }) });
+    checkProperty(
+      'duty-cycle gate bound holds',
+      fc.property(fc.array(ev, { minLength: 2, maxLength: 4 }), fc.integer({ min: 5, max: 150 }), fc.boolean(), (events, gate, repeating) => {
+        const job = { material: sae1045, notch: { Kt: 2 }, repeating };
+        const full = assessLife(concatenate(events), job).damage.perRepeat;
+        const gated = assessDutyCycle(events.map((e, k) => ({ name: `event ${k}`, ...e })), { ...job, gate });
+        const w = gated.warnings.find((x) => x.code === 'gate-removed-damage');
+        const bound = w ? Number(w.details.damageBound) : 0;
+        expect(full - gated.damage.perRepeat).toBeLessThanOrEqual(bound + 1e-12 * full);
+      }),
+      { numRuns: 200 },
     );
   });
 

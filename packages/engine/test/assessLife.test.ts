@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { assessLife, EngineError } from '@loopwise/engine';
+import { assessLife, EngineError, LifeSession } from '@loopwise/engine';
 import { MaterialError } from '@loopwise/material';
 import { checkProperty } from '../../../test/property';
 import { aisi4340, bisectLog, neuberRangeByBisection, reversalsByBisection, sae1045 } from './support';
@@ -166,10 +166,29 @@ describe('assessLife(history, job)', () => {
           const w = gated.warnings.find((x) => x.code === 'gate-removed-damage');
           const bound = w ? Number(w.details.damageBound) : 0;
           expect(full - gated.damage.perRepeat).toBeLessThanOrEqual(bound + 1e-12 * full);
+          // the same through the streaming session (one pass: a non-repeating history)
+          const once = { ...job, repeating: false };
+          const s = new LifeSession({ ...once, gate });
+          s.push(block);
+          const streamed = s.finish();
+          const ws = streamed.warnings.find((x) => x.code === 'gate-removed-damage');
+          const onceFull = assessLife(block, once).damage.perRepeat;
+          expect(onceFull - streamed.damage.perRepeat).toBeLessThanOrEqual((ws ? Number(ws.details.damageBound) : 0) + 1e-12 * onceFull);
         },
       ),
       { numRuns: 150 },
     );
+    // Cases found by the property under unpinned seeds. A history whose whole range is below the
+    // gate keeps its extremes (each event is gated on its own and keeps the extremes before its
+    // first reversal): nothing is lost.
+    const job = { material: sae1045, notch: { Kt: 2 } };
+    const full = assessLife([0, -43, 2], job).damage.perRepeat;
+    expect(full).toBeGreaterThan(0);
+    expect(assessLife([0, -43, 2], { ...job, gate: 46 }).damage.perRepeat).toBe(full);
+    // A first excursion from a non-zero initial value ends at its true extreme, not at the first
+    // sample: the half cycle from -36 reaches 36.
+    const fromInitial = { ...job, repeating: false, initial: -36 };
+    expect(assessLife([35, 36], { ...fromInitial, gate: 5 }).damage.perRepeat).toBe(assessLife([35, 36], fromInitial).damage.perRepeat);
   });
 
   test('the timeline and the event shares sum to the damage per repeat', () => {
