@@ -41,8 +41,8 @@ export interface TrackedLoops {
   reusedFirstPass: boolean;
 }
 
-/** Samples per piece of the first pass (the largest-|value| search stays in cache). */
-const PIECE = 16384;
+/** Points pushed before the tables are sized from the loop rate seen so far. */
+const SIZING_POINTS = 65536;
 
 /** What {@link trackSchedule} returns (internal). */
 export interface ScheduleTrack extends TrackedLoops {
@@ -70,11 +70,6 @@ export interface ScheduleTrack extends TrackedLoops {
  */
 export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOptions, repeating: boolean): ScheduleTrack {
   const t = new NotchTracker({ ...options, recordReversals: false });
-  const offset = t.options.offset;
-  // the schedule's first point of largest |value|, found piece by piece during the first pass
-  let peakEvent = -1;
-  let peakPoint = -1;
-  let best = -1;
   // points the passes will push (repeats stop after about two copies), to size the tables once
   let expected = 0;
   for (const e of events) expected += e.values.length * Math.min(e.repeats, 3);
@@ -82,14 +77,18 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
   let pushed = 0;
   let reserved = false;
   const push = (e: ScheduleEvent, from: number, to: number) => {
-    t.pushRange(e.values, from, to);
-    pushed += to - from;
-    if (!reserved && pushed >= 65536) {
+    if (!reserved && to - from > SIZING_POINTS - pushed) {
       // the first points set the loop rate; then the tables are sized for the whole schedule, so
       // tables of millions of rows are not copied at every doubling
+      const head = from + (SIZING_POINTS - pushed);
+      t.pushRange(e.values, from, head);
+      pushed += head - from;
       t.reserveFor(expected);
       reserved = true;
+      from = head;
     }
+    t.pushRange(e.values, from, to);
+    pushed += to - from;
   };
 
   /**
@@ -119,42 +118,24 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
     }
   };
 
-  // first pass: in pieces small enough to stay in cache, a piece whose largest |value| beats
-  // every earlier one is split there and the memory is saved (repeats bring no new values)
+  // first pass: each event's first repeat pushed whole; the row of its first segment noted
   const first: LoopSegment[] = [];
-  let peakSnapshot: ReturnType<NotchTracker['snapshot']> | null = null;
-  let peakRow = -1;
-  let peakSegment = -1;
+  const firstSegment: number[] = [];
   pass(first, (e, k) => {
-    const v = e.values;
-    const n = v.length;
-    for (let s = 0; s < n; s += PIECE) {
-      const end = Math.min(n, s + PIECE);
-      let j = -1;
-      let top = best;
-      for (let i = s; i < end; i++) {
-        const x = v[i] + offset;
-        const a = x < 0 ? -x : x;
-        if (a > top) {
-          top = a;
-          j = i;
-        }
-      }
-      if (j < 0) {
-        push(e, s, end);
-        continue;
-      }
-      push(e, s, j + 1);
-      best = top;
-      peakEvent = k;
-      peakPoint = j;
-      peakSnapshot = t.snapshot();
-      peakRow = t.loops.length;
-      peakSegment = first.length;
-      push(e, j + 1, end);
-    }
+    firstSegment[k] = first.length;
+    push(e, 0, e.values.length);
     return true;
   });
+  // The schedule's first point of largest |value| (the tracker notes it at its reversals;
+  // repeats bring no new values) and the memory right after it, known without a copy.
+  const peak = t.largestPoint();
+  let peakEvent = -1;
+  if (peak !== null) {
+    for (let k = 0; k < events.length && peakEvent < 0; k++) {
+      const e = events[k];
+      if (peak.index >= e.ordinalBase && peak.index < e.ordinalBase + e.values.length) peakEvent = k;
+    }
+  }
   const firstResidue = t.residue();
   if (!repeating) return finish(t, first, first, firstResidue, false, pushed);
 
@@ -162,17 +143,19 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
   const stabilised: LoopSegment[] = [];
   let reused = false;
   pass(stabilised, (e, k, before) => {
-    if (k !== peakEvent || peakSnapshot === null) {
+    if (k !== peakEvent || peak === null) {
       push(e, 0, e.values.length);
       return true;
     }
+    const peakPoint = peak.index - e.ordinalBase;
     push(e, 0, peakPoint + 1);
-    if (!t.matches(peakSnapshot)) {
+    if (!t.matches(peak.after)) {
       push(e, peakPoint + 1, e.values.length);
       return true;
     }
+    const peakSegment = firstSegment[k];
     stabilised.push({ from: before, to: t.loops.length, weight: 1 });
-    stabilised.push({ from: peakRow, to: first[peakSegment].to, weight: 1 });
+    stabilised.push({ from: peak.loopRow, to: first[peakSegment].to, weight: 1 });
     for (let j = peakSegment + 1; j < first.length; j++) stabilised.push({ ...first[j] });
     reused = true;
     return false;
