@@ -1,7 +1,12 @@
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { LifeEstimate } from '@loopwise/miner';
 
-/** Typed-array columns of the loops that make up the damage of one repeat (stabilised pass). */
+/**
+ * Typed-array columns of the loops that make up the damage of one repeat (stabilised pass). Rows
+ * are in closing order; for a repeating history, of the pass that starts just after the largest
+ * |value| (the loops from there to the end, then those up to it). Read them, do not write: for a
+ * single repeating history the local and life columns are views of the tracker's tables.
+ */
 export interface LifeLoopColumns {
   /** Local stresses and strains of the loop at the notch root. */
   stressMax: Float64Array;

@@ -186,8 +186,13 @@ export class LifeSession {
     const first: LoopSegment[] = [{ from: 0, to: this.firstRows, weight: 1 }];
     let stabilised: LoopSegment[] = first;
     if (this.job.repeating) {
-      stabilised = [{ from: this.firstRows, to: n, weight: 1 }];
-      if (this.reused) stabilised.push({ from: this.peakRow, to: this.firstRows, weight: 1 });
+      // from just after the largest |value| on, as in trackSchedule
+      stabilised = this.reused
+        ? [
+            { from: this.peakRow, to: this.firstRows, weight: 1 },
+            { from: this.firstRows, to: n, weight: 1 },
+          ]
+        : [{ from: this.firstRows, to: n, weight: 1 }];
     }
     const identity: IndexMap = (src, from, to, out, at, events) => {
       for (let i = from, j = at; i < to; i++, j++) {

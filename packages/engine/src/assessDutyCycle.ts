@@ -322,6 +322,37 @@ function gather(
 ): LifeLoopColumns {
   let n = 0;
   for (const s of segments) n += s.to - s.from;
+  // One run of rows counted once (a single repeating history): the local and life columns are
+  // views of the tracker's table and of the lives, not copies (tens of MB for 10^6 loops).
+  let contiguous = segments.length > 0;
+  for (let k = 0; k < segments.length; k++) {
+    if (segments[k].weight !== 1 || (k > 0 && segments[k].from !== segments[k - 1].to)) contiguous = false;
+  }
+  if (contiguous) {
+    const from = segments[0].from;
+    const to = segments[segments.length - 1].to;
+    const f = () => new Float64Array(n);
+    const c: LifeLoopColumns = {
+      stressMax: all.stressMax.subarray(from, to),
+      stressMin: all.stressMin.subarray(from, to),
+      strainMax: all.strainMax.subarray(from, to),
+      strainMin: all.strainMin.subarray(from, to),
+      parameter: lives.parameter.subarray(from, to),
+      reversalsToFailure: lives.reversalsToFailure.subarray(from, to),
+      cyclesToFailure: lives.cyclesToFailure.subarray(from, to),
+      count: all.count.subarray(from, to),
+      damage: f(),
+      startIndex: f(),
+      turnIndex: f(),
+      closeIndex: f(),
+      startEvent: f(),
+      turnEvent: f(),
+    };
+    toSample(all.startIndex, from, to, c.startIndex, 0, c.startEvent);
+    toSample(all.turnIndex, from, to, c.turnIndex, 0, c.turnEvent);
+    toSample(all.closeIndex, from, to, c.closeIndex, 0, new Float64Array(n));
+    return c;
+  }
   const c = emptyColumns(n);
   let j = 0;
   const scratch = new Float64Array(n);

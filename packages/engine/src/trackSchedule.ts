@@ -153,10 +153,15 @@ export function trackSchedule(events: ScheduleEvent[], options: NotchTrackerOpti
       push(e, peakPoint + 1, e.values.length);
       return true;
     }
+    // The stabilised pass in the order its loops close when it starts just after the largest
+    // |value| (as ASTM E1049-85 5.4.5 starts a repeating history at its largest peak): the first
+    // pass's loops from there to the end, then those of the second pass up to the peak. For a
+    // single history the rows are then one run of the tracker's table.
     const peakSegment = firstSegment[k];
-    stabilised.push({ from: before, to: t.loops.length, weight: 1 });
+    const upToPeak = stabilised.splice(0, stabilised.length);
     stabilised.push({ from: peak.loopRow, to: first[peakSegment].to, weight: 1 });
     for (let j = peakSegment + 1; j < first.length; j++) stabilised.push({ ...first[j] });
+    stabilised.push(...upToPeak, { from: before, to: t.loops.length, weight: 1 });
     reused = true;
     return false;
   });
