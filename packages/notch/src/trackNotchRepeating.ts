@@ -33,7 +33,8 @@ export interface NotchRepeatingResult {
  * both passes then hold the same memory. The stabilised pass is therefore tracked up to that
  * sample only; if its memory then equals the first pass's memory exactly (it does unless
  * `initial` exceeds the block), the rest of the first pass's events is reused, otherwise the
- * whole block is tracked again.
+ * whole block is tracked again. The first pass notes that sample as it goes (it is a reversal
+ * point or the last extreme), so the block is not scanned for it separately.
  *
  * Reference: U. H. Clormann and T. Seeger, Stahlbau 55(3), 1986, 65-71; repeating histories as
  * in ASTM E1049-85 (reapproved 2017), 5.4.5.
