@@ -312,7 +312,8 @@ export class LifeSession {
       this.stage = 'done';
       return;
     }
-    this.secondFull = Math.abs(this.job.initial + this.job.offset) > this.best;
+    // initial is a value after the offset, as the samples are here
+    this.secondFull = !(Math.abs(this.job.initial) < this.best);
     this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     if (this.gate === 0) this.tracker.restartIndex(0);

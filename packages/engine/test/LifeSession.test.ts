@@ -65,6 +65,14 @@ describe('LifeSession', () => {
     expect(s.secondPassSamples).toBe(history.length);
     s.pushSecondPass(history);
     expect(plain(s.finish())).toBe(plain(assessLife(history, job)));
+    // the initial value is after the offset, as the samples are: |-170| exceeds 100 + 60, the
+    // largest |sample + offset|, though |-170 + 60| would not
+    const shifted = { ...job, initial: -170, offset: 60 };
+    const t = new LifeSession(shifted);
+    t.push(history);
+    expect(t.secondPassSamples).toBe(history.length);
+    t.pushSecondPass(history);
+    expect(plain(t.finish())).toBe(plain(assessLife(history, shifted)));
   });
 
   test('misuse and bad input get clear errors', () => {
