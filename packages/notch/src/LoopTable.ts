@@ -85,7 +85,7 @@ export class LoopTable {
     closeIndex: number,
     count: number,
   ): void {
-    if (this.n === this.capacity) this.grow(2 * this.capacity);
+    if (this.n === this.capacity) this.grow(Math.max(16, 2 * this.capacity));
     const i = this.n++;
     if (stressA >= stressB) {
       this.cStressMax[i] = stressA;
@@ -157,6 +157,27 @@ export class LoopTable {
     const out: LoopRow[] = [];
     for (let i = 0; i < this.n; i++) out.push(this.row(i));
     return out;
+  }
+
+  /**
+   * Rows `from` … `to − 1` of `other` as a table that shares its storage (internal: the repeating
+   * shortcut hands out both passes without copying). Reading costs nothing; the first row added
+   * or appended moves the rows to storage of their own first, so neither table ever sees rows
+   * the other adds later.
+   */
+  static view(other: LoopTable, from: number, to: number): LoopTable {
+    const t = new LoopTable(16);
+    t.cStressMax = other.cStressMax.subarray(from, to);
+    t.cStressMin = other.cStressMin.subarray(from, to);
+    t.cStrainMax = other.cStrainMax.subarray(from, to);
+    t.cStrainMin = other.cStrainMin.subarray(from, to);
+    t.cStart = other.cStart.subarray(from, to);
+    t.cTurn = other.cTurn.subarray(from, to);
+    t.cClose = other.cClose.subarray(from, to);
+    t.cCount = other.cCount.subarray(from, to);
+    t.n = to - from;
+    t.capacity = to - from;
+    return t;
   }
 
   /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */

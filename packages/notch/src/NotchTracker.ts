@@ -454,6 +454,15 @@ export class NotchTracker {
   }
 
   /**
+   * The events from reversal row `reversalFrom` and loop row `loopFrom` on, as tables that share
+   * the live tables' storage, with the residue now (internal, for the repeating shortcut: both
+   * passes come out of one pair of tables without a copy; see {@link LoopTable.view}).
+   */
+  viewResult(reversalFrom: number, loopFrom: number): NotchTrackResult {
+    return this.resultWith(ReversalTable.view(this.revs, reversalFrom, this.revs.length), LoopTable.view(this.loopTable, loopFrom, this.loopTable.length));
+  }
+
+  /**
    * Reserves table room for `total` samples in all at the reversal rate seen so far, with a
    * quarter to spare (internal: the batch functions call it after a first piece of the history,
    * so that tables of millions of rows are not copied at every doubling). Each loop takes two

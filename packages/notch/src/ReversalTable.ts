@@ -46,7 +46,7 @@ export class ReversalTable {
 
   /** Appends a row. */
   add(index: number, value: number, stress: number, strain: number): void {
-    if (this.n === this.capacity) this.grow(2 * this.capacity);
+    if (this.n === this.capacity) this.grow(Math.max(16, 2 * this.capacity));
     const i = this.n++;
     this.cIndex[i] = index;
     this.cValue[i] = value;
@@ -87,6 +87,23 @@ export class ReversalTable {
     const out: ReversalRow[] = [];
     for (let i = 0; i < this.n; i++) out.push(this.row(i));
     return out;
+  }
+
+  /**
+   * Rows `from` … `to − 1` of `other` as a table that shares its storage (internal: the repeating
+   * shortcut hands out both passes without copying). Reading costs nothing; the first row added
+   * or appended moves the rows to storage of their own first, so neither table ever sees rows
+   * the other adds later.
+   */
+  static view(other: ReversalTable, from: number, to: number): ReversalTable {
+    const t = new ReversalTable(16);
+    t.cIndex = other.cIndex.subarray(from, to);
+    t.cValue = other.cValue.subarray(from, to);
+    t.cStress = other.cStress.subarray(from, to);
+    t.cStrain = other.cStrain.subarray(from, to);
+    t.n = to - from;
+    t.capacity = to - from;
+    return t;
   }
 
   /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */

@@ -10,7 +10,12 @@ export interface NotchRepeatingResult {
   first: NotchTrackResult;
   /**
    * The stabilised pass: the block again, starting from the memory the first pass left. Every
-   * later pass equals it. Sample indices are those of the block (0 … length − 1).
+   * later pass equals it. Sample indices are those of the block (0 … length − 1). When the first
+   * pass was reused (`reusedFirstPass`), its reversals and loops are listed as they come in a
+   * pass that starts just after the largest |value| (from there to the end of the block, then
+   * from its start up to that value: the same cyclic sequence, as ASTM E1049-85 5.4.5 starts a
+   * repeating history at its largest peak); otherwise from sample 0. Its tables share storage
+   * with the first pass's; adding to either copies it first.
    */
   stabilised: NotchTrackResult;
   /**
@@ -52,31 +57,29 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
     return { first: r, stabilised: t.end(), largestIndex: -1, reusedFirstPass: false };
   }
   // First pass. The tracker keeps the first sample of largest |value| and the memory right after
-  // it as it goes (at its reversals), so the block is read once.
+  // it as it goes (at its reversals), so the block is read once. The tables are sized for the
+  // first pass and half a block more, the second pass's usual share.
   const head = n < SIZING_PIECE ? n : SIZING_PIECE;
   t.pushRange(block, 0, head);
-  t.reserveFor(n);
+  t.reserveFor(n + (n >> 1));
   t.pushRange(block, head, n);
   const peak = t.largestPoint();
   const m = peak !== null ? peak.index : largestMagnitudeIndex(block, off);
   const rev1 = t.reversals.length;
   const loops1 = t.loops.length;
-  // The stabilised pass holds one reversal per turning point of the block, as the first pass
-  // does give or take its start: sized from it, its tables need no growing.
-  const first = t.takeResult(rev1 + 16, (rev1 >> 1) + 16);
+  const first = t.viewResult(0, 0);
+  // Second pass, into the same tables after the first pass's rows.
   t.restartIndex(0);
   let reused = false;
   if (peak !== null) {
     t.pushRange(block, 0, m + 1);
     reused = t.matches(peak.after);
   }
-  if (reused && peak !== null) {
-    t.reversals.appendRange(first.reversals, peak.reversalRow, rev1);
-    t.loops.appendRange(first.loops, peak.loopRow, loops1);
-  } else {
-    t.pushRange(block, peak !== null ? m + 1 : 0, n);
-  }
-  const end = t.takeResult(16, 16);
+  if (!reused) t.pushRange(block, peak !== null ? m + 1 : 0, n);
+  // Reused: the tables now hold the first pass, then the second up to the peak. The stabilised
+  // pass starting just after the peak is one run of rows: the first pass's from the peak on, then
+  // the second's; its residue is the first pass's. Otherwise the second pass is its own run.
+  const end = reused && peak !== null ? t.viewResult(peak.reversalRow, peak.loopRow) : t.viewResult(rev1, loops1);
   const stabilised: NotchTrackResult = {
     reversals: end.reversals,
     loops: end.loops,

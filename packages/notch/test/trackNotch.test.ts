@@ -286,7 +286,10 @@ describe('trackNotchRepeating(block, options)', () => {
         const all = t.loops.toRows();
         const p2 = all.slice(n2 - r.stabilised.loops.length, n2);
         expect(all.slice(n2)).toEqual(p2);
-        expect(r.stabilised.loops.toRows()).toEqual(p2);
+        // the same loops, listed from just after the largest |value| (closed after it, then up to it)
+        const m = r.largestIndex;
+        const rotated = r.reusedFirstPass ? [...p2.filter((l) => l.closeIndex > m), ...p2.filter((l) => l.closeIndex <= m)] : p2;
+        expect(r.stabilised.loops.toRows()).toEqual(rotated);
       }),
     );
   });
@@ -304,14 +307,27 @@ describe('trackNotchRepeating(block, options)', () => {
         t.restartIndex(0);
         const nRev = t.reversals.length;
         const nLoops = t.loops.length;
-        t.push(block);
+        // the second pass in two parts: up to the largest |value|, then the rest
+        const m = Math.max(0, r.largestIndex);
+        t.push(block.slice(0, m + 1));
+        const splitRev = t.reversals.length - nRev;
+        const splitLoops = t.loops.length - nLoops;
+        t.push(block.slice(m + 1));
         const all = t.end();
         expect(r.first.reversals.toRows()).toEqual(first.reversals.toRows());
         expect(r.first.loops.toRows()).toEqual(first.loops.toRows());
         expect(r.first.residue.toRows()).toEqual(first.residue.toRows());
-        expect(r.stabilised.reversals.toRows()).toEqual(all.reversals.toRows().slice(nRev));
-        expect(r.stabilised.loops.toRows()).toEqual(all.loops.toRows().slice(nLoops));
+        // listed from just after the largest |value| when the shortcut was taken, else from sample 0
+        const rotate = <T>(rows: T[], k: number) => (r.reusedFirstPass ? [...rows.slice(k), ...rows.slice(0, k)] : rows);
+        expect(r.stabilised.reversals.toRows()).toEqual(rotate(all.reversals.toRows().slice(nRev), splitRev));
+        expect(r.stabilised.loops.toRows()).toEqual(rotate(all.loops.toRows().slice(nLoops), splitLoops));
         expect(r.stabilised.residue.toRows()).toEqual(all.residue.toRows());
+        // the tables share storage, yet adding to one leaves the other as it was
+        const before = r.stabilised.loops.toRows();
+        r.first.loops.add(1, 2, 3, 4, 5, 6, 7, 1);
+        r.first.reversals.add(1, 2, 3, 4);
+        expect(r.stabilised.loops.toRows()).toEqual(before);
+        expect(r.first.loops.toRows().slice(0, -1)).toEqual(first.loops.toRows());
         // the largest |value| found without a scan of its own is the first sample of largest |value|
         const mags = block.map((x) => Math.abs(x + off * S));
         expect(r.largestIndex).toBe(mags.indexOf(Math.max(...mags)));
