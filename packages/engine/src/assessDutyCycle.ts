@@ -331,8 +331,7 @@ function gather(
   if (contiguous) {
     const from = segments[0].from;
     const to = segments[segments.length - 1].to;
-    const f = () => new Float64Array(n);
-    const c: LifeLoopColumns = {
+    const c = emptyColumns(n, {
       stressMax: all.stressMax.subarray(from, to),
       stressMin: all.stressMin.subarray(from, to),
       strainMax: all.strainMax.subarray(from, to),
@@ -341,13 +340,7 @@ function gather(
       reversalsToFailure: lives.reversalsToFailure.subarray(from, to),
       cyclesToFailure: lives.cyclesToFailure.subarray(from, to),
       count: all.count.subarray(from, to),
-      damage: f(),
-      startIndex: f(),
-      turnIndex: f(),
-      closeIndex: f(),
-      startEvent: f(),
-      turnEvent: f(),
-    };
+    });
     toSample(all.startIndex, from, to, c.startIndex, 0, c.startEvent);
     toSample(all.turnIndex, from, to, c.turnIndex, 0, c.turnEvent);
     toSample(all.closeIndex, from, to, c.closeIndex, 0, new Float64Array(n));
@@ -372,23 +365,24 @@ function gather(
   return c;
 }
 
-function emptyColumns(n: number): LifeLoopColumns {
-  const f = () => new Float64Array(n);
+/** Report columns of n rows: the given views, and new zeroed columns for the rest. */
+function emptyColumns(n: number, views: Partial<LifeLoopColumns> = {}): LifeLoopColumns {
+  const f = (k: keyof LifeLoopColumns) => views[k] ?? new Float64Array(n);
   return {
-    stressMax: f(),
-    stressMin: f(),
-    strainMax: f(),
-    strainMin: f(),
-    parameter: f(),
-    reversalsToFailure: f(),
-    cyclesToFailure: f(),
-    count: f(),
-    damage: f(),
-    startIndex: f(),
-    turnIndex: f(),
-    closeIndex: f(),
-    startEvent: f(),
-    turnEvent: f(),
+    stressMax: f('stressMax'),
+    stressMin: f('stressMin'),
+    strainMax: f('strainMax'),
+    strainMin: f('strainMin'),
+    parameter: f('parameter'),
+    reversalsToFailure: f('reversalsToFailure'),
+    cyclesToFailure: f('cyclesToFailure'),
+    count: f('count'),
+    damage: f('damage'),
+    startIndex: f('startIndex'),
+    turnIndex: f('turnIndex'),
+    closeIndex: f('closeIndex'),
+    startEvent: f('startEvent'),
+    turnEvent: f('turnEvent'),
   };
 }
 
