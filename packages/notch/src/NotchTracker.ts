@@ -203,7 +203,6 @@ export class NotchTracker {
     return this;
   }
 
-
   /**
    * The per-sample loop: one comparison with the running extreme, one with the closure level;
    * reversals and closures leave it. Sample indices count up from `next`, or come from `indices`.

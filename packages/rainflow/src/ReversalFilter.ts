@@ -139,13 +139,14 @@ export class ReversalFilter {
   /**
    * Pushes samples; writes each newly confirmed turning point (value and sample index) into
    * `outValues` / `outIndices` from position `at`, and returns how many it wrote. The output
-   * needs room for `chunk.length` points. Allocates nothing.
+   * needs room for `chunk.length` points (one more with `keepLeadingExtremes`, which can write two
+   * at the first reversal). Allocates nothing.
    */
   push(chunk: ArrayLike<number>, outValues: Float64Array, outIndices: Float64Array, at = 0): number {
     return this.pushRange(chunk, 0, chunk.length, outValues, outIndices, at);
   }
 
-  /** Like {@link push}, for the samples `chunk[from]` … `chunk[to - 1]`; output room `to - from`. */
+  /** Like {@link push}, for the samples `chunk[from]` … `chunk[to - 1]`; output room `to - from` (+ 1 with `keepLeadingExtremes`). */
   pushRange(
     chunk: ArrayLike<number>,
     from: number,
