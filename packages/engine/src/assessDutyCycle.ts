@@ -531,8 +531,8 @@ export function warningsOf(job: ResolvedJob, f: WarningFacts): LifeWarning[] {
 /**
  * Largest |value| (offset applied) of the kept points and the initial value, for the gate bound.
  *
- * The gate bound ({@link gateBoundAt}), an upper bound of the damage the gate removed: every removed reversal pair is at most a loop of
- * the gate's range. The gate keeps every move of at least its range, so a removed point lies
+ * The gate bound ({@link gateBoundAt}), an upper bound of the damage the gate removed: every
+ * removed reversal pair is at most a loop of the gate's range. The gate keeps every move of at least its range, so a removed point lies
  * within the gate of a kept point (or of the initial value): its magnitude is at most the
  * largest kept magnitude plus the gate, and its local stress at most the first-loading stress
  * there (the cyclic-curve envelope bounds every local stress of the path). The worst place for
