@@ -78,6 +78,11 @@ export class LifeSession {
   private secondSeen = 0;
   private secondFull = false;
   private reused = false;
+  // The first three turning points of the first pass (gated histories): the first sample and
+  // the extremes the gate kept before its first reversal, for a second read that ends before it.
+  private readonly leadValues = new Float64Array(3);
+  private readonly leadIndices = new Float64Array(3);
+  private leadCount = 0;
   private beyond = false;
   private firstBeyond = -1;
 
@@ -142,6 +147,7 @@ export class LifeSession {
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
       const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
+      this.keepLeading(k);
       this.feedFirstPass(this.tv, this.ti, k, 0);
     }
     this.samples += chunk.length;
@@ -278,6 +284,14 @@ export class LifeSession {
     else this.tracker.pushIndexed(values, indices, from, to);
   }
 
+  /** Keeps the first pass's first three turning points (from tv/ti, k of them now). */
+  private keepLeading(k: number): void {
+    for (let i = 0; i < k && this.leadCount < 3; i++) {
+      this.leadValues[this.leadCount] = this.tv[i];
+      this.leadIndices[this.leadCount++] = this.ti[i];
+    }
+  }
+
   private feed(k: number): void {
     if (k > 0) this.tracker.pushIndexed(this.tv, this.ti, 0, k);
     this.drain();
@@ -304,7 +318,11 @@ export class LifeSession {
       return;
     }
     // the last extreme is a turning point too
-    if (this.gate > 0) this.feedFirstPass(this.tv, this.ti, this.filter.pendingInto(this.tv, this.ti, 0), 0);
+    if (this.gate > 0) {
+      const k = this.filter.pendingInto(this.tv, this.ti, 0);
+      this.keepLeading(k);
+      this.feedFirstPass(this.tv, this.ti, k, 0);
+    }
     this.removed = this.filter.removedCount;
     this.firstRows = this.loops.length;
     this.firstResidue = this.tracker.residue();
@@ -312,8 +330,13 @@ export class LifeSession {
       this.stage = 'done';
       return;
     }
-    // initial is a value after the offset, as the samples are here
-    this.secondFull = !(Math.abs(this.job.initial) < this.best);
+    // A full second read when the initial value reaches the history's largest |value| (initial
+    // is a value after the offset, as the samples are here), or when the history starts at that
+    // value and ends on it too: the plateau across the seam then keeps the end's sample index,
+    // so the memories at the largest |value| differ in that index.
+    const end = this.tracker.snapshot();
+    const seamPlateau = this.peakIndex === 0 && end.extIndex !== 0 && end.ext === this.peakValue + this.job.offset;
+    this.secondFull = !(Math.abs(this.job.initial) < this.best) || seamPlateau;
     this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     if (this.gate === 0) this.tracker.restartIndex(0);
@@ -326,12 +349,23 @@ export class LifeSession {
       this.stage = 'done';
       return;
     }
-    if (this.gate > 0) {
+    if (this.gate > 0 && this.filter.confirmedCount > 1) {
       // The samples up to the largest |value| confirm every turning point before it again; the
       // one at it was confirmed by later samples in the first pass, so it is pushed as found there.
       this.tv[0] = this.peakValue;
       this.ti[0] = this.peakIndex;
       this.feed(1);
+    } else if (this.gate > 0) {
+      // The read ended before the gate's first reversal (only the first sample is out): the first
+      // pass kept the extremes before it when that reversal came, the largest |value| among them.
+      // Those up to the largest |value| are pushed as the first pass found them.
+      let k = 0;
+      for (let i = 1; i < this.leadCount; i++) {
+        if (this.leadIndices[i] > this.peakIndex) break;
+        this.tv[k] = this.leadValues[i];
+        this.ti[k++] = this.leadIndices[i];
+      }
+      this.feed(k);
     }
     if (this.peakSnapshot !== null && this.tracker.matches(this.peakSnapshot)) {
       this.reused = true;

@@ -75,6 +75,29 @@ describe('LifeSession', () => {
     expect(plain(t.finish())).toBe(plain(assessLife(history, shifted)));
   });
 
+  test('a history that starts at its largest |value| and ends on it (a plateau across the seam) streams like batch', () => {
+    // found by the running-totals property under an unpinned seed: the session asked for one
+    // sample again and then stopped, because the seam plateau keeps the end's sample index
+    const history = [-352, 0, -352];
+    const job = { material: sae1045, notch: { Kt: 2 } };
+    const s = new LifeSession(job);
+    s.push(history);
+    expect(s.secondPassSamples).toBe(history.length);
+    s.pushSecondPass(history);
+    expect(plain(s.finish())).toBe(plain(assessLife(history, job)));
+  });
+
+  test('a second read that ends before the gate confirms its first reversal gets the points the first pass kept', () => {
+    // found by a random search: the largest |value| (-60) lies before the gate's first reversal,
+    // and the first pass kept the extreme before it (-1) only when that reversal came
+    const history = [-2, -1, -60, 0];
+    const job = { material: sae1045, notch: { Kt: 2 }, gate: 60 };
+    expect(plain(streamed(history, [], job))).toBe(plain(assessLife(history, job)));
+    const s = new LifeSession(job);
+    s.push(history);
+    expect(s.secondPassSamples).toBe(3);
+  });
+
   test('misuse and bad input get clear errors', () => {
     const job = { material: sae1045, notch: { Kt: 2 } };
     expect(() => new LifeSession({ ...job, gateFraction: 0.1 })).toThrow(/fullScale/);
