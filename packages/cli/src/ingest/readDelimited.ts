@@ -4,7 +4,7 @@ import { parse, type Options as CsvParseOptions } from 'csv-parse';
 import { ChunkAssembler } from './ChunkAssembler.js';
 import { channelConversion, type ChannelConversion, type ChannelQuantity } from './channelConversion.js';
 import { DELIMITER_CHARACTERS, detectDialect, type Dialect, type DialectOverride } from './detectDialect.js';
-import { classifyBadText, FastNumericScanner, SCAN_QUOTED } from './FastNumericScanner.js';
+import { classifyBadText, FastNumericScanner, SCAN_QUOTED, type ScannerLayout } from './FastNumericScanner.js';
 import { IngestError, IngestOptionError } from './IngestError.js';
 import { parseDecimalText } from './parseDecimal.js';
 import { SignalChecks, type SignalCheckThresholds, type SignalWarning } from './SignalChecks.js';
@@ -405,24 +405,12 @@ async function scanFile(handle: import('node:fs/promises').FileHandle, scanner: 
   }
 }
 
-interface CsvLayout {
-  file: string;
-  delimiter: Dialect['delimiter'];
-  decimalComma: boolean;
-  commentByte: number;
-  fieldCount: number;
-  slotOfField: Int32Array;
-  multiplier: Float64Array;
-  divisor: Float64Array;
-  names: readonly string[];
-}
-
 /**
  * The csv-parse options of the public reader (documented in docs/cli-ingestion.md): quote `"`,
  * escape `""`, full-line comments only, empty lines skipped, CRLF or LF record ends, field counts
  * checked by us (so the error names the line).
  */
-function csvParseOptions(layout: CsvLayout, bom: boolean): CsvParseOptions {
+function csvParseOptions(layout: ScannerLayout, bom: boolean): CsvParseOptions {
   return {
     delimiter: DELIMITER_CHARACTERS[layout.delimiter],
     bom,
@@ -442,7 +430,7 @@ async function readWithCsvParse(
   lineOffset: number,
   bom: boolean,
   headerPending: boolean,
-  layout: CsvLayout,
+  layout: ScannerLayout,
   out: ChunkAssembler,
   chunkBytes: number,
 ): Promise<void> {
