@@ -1,17 +1,6 @@
 import { LoopTable, NotchSampleError, NotchTracker, ReversalTable } from '@loopwise/notch';
 import { ReversalFilter } from '@loopwise/rainflow';
-import { lifeFromDamage } from '@loopwise/miner';
-import {
-  echoInputs,
-  gateBoundAt,
-  PARAMETER_UNITS,
-  reportFrom,
-  serviceOf,
-  trackerOptionsOf,
-  warningsOf,
-  type IndexMap,
-} from './assessDutyCycle';
-import { ASSUMPTIONS, CAUTION } from './assumptions';
+import { emptyColumns, gateBoundAt, reportFrame, reportFrom, trackerOptionsOf, warningsOf, type IndexMap } from './assessDutyCycle';
 import { LoopAggregate } from './LoopAggregate';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
@@ -419,47 +408,13 @@ export class LifeSession {
     }
     const damage = stab.total();
     const events = [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }];
-    const perRepeat = serviceOf(job, events);
-    const life = lifeFromDamage(damage, {
-      criticalDamage: job.criticalDamage,
-      scatterFactor: job.scatterFactor,
-      ...(perRepeat === undefined ? {} : { unit: { label: job.unit!.label, perRepeat } }),
-    });
     const bins = Math.max(1, Math.ceil(this.samples / this.binSize));
     const timeline = new Float64Array(bins);
     timeline.set(stab.timeline.subarray(0, Math.min(bins, stab.timeline.length)));
     const worstLoops = stab.worst.map((w) => ({ ...w, share: damage > 0 ? w.damage / damage : 0 }));
-    const empty = new Float64Array(0);
     return {
-      format: 'loopwise-life-report',
-      version: 1,
-      inputs: echoInputs(job, events, this.gate),
-      assumptions: [...ASSUMPTIONS],
-      caution: CAUTION,
-      damage: {
-        correction: job.meanStress,
-        parameterUnit: PARAMETER_UNITS[job.meanStress],
-        perRepeat: damage,
-        firstPass: firstPass.total(),
-        reusedFirstPass: this.reused,
-      },
-      life,
-      loops: {
-        stressMax: empty,
-        stressMin: empty,
-        strainMax: empty,
-        strainMin: empty,
-        parameter: empty,
-        reversalsToFailure: empty,
-        cyclesToFailure: empty,
-        count: empty,
-        damage: empty,
-        startIndex: empty,
-        turnIndex: empty,
-        closeIndex: empty,
-        startEvent: empty,
-        turnEvent: empty,
-      },
+      ...reportFrame(job, events, this.gate, { perRepeat: damage, firstPass: firstPass.total(), reusedFirstPass: this.reused }),
+      loops: emptyColumns(0),
       worstLoops,
       timeline: { binSize: this.binSize, samples: this.samples, damage: timeline },
       events: [{ name: 'history', repeats: 1, samples: this.samples, damage, share: damage > 0 ? 1 : 0 }],

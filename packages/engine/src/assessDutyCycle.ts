@@ -20,7 +20,7 @@ export interface DutyEvent {
   duration?: number;
 }
 
-export const PARAMETER_UNITS: Record<string, string> = {
+const PARAMETER_UNITS: Record<string, string> = {
   none: 'strain amplitude',
   morrow: 'strain amplitude',
   modifiedMorrow: 'strain amplitude',
@@ -209,12 +209,6 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     startIndex: clampIndex(stabilised.startIndex),
     endIndex: clampIndex(stabilised.turnIndex),
   };
-  const perRepeat = serviceOf(job, events);
-  const life = lifeFromDamage(damage, {
-    criticalDamage: job.criticalDamage,
-    scatterFactor: job.scatterFactor,
-    ...(perRepeat === undefined ? {} : { unit: { label: job.unit!.label, perRepeat } }),
-  });
 
   const binSize = Math.max(1, Math.ceil(totalSamples / job.timelineBins));
   const timeline = damageTimeline(attribution, { binSize, sampleCount: totalSamples });
@@ -256,25 +250,39 @@ export function reportFrom(tracked: TrackedSchedule, job: ResolvedJob): LifeRepo
     firstReversal,
   });
   return {
-    format: 'loopwise-life-report',
-    version: 1,
-    inputs: echoInputs(job, events, gate),
-    assumptions: [...ASSUMPTIONS],
-    caution: CAUTION,
-    damage: {
-      correction: job.meanStress,
-      parameterUnit: PARAMETER_UNITS[job.meanStress],
-      perRepeat: damage,
-      firstPass: firstDamage,
-      reusedFirstPass: track.reusedFirstPass,
-    },
-    life,
+    ...reportFrame(job, events, gate, { perRepeat: damage, firstPass: firstDamage, reusedFirstPass: track.reusedFirstPass }),
     loops: stabilised,
     worstLoops,
     timeline: { binSize, samples: totalSamples, damage: timeline },
     events: eventDamage,
     gate: { range: gate, removedReversals: removed },
     warnings,
+  };
+}
+
+/**
+ * The head of a report, which does not depend on the loops (internal; shared with the
+ * streaming session): format, echoed inputs, assumptions, caution, damage and life.
+ */
+export function reportFrame(
+  job: ResolvedJob,
+  events: DutyEvent[],
+  gate: number,
+  damage: { perRepeat: number; firstPass: number; reusedFirstPass: boolean },
+): Pick<LifeReport, 'format' | 'version' | 'inputs' | 'assumptions' | 'caution' | 'damage' | 'life'> {
+  const perRepeat = serviceOf(job, events);
+  return {
+    format: 'loopwise-life-report',
+    version: 1,
+    inputs: echoInputs(job, events, gate),
+    assumptions: [...ASSUMPTIONS],
+    caution: CAUTION,
+    damage: { correction: job.meanStress, parameterUnit: PARAMETER_UNITS[job.meanStress], ...damage },
+    life: lifeFromDamage(damage.perRepeat, {
+      criticalDamage: job.criticalDamage,
+      scatterFactor: job.scatterFactor,
+      ...(perRepeat === undefined ? {} : { unit: { label: job.unit!.label, perRepeat } }),
+    }),
   };
 }
 
@@ -365,8 +373,8 @@ function gather(
   return c;
 }
 
-/** Report columns of n rows: the given views, and new zeroed columns for the rest. */
-function emptyColumns(n: number, views: Partial<LifeLoopColumns> = {}): LifeLoopColumns {
+/** Report columns of n rows: the given views, and new zeroed columns for the rest (internal). */
+export function emptyColumns(n: number, views: Partial<LifeLoopColumns> = {}): LifeLoopColumns {
   const f = (k: keyof LifeLoopColumns) => views[k] ?? new Float64Array(n);
   return {
     stressMax: f('stressMax'),
@@ -578,7 +586,7 @@ export function gateBoundAt(job: ResolvedJob, largest: number, gate: number, rem
   return ((removed + 1) / 2) * perLoop;
 }
 
-export function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {
+function echoInputs(job: ResolvedJob, events: DutyEvent[], gate: number): Record<string, unknown> {
   const m = job.material;
   return {
     material: { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },
