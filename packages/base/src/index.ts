@@ -1,0 +1,5 @@
+export { encodeNumber, decodeNumber, encodeArray, decodeArray, type EncodedNumber } from './numberCodec';
+export { NeumaierAdder, neumaierSum } from './NeumaierAdder';
+export { LoopwiseError, describeValue } from './LoopwiseError';
+export { binIndex } from './binIndex';
+export { widenColumn, grownCapacity, RowShare } from './columnTables';
