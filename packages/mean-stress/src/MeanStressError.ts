@@ -1,3 +1,5 @@
+import { describeValue, LoopwiseError } from '@loopwise/base';
+
 /** Stable codes of {@link MeanStressError}. */
 export type MeanStressErrorCode =
   | 'invalid-loop'
@@ -12,30 +14,28 @@ export type MeanStressErrorCode =
  * loop index), a Walker γ outside (0, 1] (`invalid-gamma`), a Walker estimate without Su
  * (`missing-tensile-strength`), an unknown name (`unknown-damage-parameter`), or a bad output
  * column or option (`invalid-argument`). Invalid materials throw the material package's
- * `MaterialError`.
+ * `MaterialError`. A {@link LoopwiseError} of `@loopwise/base`: `code`, `field`, `value` and
+ * `index` (the loop index for column input, otherwise undefined).
  *
  * @example
  * try { smithWatsonTopper.reversalsToFailure({ sigmaMax: 100, sigmaMin: 200, epsilonMax: 0.002, epsilonMin: 0 }, m); }
  * catch (e) { (e as MeanStressError).code; }
  * // returns 'invalid-loop'
  */
-export class MeanStressError extends Error {
+export class MeanStressError extends LoopwiseError {
   /** Stable machine-readable code. */
-  readonly code: MeanStressErrorCode;
-  /** The field or argument at fault, e.g. `"sigmaMin"`, `"gamma"`. */
-  readonly field: string;
-  /** The value it had. */
-  readonly value: unknown;
-  /** Loop index for column input, otherwise `undefined`. */
-  readonly index: number | undefined;
+  declare readonly code: MeanStressErrorCode;
 
+  /**
+   * @param code stable code
+   * @param field the field or argument at fault, e.g. `"sigmaMin"`, `"gamma"`
+   * @param value the value it had
+   * @param rule the rule it broke, e.g. `"must be a finite number"`
+   * @param index loop index for column input
+   */
   constructor(code: MeanStressErrorCode, field: string, value: unknown, rule: string, index?: number) {
     const where = index === undefined ? field : `${field}[${index}]`;
-    super(`${code}: ${where} = ${Object.is(value, -0) ? '-0' : String(value)} (${rule})`);
+    super(code, field, value, `${code}: ${where} = ${describeValue(value)} (${rule})`, index);
     this.name = 'MeanStressError';
-    this.code = code;
-    this.field = field;
-    this.value = value;
-    this.index = index;
   }
 }

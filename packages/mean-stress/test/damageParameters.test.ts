@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { LoopwiseError } from '@loopwise/base';
 import { ConvergenceError, handbookSteels, MaterialError, REVERSALS_TABLE_MIN_COUNT, type Material } from '@loopwise/material';
 import {
   createWalker,
@@ -135,8 +136,12 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
       try {
         p.reversalsToFailure({ ...good, [field]: value }, aisi4340);
       } catch (e) {
+        expect(e).toBeInstanceOf(LoopwiseError);
+        expect((e as MeanStressError).name).toBe('MeanStressError');
         expect((e as MeanStressError).code).toBe('invalid-loop');
         expect((e as MeanStressError).field).toBe(field);
+        expect((e as MeanStressError).value).toBe(value);
+        expect((e as MeanStressError).index).toBeUndefined();
       }
     });
     it('a loop with sigmaMax < sigmaMin or epsilonMax < epsilonMin throws invalid-loop', () => {

@@ -1,3 +1,5 @@
+import { describeValue, LoopwiseError } from '@loopwise/base';
+
 /** Stable codes of {@link MinerError}. */
 export type MinerErrorCode =
   | 'invalid-count'
@@ -15,9 +17,10 @@ export type MinerErrorCode =
   | 'invalid-argument';
 
 /**
- * Thrown for bad input to the Palmgren-Miner sum and its attribution functions. `code` is stable
- * for programs; `field` names the argument, option or column at fault, `value` is what it got,
- * and `index` is the row (loop, bin or event) for column input, otherwise `undefined`.
+ * Thrown for bad input to the Palmgren-Miner sum and its attribution functions: a
+ * {@link LoopwiseError} of `@loopwise/base`. `code` is stable for programs; `field` names the
+ * argument, option or column at fault, `value` is what it got, and `index` is the row (loop,
+ * bin or event) for column input, otherwise `undefined`.
  *
  * Codes: `invalid-count` (a count NaN, ±Infinity or negative), `invalid-life` (cycles or
  * reversals to failure NaN, ≤ 0, or so small that the damage overflows), `invalid-index` (a
@@ -36,34 +39,20 @@ export type MinerErrorCode =
  * catch (e) { (e as MinerError).code; }
  * // returns 'invalid-life'
  */
-export class MinerError extends Error {
+export class MinerError extends LoopwiseError {
   /** Stable machine-readable code. */
-  readonly code: MinerErrorCode;
-  /** The argument, option or column at fault, e.g. `"cyclesToFailure"`, `"criticalDamage"`. */
-  readonly field: string;
-  /** The value it had. */
-  readonly value: unknown;
-  /** Row index for column input (loop, bin, event), otherwise `undefined`. */
-  readonly index: number | undefined;
+  declare readonly code: MinerErrorCode;
 
+  /**
+   * @param code stable code
+   * @param field the argument, option or column at fault, e.g. `"cyclesToFailure"`, `"criticalDamage"`
+   * @param value the value it had
+   * @param rule the rule it broke, e.g. `"must be a finite number >= 0"`
+   * @param index row index for column input (loop, bin, event)
+   */
   constructor(code: MinerErrorCode, field: string, value: unknown, rule: string, index?: number) {
     const where = index === undefined ? field : `${field}[${index}]`;
-    super(`${code}: ${where} = ${describe(value)} (${rule})`);
+    super(code, field, value, `${code}: ${where} = ${describeValue(value)} (${rule})`, index);
     this.name = 'MinerError';
-    this.code = code;
-    this.field = field;
-    this.value = value;
-    this.index = index;
-  }
-}
-
-function describe(value: unknown): string {
-  if (typeof value === 'number') return Object.is(value, -0) ? '-0' : String(value);
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (value === undefined) return 'undefined';
-  try {
-    return JSON.stringify(value) ?? String(value);
-  } catch {
-    return String(value);
   }
 }

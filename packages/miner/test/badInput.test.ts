@@ -1,4 +1,5 @@
 import { describe, expect, test } from 'vitest';
+import { LoopwiseError } from '@loopwise/base';
 import {
   MinerError,
   MinerSum,
@@ -65,7 +66,9 @@ describe('bad input: every entry point names the field and the value', () => {
       error = e;
     }
     expect(error).toBeInstanceOf(MinerError);
+    expect(error).toBeInstanceOf(LoopwiseError);
     const e = error as MinerError;
+    expect(e.name).toBe('MinerError');
     expect(e.code).toBe(code);
     expect(e.field).toBe(field);
     expect(Object.is(e.value, value)).toBe(true);
