@@ -4,10 +4,10 @@
  * Derived: strain amplitude εa = (εmax − εmin)/2, mean stress σm = (σmax + σmin)/2.
  */
 export interface Loop {
-  readonly sigmaMax: number;
-  readonly sigmaMin: number;
-  readonly epsilonMax: number;
-  readonly epsilonMin: number;
+  readonly stressMax: number;
+  readonly stressMin: number;
+  readonly strainMax: number;
+  readonly strainMin: number;
 }
 
 /**
@@ -15,8 +15,8 @@ export interface Loop {
  * the typed-array kernels `reversalsToFailureInto`.
  */
 export interface LoopColumns {
-  readonly sigmaMax: ArrayLike<number>;
-  readonly sigmaMin: ArrayLike<number>;
-  readonly epsilonMax: ArrayLike<number>;
-  readonly epsilonMin: ArrayLike<number>;
+  readonly stressMax: ArrayLike<number>;
+  readonly stressMin: ArrayLike<number>;
+  readonly strainMax: ArrayLike<number>;
+  readonly strainMin: ArrayLike<number>;
 }

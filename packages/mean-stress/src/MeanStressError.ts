@@ -18,7 +18,7 @@ export type MeanStressErrorCode =
  * `index` (the loop index for column input, otherwise undefined).
  *
  * @example
- * try { smithWatsonTopper.reversalsToFailure({ sigmaMax: 100, sigmaMin: 200, epsilonMax: 0.002, epsilonMin: 0 }, m); }
+ * try { smithWatsonTopper.reversalsToFailure({ stressMax: 100, stressMin: 200, strainMax: 0.002, strainMin: 0 }, m); }
  * catch (e) { (e as MeanStressError).code; }
  * // returns 'invalid-loop'
  */
@@ -28,7 +28,7 @@ export class MeanStressError extends LoopwiseError {
 
   /**
    * @param code stable code
-   * @param field the field or argument at fault, e.g. `"sigmaMin"`, `"gamma"`
+   * @param field the field or argument at fault, e.g. `"stressMin"`, `"gamma"`
    * @param value the value it had
    * @param rule the rule it broke, e.g. `"must be a finite number"`
    * @param index loop index for column input

@@ -5,26 +5,26 @@ import { MeanStressError } from './MeanStressError';
 export function checkLoop(sMax: number, sMin: number, eMax: number, eMin: number, index: number | undefined): void {
   if (sMax >= sMin && eMax >= eMin && sMax < Infinity && sMin > -Infinity && eMax < Infinity && eMin > -Infinity) return;
   const fields = [
-    ['sigmaMax', sMax],
-    ['sigmaMin', sMin],
-    ['epsilonMax', eMax],
-    ['epsilonMin', eMin],
+    ['stressMax', sMax],
+    ['stressMin', sMin],
+    ['strainMax', eMax],
+    ['strainMin', eMin],
   ] as const;
   for (const [field, value] of fields) {
     if (!Number.isFinite(value)) throw new MeanStressError('invalid-loop', field, value, 'must be a finite number', index);
   }
   if (sMax < sMin) {
-    throw new MeanStressError('invalid-loop', 'sigmaMin', sMin, `must be <= sigmaMax (${sMax})`, index);
+    throw new MeanStressError('invalid-loop', 'stressMin', sMin, `must be <= stressMax (${sMax})`, index);
   }
-  throw new MeanStressError('invalid-loop', 'epsilonMin', eMin, `must be <= epsilonMax (${eMax})`, index);
+  throw new MeanStressError('invalid-loop', 'strainMin', eMin, `must be <= strainMax (${eMax})`, index);
 }
 
 /** Internal: checks that the columns and output have a common length and returns it. */
 export function checkColumns(loops: LoopColumns, out: Float64Array, flags: Uint8Array | undefined): number {
-  const count = loops.sigmaMax.length;
-  for (const field of ['sigmaMin', 'epsilonMax', 'epsilonMin'] as const) {
+  const count = loops.stressMax.length;
+  for (const field of ['stressMin', 'strainMax', 'strainMin'] as const) {
     if (loops[field].length !== count) {
-      throw new MeanStressError('invalid-argument', `loops.${field}`, loops[field].length, `length must equal loops.sigmaMax.length (${count})`);
+      throw new MeanStressError('invalid-argument', `loops.${field}`, loops[field].length, `length must equal loops.stressMax.length (${count})`);
     }
   }
   if (out.length < count) throw new MeanStressError('invalid-argument', 'out', out.length, `length must be >= ${count}`);

@@ -17,7 +17,7 @@ export interface LoopReversalsOptions extends ReversalsOptions {
  * `walker`).
  *
  * @example
- * loopReversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340)
+ * loopReversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
  * // returns { reversals: 8250.04..., value: 4, flags: [] }   (SWT)
  */
 export function loopReversalsToFailure(loop: Loop, material: Material, options: LoopReversalsOptions = {}): DamageResult {

@@ -49,7 +49,7 @@ function flagBits(material: Material, sMax: number, sMin: number, r: number): nu
  * Fatigue Fract. Eng. Mater. Struct. 32 (2009) 1004-1019, doi:10.1111/j.1460-2695.2009.01404.x.
  *
  * @example
- * modifiedMorrow.reversalsToFailure({ sigmaMax: 1000, sigmaMin: -600, epsilonMax: 0.007, epsilonMin: -0.003 }, aisi4340)
+ * modifiedMorrow.reversalsToFailure({ stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 }, aisi4340)
  * // returns { reversals: 3195.64..., value: 0.005, flags: [] }   (σm = 200 MPa)
  */
 export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
@@ -59,7 +59,7 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
 
   reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
-    const { sigmaMax: sMax, sigmaMin: sMin, epsilonMax: eMax, epsilonMin: eMin } = loop;
+    const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
     checkLoop(sMax, sMin, eMax, eMin, undefined);
     const ea = (eMax - eMin) / 2;
     const r = modifiedMorrowReversals(
@@ -77,13 +77,13 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
     const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
     const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
     const lnEpsilonF = Math.log(material.epsilonF);
-    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    const { stressMax, stressMin, strainMax, strainMin } = loops;
     if (count < REVERSALS_TABLE_MIN_COUNT) {
       for (let i = 0; i < count; i++) {
-        const sMax = sigmaMax[i];
-        const sMin = sigmaMin[i];
-        const eMax = epsilonMax[i];
-        const eMin = epsilonMin[i];
+        const sMax = stressMax[i];
+        const sMin = stressMin[i];
+        const eMax = strainMax[i];
+        const eMin = strainMin[i];
         checkLoop(sMax, sMin, eMax, eMin, i);
         const r = modifiedMorrowReversals(material, lnEpsilonF, sMax, sMin, (eMax - eMin) / 2, cutoff, maxIt);
         out[i] = r;
@@ -100,10 +100,10 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
     let mLo = Infinity;
     let mHi = -Infinity;
     for (let i = 0; i < count; i++) {
-      const sMax = sigmaMax[i];
-      const sMin = sigmaMin[i];
-      const eMax = epsilonMax[i];
-      const eMin = epsilonMin[i];
+      const sMax = stressMax[i];
+      const sMin = stressMin[i];
+      const eMax = strainMax[i];
+      const eMin = strainMin[i];
       checkLoop(sMax, sMin, eMax, eMin, i);
       const sm = (sMax + sMin) / 2;
       if (sigmaF - sm > 0) {
@@ -124,10 +124,10 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = Object.freeze({
       maxShift: ranged ? Math.log((sigmaF - mHi) / sigmaF) / b : 0,
     });
     for (let i = 0; i < count; i++) {
-      const sMax = sigmaMax[i];
-      const sMin = sigmaMin[i];
+      const sMax = stressMax[i];
+      const sMin = stressMin[i];
       const elastic = sigmaF - (sMax + sMin) / 2;
-      const r = elastic > 0 ? table.solve(Math.log((epsilonMax[i] - epsilonMin[i]) / 2), Math.log(elastic / sigmaF) / b) : 1;
+      const r = elastic > 0 ? table.solve(Math.log((strainMax[i] - strainMin[i]) / 2), Math.log(elastic / sigmaF) / b) : 1;
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(material, sMax, sMin, r);
     }

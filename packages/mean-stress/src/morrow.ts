@@ -43,7 +43,7 @@ function flagBits(material: Material, sMax: number, sMin: number, r: number): nu
  * Engineering Materials and Structures 32 (2009) 1004-1019, doi:10.1111/j.1460-2695.2009.01404.x.
  *
  * @example
- * morrow.reversalsToFailure({ sigmaMax: 1000, sigmaMin: -600, epsilonMax: 0.007, epsilonMin: -0.003 }, aisi4340)
+ * morrow.reversalsToFailure({ stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 }, aisi4340)
  * // returns { reversals: 8677.64..., value: 0.005, flags: [] }   (σm = 200 MPa)
  */
 export const morrow: DamageParameter<'morrow'> = Object.freeze({
@@ -53,7 +53,7 @@ export const morrow: DamageParameter<'morrow'> = Object.freeze({
 
   reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
-    const { sigmaMax: sMax, sigmaMin: sMin, epsilonMax: eMax, epsilonMin: eMin } = loop;
+    const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
     checkLoop(sMax, sMin, eMax, eMin, undefined);
     const ea = (eMax - eMin) / 2;
     const r = morrowReversals(
@@ -71,12 +71,12 @@ export const morrow: DamageParameter<'morrow'> = Object.freeze({
     const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
     const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
     const lnB = Math.log(material.epsilonF);
-    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    const { stressMax, stressMin, strainMax, strainMin } = loops;
     for (let i = 0; i < count; i++) {
-      const sMax = sigmaMax[i];
-      const sMin = sigmaMin[i];
-      const eMax = epsilonMax[i];
-      const eMin = epsilonMin[i];
+      const sMax = stressMax[i];
+      const sMin = stressMin[i];
+      const eMax = strainMax[i];
+      const eMin = strainMin[i];
       checkLoop(sMax, sMin, eMax, eMin, i);
       const r = morrowReversals(material, lnB, sMax, sMin, (eMax - eMin) / 2, cutoff, maxIt);
       out[i] = r;

@@ -30,7 +30,7 @@ function flagBits(r: number): number {
  * Mechanical Behavior of Materials, Pearson, section 14.2.
  *
  * @example
- * none.reversalsToFailure({ sigmaMax: 500, sigmaMin: -300, epsilonMax: 0.004, epsilonMin: -0.004 }, sae1045)
+ * none.reversalsToFailure({ stressMax: 500, stressMin: -300, strainMax: 0.004, strainMin: -0.004 }, sae1045)
  * // returns { reversals: 43494.70..., value: 0.004, flags: [] }
  */
 export const none: DamageParameter<'none'> = Object.freeze({
@@ -40,8 +40,8 @@ export const none: DamageParameter<'none'> = Object.freeze({
 
   reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
-    checkLoop(loop.sigmaMax, loop.sigmaMin, loop.epsilonMax, loop.epsilonMin, undefined);
-    const ea = (loop.epsilonMax - loop.epsilonMin) / 2;
+    checkLoop(loop.stressMax, loop.stressMin, loop.strainMax, loop.strainMin, undefined);
+    const ea = (loop.strainMax - loop.strainMin) / 2;
     const r = solveTwoTermReversals(
       Math.log(material.sigmaF / material.E), material.b, Math.log(material.epsilonF), material.c, Math.log(ea),
       options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
@@ -60,12 +60,12 @@ export const none: DamageParameter<'none'> = Object.freeze({
     const lnB = Math.log(material.epsilonF);
     const b = material.b;
     const c = material.c;
-    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    const { stressMax, stressMin, strainMax, strainMin } = loops;
     if (count < REVERSALS_TABLE_MIN_COUNT) {
       for (let i = 0; i < count; i++) {
-        const eMax = epsilonMax[i];
-        const eMin = epsilonMin[i];
-        checkLoop(sigmaMax[i], sigmaMin[i], eMax, eMin, i);
+        const eMax = strainMax[i];
+        const eMin = strainMin[i];
+        checkLoop(stressMax[i], stressMin[i], eMax, eMin, i);
         const r = solveTwoTermReversals(lnA, b, lnB, c, Math.log((eMax - eMin) / 2), cutoff, maxIt);
         out[i] = r;
         if (flags !== undefined) flags[i] = flagBits(r);
@@ -76,9 +76,9 @@ export const none: DamageParameter<'none'> = Object.freeze({
     let yMin = Infinity;
     let yMax = 0;
     for (let i = 0; i < count; i++) {
-      const eMax = epsilonMax[i];
-      const eMin = epsilonMin[i];
-      checkLoop(sigmaMax[i], sigmaMin[i], eMax, eMin, i);
+      const eMax = strainMax[i];
+      const eMin = strainMin[i];
+      checkLoop(stressMax[i], stressMin[i], eMax, eMin, i);
       const y = (eMax - eMin) / 2;
       if (y > 0 && y < yMin) yMin = y;
       if (y > yMax) yMax = y;
@@ -87,7 +87,7 @@ export const none: DamageParameter<'none'> = Object.freeze({
       cutoffReversals: cutoff, maxIterations: maxIt, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
     });
     for (let i = 0; i < count; i++) {
-      const r = table.solve(Math.log((epsilonMax[i] - epsilonMin[i]) / 2));
+      const r = table.solve(Math.log((strainMax[i] - strainMin[i]) / 2));
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(r);
     }

@@ -37,7 +37,7 @@ function flagBits(sMax: number, r: number): number {
  * of metals", Journal of Materials, JMLSA 5 (1970) 767-778.
  *
  * @example
- * smithWatsonTopper.reversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340)
+ * smithWatsonTopper.reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
  * // returns { reversals: 8250.04..., value: 4, flags: [] }
  */
 export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.freeze({
@@ -47,7 +47,7 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
 
   reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
-    const { sigmaMax: sMax, sigmaMin: sMin, epsilonMax: eMax, epsilonMin: eMin } = loop;
+    const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
     checkLoop(sMax, sMin, eMax, eMin, undefined);
     const ea = (eMax - eMin) / 2;
     const { sigmaF, E, b, c, epsilonF } = material;
@@ -72,13 +72,13 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
     const p = 2 * b;
     const lnB = Math.log(sigmaF * epsilonF);
     const q = b + c;
-    const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+    const { stressMax, stressMin, strainMax, strainMin } = loops;
     if (count < REVERSALS_TABLE_MIN_COUNT) {
       for (let i = 0; i < count; i++) {
-        const sMax = sigmaMax[i];
-        const eMax = epsilonMax[i];
-        const eMin = epsilonMin[i];
-        checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+        const sMax = stressMax[i];
+        const eMax = strainMax[i];
+        const eMin = strainMin[i];
+        checkLoop(sMax, stressMin[i], eMax, eMin, i);
         const r = sMax > 0 ? solveTwoTermReversals(lnA, p, lnB, q, Math.log((sMax * (eMax - eMin)) / 2), cutoff, maxIt) : Infinity;
         out[i] = r;
         if (flags !== undefined) flags[i] = flagBits(sMax, r);
@@ -89,10 +89,10 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
     let yMin = Infinity;
     let yMax = 0;
     for (let i = 0; i < count; i++) {
-      const sMax = sigmaMax[i];
-      const eMax = epsilonMax[i];
-      const eMin = epsilonMin[i];
-      checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+      const sMax = stressMax[i];
+      const eMax = strainMax[i];
+      const eMin = strainMin[i];
+      checkLoop(sMax, stressMin[i], eMax, eMin, i);
       if (sMax > 0) {
         const y = (sMax * (eMax - eMin)) / 2;
         if (y > 0 && y < yMin) yMin = y;
@@ -103,8 +103,8 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
       cutoffReversals: cutoff, maxIterations: maxIt, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
     });
     for (let i = 0; i < count; i++) {
-      const sMax = sigmaMax[i];
-      const r = sMax > 0 ? table.solve(Math.log((sMax * (epsilonMax[i] - epsilonMin[i])) / 2)) : Infinity;
+      const sMax = stressMax[i];
+      const r = sMax > 0 ? table.solve(Math.log((sMax * (strainMax[i] - strainMin[i])) / 2)) : Infinity;
       out[i] = r;
       if (flags !== undefined) flags[i] = flagBits(sMax, r);
     }

@@ -97,7 +97,7 @@ function flagBits(t: WalkerTerms, sMax: number, r: number): number {
  *
  * @throws {MeanStressError} `invalid-gamma` for γ outside (0, 1].
  * @example
- * createWalker({ gamma: 0.6474 }).reversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340)
+ * createWalker({ gamma: 0.6474 }).reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
  * // returns { reversals: 9209.21..., value: ..., flags: [] }
  */
 export function createWalker(options: WalkerOptions): DamageParameter<'walker'> {
@@ -110,7 +110,7 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
 
     reversalsToFailure(loop: Loop, material: Material, opts: ReversalsOptions = {}): DamageResult {
       assertMaterial(material);
-      const { sigmaMax: sMax, sigmaMin: sMin, epsilonMax: eMax, epsilonMin: eMin } = loop;
+      const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
       checkLoop(sMax, sMin, eMax, eMin, undefined);
       const gamma = resolveGamma(gammaOption, material);
       const t = terms(material, gamma);
@@ -130,13 +130,13 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
       const t = terms(material, resolveGamma(gammaOption, material));
       const cutoff = opts.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
       const maxIt = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-      const { sigmaMax, sigmaMin, epsilonMax, epsilonMin } = loops;
+      const { stressMax, stressMin, strainMax, strainMin } = loops;
       if (count < REVERSALS_TABLE_MIN_COUNT) {
         for (let i = 0; i < count; i++) {
-          const sMax = sigmaMax[i];
-          const eMax = epsilonMax[i];
-          const eMin = epsilonMin[i];
-          checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+          const sMax = stressMax[i];
+          const eMax = strainMax[i];
+          const eMin = strainMin[i];
+          checkLoop(sMax, stressMin[i], eMax, eMin, i);
           const r = walkerReversals(t, sMax, (eMax - eMin) / 2, cutoff, maxIt);
           out[i] = r;
           if (flags !== undefined) flags[i] = flagBits(t, sMax, r);
@@ -151,10 +151,10 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
       let eLo = Infinity;
       let eHi = 0;
       for (let i = 0; i < count; i++) {
-        const sMax = sigmaMax[i];
-        const eMax = epsilonMax[i];
-        const eMin = epsilonMin[i];
-        checkLoop(sMax, sigmaMin[i], eMax, eMin, i);
+        const sMax = stressMax[i];
+        const eMax = strainMax[i];
+        const eMin = strainMin[i];
+        checkLoop(sMax, stressMin[i], eMax, eMin, i);
         if (k === 0 || sMax > 0) {
           const ea = (eMax - eMin) / 2;
           if (ea > 0 && ea < eLo) eLo = ea;
@@ -170,8 +170,8 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
         lnTargetMax: k === 0 ? Math.log(eHi) : k * Math.log(sHi) + Math.log(eHi),
       });
       for (let i = 0; i < count; i++) {
-        const sMax = sigmaMax[i];
-        const ea = (epsilonMax[i] - epsilonMin[i]) / 2;
+        const sMax = stressMax[i];
+        const ea = (strainMax[i] - strainMin[i]) / 2;
         const r = k === 0 ? table.solve(Math.log(ea)) : sMax > 0 ? table.solve(k * Math.log(sMax) + Math.log(ea)) : Infinity;
         out[i] = r;
         if (flags !== undefined) flags[i] = flagBits(t, sMax, r);

@@ -26,8 +26,8 @@ export const compatibleMaterial: fc.Arbitrary<Material> = fatigueConstants.map((
 export const log10Reversals = range(0.5, 11);
 
 /** A loop from amplitude, mean strain, σmax and a positive stress range. */
-export function loopOf(ea: number, sigmaMax: number, stressRange: number, meanStrain = 0) {
-  return { sigmaMax, sigmaMin: sigmaMax - stressRange, epsilonMax: meanStrain + ea, epsilonMin: meanStrain - ea };
+export function loopOf(ea: number, stressMax: number, stressRange: number, meanStrain = 0) {
+  return { stressMax, stressMin: stressMax - stressRange, strainMax: meanStrain + ea, strainMin: meanStrain - ea };
 }
 
 /** Relative difference; 0 for equal values (including equal infinities). */

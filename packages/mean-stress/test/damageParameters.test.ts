@@ -16,7 +16,7 @@ import { range, realisticMaterial } from './arbitraries';
 
 const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
 const names = Object.keys(damageParameters) as DamageParameterName[];
-const good = { sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 };
+const good = { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 };
 
 describe('damageParameters (registry) and damageParameter(name)', () => {
   it('holds the five parameters, each under its own name; the default is smithWatsonTopper', () => {
@@ -42,19 +42,19 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
         (m0, rows) => {
           const m = { ...m0, Su: 800 } as Material;
           const n = rows.length;
-          const cols = { sigmaMax: new Float64Array(n), sigmaMin: new Float64Array(n), epsilonMax: new Float64Array(n), epsilonMin: new Float64Array(n) };
+          const cols = { stressMax: new Float64Array(n), stressMin: new Float64Array(n), strainMax: new Float64Array(n), strainMin: new Float64Array(n) };
           rows.forEach(([lg, sMax, range2], i) => {
             const ea = lg < -4.9 ? 0 : 10 ** lg;
-            cols.sigmaMax[i] = sMax;
-            cols.sigmaMin[i] = sMax - range2;
-            cols.epsilonMax[i] = ea;
-            cols.epsilonMin[i] = -ea;
+            cols.stressMax[i] = sMax;
+            cols.stressMin[i] = sMax - range2;
+            cols.strainMax[i] = ea;
+            cols.strainMin[i] = -ea;
           });
           const out = new Float64Array(n);
           const flags = new Uint8Array(n);
           expect(p.reversalsToFailureInto(cols, m, out, flags)).toBe(out);
           for (let i = 0; i < n; i++) {
-            const r = p.reversalsToFailure({ sigmaMax: cols.sigmaMax[i], sigmaMin: cols.sigmaMin[i], epsilonMax: cols.epsilonMax[i], epsilonMin: cols.epsilonMin[i] }, m);
+            const r = p.reversalsToFailure({ stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] }, m);
             expect(out[i]).toBe(r.reversals);
             expect(flags[i]).toBe(r.flags.reduce((bits, f) => bits | DAMAGE_FLAG_BITS[f], 0));
             expect(Number.isNaN(out[i])).toBe(false);
@@ -82,14 +82,14 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
           const m = { ...m0, Su: 800 } as Material;
           const param = name === 'walker' ? createWalker({ gamma }) : p;
           const n = rows.length;
-          const cols = { sigmaMax: new Float64Array(n), sigmaMin: new Float64Array(n), epsilonMax: new Float64Array(n), epsilonMin: new Float64Array(n) };
+          const cols = { stressMax: new Float64Array(n), stressMin: new Float64Array(n), strainMax: new Float64Array(n), strainMin: new Float64Array(n) };
           rows.forEach(([lg, sMax, range2], i) => {
             const [lgT, sMaxT, range2T] = i % 5 === tie % 5 ? rows[0] : [lg, sMax, range2];
             const ea = lgT < -6.9 ? 0 : 10 ** lgT;
-            cols.sigmaMax[i] = sMaxT;
-            cols.sigmaMin[i] = sMaxT - range2T;
-            cols.epsilonMax[i] = ea;
-            cols.epsilonMin[i] = -ea;
+            cols.stressMax[i] = sMaxT;
+            cols.stressMin[i] = sMaxT - range2T;
+            cols.strainMax[i] = ea;
+            cols.strainMin[i] = -ea;
           });
           const out = new Float64Array(n);
           const flags = new Uint8Array(n);
@@ -97,7 +97,7 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
           expect(param.reversalsToFailureInto(cols, m, out, flags)).toBe(out);
           // Assert: 1 and Infinity exactly, roots to the solver's tolerance, flags exactly, no NaN
           for (let i = 0; i < n; i++) {
-            const r = param.reversalsToFailure({ sigmaMax: cols.sigmaMax[i], sigmaMin: cols.sigmaMin[i], epsilonMax: cols.epsilonMax[i], epsilonMin: cols.epsilonMin[i] }, m);
+            const r = param.reversalsToFailure({ stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] }, m);
             expect(Number.isNaN(out[i])).toBe(false);
             if (r.reversals === 1 || r.reversals === Infinity) expect(out[i]).toBe(r.reversals);
             else expect(Math.abs(out[i] / r.reversals - 1)).toBeLessThan(1e-12);
@@ -115,22 +115,22 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
     const p = damageParameters[name];
     const n = REVERSALS_TABLE_MIN_COUNT;
     const cols = {
-      sigmaMax: new Float64Array(n).fill(good.sigmaMax), sigmaMin: new Float64Array(n).fill(good.sigmaMin),
-      epsilonMax: new Float64Array(n).fill(good.epsilonMax), epsilonMin: new Float64Array(n).fill(good.epsilonMin),
+      stressMax: new Float64Array(n).fill(good.stressMax), stressMin: new Float64Array(n).fill(good.stressMin),
+      strainMax: new Float64Array(n).fill(good.strainMax), strainMin: new Float64Array(n).fill(good.strainMin),
     };
     const out = new Float64Array(n).fill(-1);
-    cols.sigmaMin[n - 1] = NaN;
-    expect(() => p.reversalsToFailureInto(cols, aisi4340, out)).toThrow(new RegExp(`sigmaMin\\[${n - 1}\\]`));
+    cols.stressMin[n - 1] = NaN;
+    expect(() => p.reversalsToFailureInto(cols, aisi4340, out)).toThrow(new RegExp(`stressMin\\[${n - 1}\\]`));
     if (name !== 'morrow') expect(out.every((v) => v === -1)).toBe(true);
-    cols.sigmaMin[n - 1] = good.sigmaMin;
+    cols.stressMin[n - 1] = good.stressMin;
     expect(() => p.reversalsToFailureInto(cols, aisi4340, out, undefined, { maxIterations: 0 })).toThrow(ConvergenceError);
   });
 
   describe.each(names)('%s: bad input', (name) => {
     const p = damageParameters[name];
     it.each([
-      ['sigmaMax', NaN], ['sigmaMax', Infinity], ['sigmaMin', NaN], ['sigmaMin', -Infinity],
-      ['epsilonMax', NaN], ['epsilonMax', Infinity], ['epsilonMin', NaN], ['epsilonMin', -Infinity],
+      ['stressMax', NaN], ['stressMax', Infinity], ['stressMin', NaN], ['stressMin', -Infinity],
+      ['strainMax', NaN], ['strainMax', Infinity], ['strainMin', NaN], ['strainMin', -Infinity],
     ])('a loop with %s = %s throws invalid-loop naming the field', (field, value) => {
       expect(() => p.reversalsToFailure({ ...good, [field]: value }, aisi4340)).toThrow(MeanStressError);
       try {
@@ -144,14 +144,14 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
         expect((e as MeanStressError).index).toBeUndefined();
       }
     });
-    it('a loop with sigmaMax < sigmaMin or epsilonMax < epsilonMin throws invalid-loop', () => {
-      expect(() => p.reversalsToFailure({ ...good, sigmaMax: -500 }, aisi4340)).toThrow(/invalid-loop: sigmaMin = -400 \(must be <= sigmaMax \(-500\)\)/);
-      expect(() => p.reversalsToFailure({ ...good, epsilonMin: 0.01 }, aisi4340)).toThrow(/epsilonMin/);
+    it('a loop with stressMax < stressMin or strainMax < strainMin throws invalid-loop', () => {
+      expect(() => p.reversalsToFailure({ ...good, stressMax: -500 }, aisi4340)).toThrow(/invalid-loop: stressMin = -400 \(must be <= stressMax \(-500\)\)/);
+      expect(() => p.reversalsToFailure({ ...good, strainMin: 0.01 }, aisi4340)).toThrow(/strainMin/);
     });
     it('the kernel names the index of a bad loop and checks column lengths', () => {
-      const cols = { sigmaMax: [800, 800, 100], sigmaMin: [-400, -400, 200], epsilonMax: [0.006, 0.006, 0.006], epsilonMin: [-0.004, -0.004, -0.004] };
-      expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(3))).toThrow(/sigmaMin\[2\]/);
-      expect(() => p.reversalsToFailureInto({ ...cols, epsilonMin: [0] }, aisi4340, new Float64Array(3))).toThrow(/loops\.epsilonMin/);
+      const cols = { stressMax: [800, 800, 100], stressMin: [-400, -400, 200], strainMax: [0.006, 0.006, 0.006], strainMin: [-0.004, -0.004, -0.004] };
+      expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(3))).toThrow(/stressMin\[2\]/);
+      expect(() => p.reversalsToFailureInto({ ...cols, strainMin: [0] }, aisi4340, new Float64Array(3))).toThrow(/loops\.strainMin/);
       expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(2))).toThrow(/out/);
       expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(3), new Uint8Array(1))).toThrow(/flags/);
     });
@@ -161,8 +161,8 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
       }
     });
     it('amplitude 0 gives Infinity, a huge amplitude gives 1 or Infinity (compressive), never NaN', () => {
-      expect(p.reversalsToFailure({ ...good, epsilonMax: 0.001, epsilonMin: 0.001 }, aisi4340).reversals).toBe(Infinity);
-      const huge = p.reversalsToFailure({ ...good, epsilonMax: 1e300, epsilonMin: -1e300 }, aisi4340);
+      expect(p.reversalsToFailure({ ...good, strainMax: 0.001, strainMin: 0.001 }, aisi4340).reversals).toBe(Infinity);
+      const huge = p.reversalsToFailure({ ...good, strainMax: 1e300, strainMin: -1e300 }, aisi4340);
       expect(huge.reversals).toBe(1);
       expect(huge.flags).toEqual(['at-or-above-first-reversal']);
     });

@@ -3,7 +3,7 @@ import { handbookSteels } from '@loopwise/material';
 import { createWalker, damageParameters, loopReversalsToFailure, MeanStressError, type DamageParameterName } from '@loopwise/mean-stress';
 
 const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
-const loop = { sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 };
+const loop = { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 };
 
 describe('loopReversalsToFailure(loop, material, { parameter? })', () => {
   it('defaults to smithWatsonTopper', () => {

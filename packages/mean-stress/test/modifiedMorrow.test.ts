@@ -34,16 +34,20 @@ describe('modifiedMorrow.reversalsToFailure(loop, material)', () => {
     );
   });
 
-  it('is monotone in amplitude and mean stress, and at a tensile mean at most the Morrow life', () => {
+  it('is monotone in amplitude and mean stress, and at a tensile mean at most the Morrow life (to the solve tolerance)', () => {
+    // The life solve converges to 1e-10 relative (docs/material.md, "Solving for reversals"), so
+    // two lives in the true order can come out in the other order by up to (1 + tol) / (1 - tol).
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const slack = (1 + LIFE_SOLVE_TOLERANCE) / (1 - LIFE_SOLVE_TOLERANCE);
     checkProperty(
       'modified Morrow monotone',
       fc.property(realisticMaterial, range(-4, -1), range(0, 0.5), range(0, 0.5), range(0, 0.3), (m, lg, dlg, f, df) => {
         const at = (ea: number, sm: number) => modifiedMorrow.reversalsToFailure(loopOf(ea, sm + 300, 600), m).reversals;
         const sm = f * m.sigmaF;
-        expect(at(10 ** (lg + dlg), sm)).toBeLessThanOrEqual(at(10 ** lg, sm));
-        expect(at(10 ** lg, sm + df * m.sigmaF)).toBeLessThanOrEqual(at(10 ** lg, sm));
+        expect(at(10 ** (lg + dlg), sm)).toBeLessThanOrEqual(at(10 ** lg, sm) * slack);
+        expect(at(10 ** lg, sm + df * m.sigmaF)).toBeLessThanOrEqual(at(10 ** lg, sm) * slack);
         // With c/b > 1 both terms shrink: never longer than Morrow for a tensile mean.
-        expect(at(10 ** lg, sm)).toBeLessThanOrEqual(morrow.reversalsToFailure(loopOf(10 ** lg, sm + 300, 600), m).reversals * (1 + 1e-12));
+        expect(at(10 ** lg, sm)).toBeLessThanOrEqual(morrow.reversalsToFailure(loopOf(10 ** lg, sm + 300, 600), m).reversals * slack);
       }),
       { numRuns: 300 },
     );
@@ -53,7 +57,7 @@ describe('modifiedMorrow.reversalsToFailure(loop, material)', () => {
     // Inputs: Dowling, Mechanical Behavior of Materials, Table 14.1 (AISI 4340) via the shared
     // reference file. The book's answer is not at hand: the expected 2Nf = 3195.64274292993 was
     // computed from the modified Morrow equation (mpmath, 40 digits) and is checked by bisection.
-    const r = modifiedMorrow.reversalsToFailure({ sigmaMax: 1000, sigmaMin: -600, epsilonMax: 0.007, epsilonMin: -0.003 }, aisi4340);
+    const r = modifiedMorrow.reversalsToFailure({ stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 }, aisi4340);
     expect(rel(r.reversals, 3195.64274292993)).toBeLessThan(1e-10);
     const { sigmaF, E, b, epsilonF, c } = aisi4340;
     const k = (sigmaF - 200) / sigmaF;

@@ -34,15 +34,19 @@ describe('morrow.reversalsToFailure(loop, material)', () => {
     );
   });
 
-  it('is monotone: more amplitude or more mean stress never gives more reversals', () => {
+  it('is monotone: more amplitude or more mean stress never gives more reversals (to the solve tolerance)', () => {
+    // The life solve converges to 1e-10 relative (docs/material.md, "Solving for reversals"), so
+    // two lives in the true order can come out in the other order by up to (1 + tol) / (1 - tol).
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const slack = (1 + LIFE_SOLVE_TOLERANCE) / (1 - LIFE_SOLVE_TOLERANCE);
     checkProperty(
       'morrow monotone',
       fc.property(realisticMaterial, range(-4, -1), range(0, 0.5), range(-0.5, 0.5), range(0, 0.3), (m, lg, dlg, f, df) => {
         const sa = 300;
         const at = (ea: number, sm: number) => morrow.reversalsToFailure(loopOf(ea, sm + sa, 2 * sa), m).reversals;
         const sm = f * m.sigmaF;
-        expect(at(10 ** (lg + dlg), sm)).toBeLessThanOrEqual(at(10 ** lg, sm));
-        expect(at(10 ** lg, sm + df * m.sigmaF)).toBeLessThanOrEqual(at(10 ** lg, sm));
+        expect(at(10 ** (lg + dlg), sm)).toBeLessThanOrEqual(at(10 ** lg, sm) * slack);
+        expect(at(10 ** lg, sm + df * m.sigmaF)).toBeLessThanOrEqual(at(10 ** lg, sm) * slack);
       }),
       { numRuns: 300 },
     );
@@ -53,7 +57,7 @@ describe('morrow.reversalsToFailure(loop, material)', () => {
     // quality), via /work/shared/reference/strain-life-table-14-1.json. The book's answer is not
     // at hand: the expected 2Nf = 8677.64985963698 was computed from Morrow's equation with these
     // inputs (mpmath, 40 digits) and is checked independently here by bisection.
-    const loop = { sigmaMax: 1000, sigmaMin: -600, epsilonMax: 0.007, epsilonMin: -0.003 };
+    const loop = { stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 };
     const r = morrow.reversalsToFailure(loop, aisi4340);
     expect(rel(r.reversals, 8677.64985963698)).toBeLessThan(1e-10);
     const { sigmaF, E, b, epsilonF, c } = aisi4340;

@@ -22,7 +22,7 @@ describe('none.reversalsToFailure(loop, material)', () => {
     );
   });
   it('equals the material package reversalsToFailure at the loop amplitude', () => {
-    const r = none.reversalsToFailure({ sigmaMax: 500, sigmaMin: -300, epsilonMax: 0.004, epsilonMin: -0.004 }, sae1045);
+    const r = none.reversalsToFailure({ stressMax: 500, stressMin: -300, strainMax: 0.004, strainMin: -0.004 }, sae1045);
     expect(r).toEqual({ reversals: reversalsToFailure(sae1045, 0.004).reversals, value: 0.004, flags: [] });
   });
   it('zero amplitude gives Infinity (below-cutoff); a huge amplitude gives 1 (at-or-above-first-reversal)', () => {

@@ -7,7 +7,7 @@ import { damageParameters, loopReversalsToFailure } from '@loopwise/mean-stress'
 describe('README example', () => {
   it('AISI 4340, sigma_max 800 MPa, epsilon_a 0.005: SWT 8250.04..., Walker 9209.21... reversals', () => {
     const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
-    const loop = { sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 };
+    const loop = { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 };
     const swt = loopReversalsToFailure(loop, aisi4340);
     expect(swt.reversals).toBeCloseTo(8250.04652803425, 6);
     expect(swt.value).toBeCloseTo(4, 12);

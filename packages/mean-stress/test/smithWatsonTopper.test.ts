@@ -47,13 +47,17 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
     expect(rel(smithWatsonTopper.reversalsToFailure(loop, m).reversals, none.reversalsToFailure(loop, m).reversals)).toBeGreaterThan(0.01);
   });
 
-  it('is monotone in amplitude and in peak stress', () => {
+  it('is monotone in amplitude and in peak stress (to the solve tolerance)', () => {
+    // The life solve converges to 1e-10 relative (docs/mean-stress.md, docs/material.md), so two
+    // lives in the true order can come out in the other order by up to (1 + tol) / (1 - tol).
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const slack = (1 + LIFE_SOLVE_TOLERANCE) / (1 - LIFE_SOLVE_TOLERANCE);
     checkProperty(
       'SWT monotone',
       fc.property(realisticMaterial, range(-4, -1), range(0, 0.5), range(1, 2000), range(0, 500), (m, lg, dlg, sMax, ds) => {
         const at = (ea: number, s: number) => smithWatsonTopper.reversalsToFailure(loopOf(ea, s, s), m).reversals;
-        expect(at(10 ** (lg + dlg), sMax)).toBeLessThanOrEqual(at(10 ** lg, sMax));
-        expect(at(10 ** lg, sMax + ds)).toBeLessThanOrEqual(at(10 ** lg, sMax));
+        expect(at(10 ** (lg + dlg), sMax)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
+        expect(at(10 ** lg, sMax + ds)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
       }),
       { numRuns: 300 },
     );
@@ -63,7 +67,7 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
     // Inputs: Dowling, Mechanical Behavior of Materials, Table 14.1 (AISI 4340) via the shared
     // reference file. The book's answer is not at hand: the expected 2Nf = 8250.04652803425 was
     // computed from the SWT equation (mpmath, 40 digits) and is checked here by bisection.
-    const r = smithWatsonTopper.reversalsToFailure({ sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 }, aisi4340);
+    const r = smithWatsonTopper.reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340);
     expect(rel(r.reversals, 8250.04652803425)).toBeLessThan(1e-10);
     expect(r.value).toBeCloseTo(4, 12);
     const { sigmaF, E, b, epsilonF, c } = aisi4340;

@@ -60,14 +60,18 @@ describe('createWalker({ gamma }).reversalsToFailure(loop, material)', () => {
     expect(rel(createWalker({ gamma: 0.6 }).reversalsToFailure(loop, m).reversals, none.reversalsToFailure(loop, m).reversals)).toBeGreaterThan(0.005);
   });
 
-  it('is monotone in amplitude and in peak stress', () => {
+  it('is monotone in amplitude and in peak stress (to the solve tolerance)', () => {
+    // The life solve converges to 1e-10 relative (docs/mean-stress.md, docs/material.md), so two
+    // lives in the true order can come out in the other order by up to (1 + tol) / (1 - tol).
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const slack = (1 + LIFE_SOLVE_TOLERANCE) / (1 - LIFE_SOLVE_TOLERANCE);
     checkProperty(
       'Walker monotone',
       fc.property(realisticMaterial, range(-4, -1), range(0, 0.5), range(1, 2000), range(0, 500), range(0.3, 0.99), (m, lg, dlg, sMax, ds, gamma) => {
         const w = createWalker({ gamma });
         const at = (ea: number, s: number) => w.reversalsToFailure(loopOf(ea, s, s), m).reversals;
-        expect(at(10 ** (lg + dlg), sMax)).toBeLessThanOrEqual(at(10 ** lg, sMax));
-        expect(at(10 ** lg, sMax + ds)).toBeLessThanOrEqual(at(10 ** lg, sMax));
+        expect(at(10 ** (lg + dlg), sMax)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
+        expect(at(10 ** lg, sMax + ds)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
       }),
       { numRuns: 300 },
     );
@@ -78,7 +82,7 @@ describe('createWalker({ gamma }).reversalsToFailure(loop, material)', () => {
     // the shared reference file; gamma = 0.8818 - 0.0002 x 1172 = 0.6474 (Dowling 2009 steel
     // relation, coefficients value from memory). The expected 2Nf = 9209.21746607676 was computed
     // from the Walker strain-life equation (mpmath, 40 digits) and is checked by bisection.
-    const loop = { sigmaMax: 800, sigmaMin: -400, epsilonMax: 0.006, epsilonMin: -0.004 };
+    const loop = { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 };
     const r = walker.reversalsToFailure(loop, aisi4340);
     expect(rel(r.reversals, 9209.21746607676)).toBeLessThan(1e-9);
     const g = 0.6474;

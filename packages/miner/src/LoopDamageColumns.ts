@@ -11,18 +11,18 @@ export interface LoopDamageColumns {
   damage: ArrayLike<number>;
   /** Sample index of each loop's first reversal (finite integer ≥ 0). */
   startIndex: ArrayLike<number>;
-  /** Sample index of each loop's second reversal (finite integer ≥ 0). */
-  endIndex: ArrayLike<number>;
+  /** Sample index of each loop's second reversal point, where it turned (finite integer ≥ 0). */
+  turnIndex: ArrayLike<number>;
 }
 
 /** A sum or columns, as columns with equal lengths (internal). */
 export function loopColumns(loops: MinerSum | LoopDamageColumns): LoopDamageColumns {
   const c = loops instanceof MinerSum ? loops.columns() : loops;
-  if (c === null || typeof c !== 'object') throw new MinerError('invalid-argument', 'loops', c, 'must be a MinerSum or { damage, startIndex, endIndex }');
+  if (c === null || typeof c !== 'object') throw new MinerError('invalid-argument', 'loops', c, 'must be a MinerSum or { damage, startIndex, turnIndex }');
   const n = c.damage?.length;
   if (typeof n !== 'number') throw new MinerError('invalid-argument', 'damage', c.damage, 'must be an array-like column of numbers');
   checkLength(c.startIndex, n, 'startIndex');
-  checkLength(c.endIndex, n, 'endIndex');
+  checkLength(c.turnIndex, n, 'turnIndex');
   return c;
 }
 

@@ -24,8 +24,8 @@ export interface MinerColumns {
   damage: Float64Array;
   /** Sample index of the record's first reversal. */
   startIndex: Float64Array;
-  /** Sample index of its second reversal. */
-  endIndex: Float64Array;
+  /** Sample index of its second reversal point, where the loop turned. */
+  turnIndex: Float64Array;
   /** The loop's range in the caller's quantity (load, stress, strain), NaN where none was given. */
   range: Float64Array;
 }
@@ -35,7 +35,7 @@ export interface CycleRecordColumns {
   count: ArrayLike<number>;
   cyclesToFailure: ArrayLike<number>;
   startIndex: ArrayLike<number>;
-  endIndex: ArrayLike<number>;
+  turnIndex: ArrayLike<number>;
   range?: ArrayLike<number>;
 }
 
@@ -55,7 +55,7 @@ export interface CutoffReport {
   readonly nearCutoffShare: number;
 }
 
-const COLS = 6; // count, cyclesToFailure, damage, startIndex, endIndex, range
+const COLS = 6; // count, cyclesToFailure, damage, startIndex, turnIndex, range
 
 /**
  * A Palmgren-Miner damage sum over the loops of one repeat of a history:
@@ -107,7 +107,7 @@ export class MinerSum {
 
   /**
    * Adds `count` cycles of life `cyclesToFailure` cycles Nf whose reversals are at samples
-   * `startIndex` and `endIndex`, with an optional `range` (any order of the indices; a half
+   * `startIndex` and `turnIndex`, with an optional `range` (any order of the indices; a half
    * cycle has count 0.5). Returns the damage added, count / Nf, or 0 beyond the cut-off.
    *
    * @throws {MinerError} `invalid-count` (NaN, ±Infinity, negative), `invalid-life` (NaN, ≤ 0,
@@ -115,14 +115,14 @@ export class MinerSum {
    * @example
    * new MinerSum({ cutoff: { cycles: 1e6 } }).addCycles(1, 2e6, 0, 7); // returns 0 (beyond the cut-off)
    */
-  addCycles(count: number, cyclesToFailure: number, startIndex: number, endIndex: number, range?: number): number {
+  addCycles(count: number, cyclesToFailure: number, startIndex: number, turnIndex: number, range?: number): number {
     checkCount(count, 'count');
     checkLife(cyclesToFailure, 'cyclesToFailure');
     checkIndex(startIndex, 'startIndex');
-    checkIndex(endIndex, 'endIndex');
+    checkIndex(turnIndex, 'turnIndex');
     if (range !== undefined) checkRange(range, 'range');
     const d = recordDamage(count, cyclesToFailure, this.cutoffCycles);
-    this.push(count, cyclesToFailure, d, startIndex, endIndex, range);
+    this.push(count, cyclesToFailure, d, startIndex, turnIndex, range);
     return d;
   }
 
@@ -133,41 +133,41 @@ export class MinerSum {
    * @example
    * new MinerSum().addReversals(1, 2000, 0, 1); // returns 0.001 (1 cycle of 1000 cycles)
    */
-  addReversals(count: number, reversalsToFailure: number, startIndex: number, endIndex: number, range?: number): number {
+  addReversals(count: number, reversalsToFailure: number, startIndex: number, turnIndex: number, range?: number): number {
     checkLife(reversalsToFailure, 'reversalsToFailure');
-    return this.addCycles(count, reversalsToFailure / 2, startIndex, endIndex, range);
+    return this.addCycles(count, reversalsToFailure / 2, startIndex, turnIndex, range);
   }
 
   /**
    * Adds every row of typed-array (or plain array) columns in one pass: `count` (cycles),
-   * `cyclesToFailure` (cycles Nf), `startIndex`, `endIndex`, optional `range`. Validates each
+   * `cyclesToFailure` (cycles Nf), `startIndex`, `turnIndex`, optional `range`. Validates each
    * row as {@link MinerSum.addCycles} does and names the row of a bad value; on an error no row
    * of the call is kept.
    *
    * @example
-   * new MinerSum().addColumns({ count: [1, 1], cyclesToFailure: [1e3, 1e4], startIndex: [0, 2], endIndex: [1, 3] }).damage();
+   * new MinerSum().addColumns({ count: [1, 1], cyclesToFailure: [1e3, 1e4], startIndex: [0, 2], turnIndex: [1, 3] }).damage();
    * // returns 0.0011
    */
   addColumns(columns: CycleRecordColumns): this {
     if (columns === null || typeof columns !== 'object') throw new MinerError('invalid-argument', 'columns', columns, 'must be an object of columns');
-    const { count, cyclesToFailure, startIndex, endIndex, range } = columns;
+    const { count, cyclesToFailure, startIndex, turnIndex, range } = columns;
     const m = count?.length;
     if (typeof m !== 'number') throw new MinerError('invalid-argument', 'count', count, 'must be an array-like column of numbers');
     checkLength(cyclesToFailure, m, 'cyclesToFailure');
     checkLength(startIndex, m, 'startIndex');
-    checkLength(endIndex, m, 'endIndex');
+    checkLength(turnIndex, m, 'turnIndex');
     if (range !== undefined) checkLength(range, m, 'range');
     for (let i = 0; i < m; i++) {
       checkCount(count[i], 'count', i);
       checkLife(cyclesToFailure[i], 'cyclesToFailure', i);
       checkIndex(startIndex[i], 'startIndex', i);
-      checkIndex(endIndex[i], 'endIndex', i);
+      checkIndex(turnIndex[i], 'turnIndex', i);
       if (range !== undefined) checkRange(range[i], 'range', i);
       if (cyclesToFailure[i] <= this.cutoffCycles) recordDamage(count[i], cyclesToFailure[i], this.cutoffCycles, i);
     }
     for (let i = 0; i < m; i++) {
       const d = recordDamage(count[i], cyclesToFailure[i], this.cutoffCycles, i);
-      this.push(count[i], cyclesToFailure[i], d, startIndex[i], endIndex[i], range === undefined ? undefined : range[i]);
+      this.push(count[i], cyclesToFailure[i], d, startIndex[i], turnIndex[i], range === undefined ? undefined : range[i]);
     }
     return this;
   }
@@ -210,7 +210,7 @@ export class MinerSum {
   /** The records as typed-array views, see {@link MinerColumns}. */
   columns(): MinerColumns {
     const v = (k: number) => this.cols[k].subarray(0, this.n);
-    return { count: v(0), cyclesToFailure: v(1), damage: v(2), startIndex: v(3), endIndex: v(4), range: v(5) };
+    return { count: v(0), cyclesToFailure: v(1), damage: v(2), startIndex: v(3), turnIndex: v(4), range: v(5) };
   }
 
   /** Index of the first record added without a range, or -1 when every record has one. */

@@ -14,12 +14,12 @@ export interface EventStarts {
 
 /**
  * Events given per reversal: `startEvent[i]` is the event of loop i's first reversal,
- * `endEvent[i]` that of its second, integers in [0, eventCount). For histories whose events are
+ * `turnEvent[i]` that of its second, integers in [0, eventCount). For histories whose events are
  * not one sample range each (interleaved, or loops counted across concatenated recordings).
  */
 export interface EventIds {
   startEvent: ArrayLike<number>;
-  endEvent: ArrayLike<number>;
+  turnEvent: ArrayLike<number>;
   eventCount: number;
 }
 
@@ -29,7 +29,7 @@ export interface EventIds {
  * events' damages sum to the total (up to rounding). Returns one value per event; divide by the
  * total for shares.
  *
- *     E[k] = Σ_i d_i/2 · ([event(s_i) = k] + [event(e_i) = k])
+ *     E[k] = Σ_i d_i/2 · ([event(s_i) = k] + [event(t_i) = k])
  *
  * Reference: the attribution rule of DESIGN.md (half of a loop's damage to each reversal);
  * common practice, no source. O(loops · log events) for `starts`, O(loops) for ids.
@@ -38,19 +38,19 @@ export interface EventIds {
  *   ids outside [0, eventCount) or a bad eventCount; `invalid-index` for a reversal before the
  *   first event; `invalid-argument` for bad damage values or column lengths.
  * @example
- * const loops = { damage: [0.4, 0.2], startIndex: [1, 12], endIndex: [3, 25] };
+ * const loops = { damage: [0.4, 0.2], startIndex: [1, 12], turnIndex: [3, 25] };
  * damageByEvent(loops, { starts: [0, 10, 20] });
  * // returns Float64Array [0.4, 0.1, 0.1]
  */
 export function damageByEvent(loops: MinerSum | LoopDamageColumns, events: EventStarts | EventIds): Float64Array {
   const cols = loopColumns(loops);
   if (events === null || typeof events !== 'object') {
-    throw new MinerError('invalid-events', 'events', events, 'must be { starts } or { startEvent, endEvent, eventCount }');
+    throw new MinerError('invalid-events', 'events', events, 'must be { starts } or { startEvent, turnEvent, eventCount }');
   }
   return 'starts' in events ? byStarts(cols, events.starts) : byIds(cols, events);
 }
 
-function byStarts({ damage, startIndex, endIndex }: LoopDamageColumns, starts: ArrayLike<number>): Float64Array {
+function byStarts({ damage, startIndex, turnIndex }: LoopDamageColumns, starts: ArrayLike<number>): Float64Array {
   if (starts === null || typeof starts !== 'object' || typeof starts.length !== 'number' || starts.length < 1) {
     throw new MinerError('invalid-events', 'starts', starts, 'must be a non-empty array of sample indices');
   }
@@ -67,7 +67,7 @@ function byStarts({ damage, startIndex, endIndex }: LoopDamageColumns, starts: A
     const d = damage[i];
     checkDamage(d, i);
     const a = eventOf(s, startIndex[i], 'startIndex', i);
-    const b = eventOf(s, endIndex[i], 'endIndex', i);
+    const b = eventOf(s, turnIndex[i], 'turnIndex', i);
     out[a] += d * 0.5;
     out[b] += d * 0.5;
   }
@@ -88,24 +88,24 @@ function eventOf(starts: Float64Array, v: number, field: string, i: number): num
 }
 
 function byIds({ damage }: LoopDamageColumns, events: EventIds): Float64Array {
-  const { startEvent, endEvent, eventCount } = events;
+  const { startEvent, turnEvent, eventCount } = events;
   const n = damage.length;
   if (!(Number.isInteger(eventCount) && eventCount >= 1)) {
     throw new MinerError('invalid-events', 'eventCount', eventCount, 'must be an integer >= 1');
   }
   checkLength(startEvent, n, 'startEvent');
-  checkLength(endEvent, n, 'endEvent');
+  checkLength(turnEvent, n, 'turnEvent');
   const out = new Float64Array(eventCount);
   for (let i = 0; i < n; i++) {
     const d = damage[i];
     checkDamage(d, i);
     const a = startEvent[i];
-    const b = endEvent[i];
+    const b = turnEvent[i];
     if (!(Number.isInteger(a) && a >= 0 && a < eventCount)) {
       throw new MinerError('invalid-events', 'startEvent', a, `must be an integer in [0, ${eventCount})`, i);
     }
     if (!(Number.isInteger(b) && b >= 0 && b < eventCount)) {
-      throw new MinerError('invalid-events', 'endEvent', b, `must be an integer in [0, ${eventCount})`, i);
+      throw new MinerError('invalid-events', 'turnEvent', b, `must be an integer in [0, ${eventCount})`, i);
     }
     out[a] += d * 0.5;
     out[b] += d * 0.5;

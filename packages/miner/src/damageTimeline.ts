@@ -21,7 +21,7 @@ export interface TimelineOptions {
  * Damage timeline: the damage of each loop split half to the bin of its first reversal and half
  * to the bin of its second, by sample index,
  *
- *     T[k] = Σ_i d_i/2 · ([s_i ∈ bin k] + [e_i ∈ bin k])
+ *     T[k] = Σ_i d_i/2 · ([s_i ∈ bin k] + [t_i ∈ bin k])
  *
  * so that Σ_k T[k] = Σ_i d_i, the total damage (up to rounding). Where in the history the damage
  * is done, at the resolution of `binSize` samples. One pass over the loops, no allocation beyond
@@ -37,11 +37,11 @@ export interface TimelineOptions {
  * @throws {MinerError} `invalid-argument` for a bad `binSize`, `sampleCount`, `out` or damage value;
  *   `invalid-index` for a reversal index that is not a finite integer ≥ 0 or not below `sampleCount`.
  * @example
- * damageTimeline({ damage: [0.2, 0.1], startIndex: [0, 5], endIndex: [9, 6] }, { binSize: 5 });
+ * damageTimeline({ damage: [0.2, 0.1], startIndex: [0, 5], turnIndex: [9, 6] }, { binSize: 5 });
  * // returns Float64Array [0.1, 0.2]
  */
 export function damageTimeline(loops: MinerSum | LoopDamageColumns, options: TimelineOptions): Float64Array {
-  const { damage, startIndex, endIndex } = loopColumns(loops);
+  const { damage, startIndex, turnIndex } = loopColumns(loops);
   const binSize = options?.binSize;
   if (!(Number.isInteger(binSize) && binSize >= 1)) {
     throw new MinerError('invalid-argument', 'binSize', binSize, 'must be an integer >= 1 (samples per bin)');
@@ -52,8 +52,8 @@ export function damageTimeline(loops: MinerSum | LoopDamageColumns, options: Tim
     samples = 1;
     for (let i = 0; i < n; i++) {
       checkIndex(startIndex[i], 'startIndex', i);
-      checkIndex(endIndex[i], 'endIndex', i);
-      samples = Math.max(samples, startIndex[i] + 1, endIndex[i] + 1);
+      checkIndex(turnIndex[i], 'turnIndex', i);
+      samples = Math.max(samples, startIndex[i] + 1, turnIndex[i] + 1);
     }
   } else if (!(Number.isInteger(samples) && samples >= 1)) {
     throw new MinerError('invalid-argument', 'sampleCount', samples, 'must be an integer >= 1');
@@ -70,12 +70,12 @@ export function damageTimeline(loops: MinerSum | LoopDamageColumns, options: Tim
   for (let i = 0; i < n; i++) {
     const d = damage[i];
     const s = startIndex[i];
-    const e = endIndex[i];
+    const e = turnIndex[i];
     checkDamage(d, i);
     checkIndex(s, 'startIndex', i);
-    checkIndex(e, 'endIndex', i);
+    checkIndex(e, 'turnIndex', i);
     if (s >= samples) throw new MinerError('invalid-index', 'startIndex', s, `must be below sampleCount ${samples}`, i);
-    if (e >= samples) throw new MinerError('invalid-index', 'endIndex', e, `must be below sampleCount ${samples}`, i);
+    if (e >= samples) throw new MinerError('invalid-index', 'turnIndex', e, `must be below sampleCount ${samples}`, i);
     const half = d * 0.5;
     out[Math.floor(s / binSize)] += half;
     out[Math.floor(e / binSize)] += half;

@@ -103,7 +103,7 @@ describe('MinerSum.addColumns(columns) and addSum(other, repeats)', () => {
       fc.property(loopRecords(), (loops) => {
         const cols = toColumns(loops);
         const byRows = new MinerSum({ initialCapacity: 0 });
-        for (const l of loops) byRows.addCycles(l.count, l.cyclesToFailure, l.startIndex, l.endIndex, l.range);
+        for (const l of loops) byRows.addCycles(l.count, l.cyclesToFailure, l.startIndex, l.turnIndex, l.range);
         const byCols = new MinerSum().addColumns(cols);
         expect(byCols.damage()).toBe(byRows.damage());
         expect(Array.from(byCols.columns().damage)).toEqual(Array.from(byRows.columns().damage));
@@ -118,7 +118,7 @@ describe('MinerSum.addColumns(columns) and addSum(other, repeats)', () => {
   test('addColumns keeps no row of a call that fails, and names the bad row', () => {
     const sum = new MinerSum();
     sum.addCycles(1, 10, 0, 1);
-    const bad = { count: [1, 1, 1], cyclesToFailure: [10, NaN, 10], startIndex: [0, 1, 2], endIndex: [1, 2, 3] };
+    const bad = { count: [1, 1, 1], cyclesToFailure: [10, NaN, 10], startIndex: [0, 1, 2], turnIndex: [1, 2, 3] };
     expect(() => sum.addColumns(bad)).toThrow(expect.objectContaining({ code: 'invalid-life', field: 'cyclesToFailure', index: 1 }));
     expect(sum.length).toBe(1);
     expect(sum.damage()).toBe(0.1);

@@ -6,7 +6,7 @@ import { closeRelative, loopRecords, toColumns } from './support/arbitraries';
 
 describe('damageByEvent(loops, events)', () => {
   test('damageByEvent(loops, {starts}) shares a loop that spans two events (the TSDoc example)', () => {
-    const loops = { damage: [0.4, 0.2], startIndex: [1, 12], endIndex: [3, 25] };
+    const loops = { damage: [0.4, 0.2], startIndex: [1, 12], turnIndex: [3, 25] };
     expect(Array.from(damageByEvent(loops, { starts: [0, 10, 20] }))).toEqual([0.4, 0.1, 0.1]);
   });
 
@@ -22,7 +22,7 @@ describe('damageByEvent(loops, events)', () => {
           const eventOf = (i: number) => starts.filter((s) => s <= i).length - 1; // brute force
           const byIds = damageByEvent(sum, {
             startEvent: loops.map((l) => eventOf(l.startIndex)),
-            endEvent: loops.map((l) => eventOf(l.endIndex)),
+            turnEvent: loops.map((l) => eventOf(l.turnIndex)),
             eventCount: starts.length,
           });
           expect(Array.from(byStarts)).toEqual(Array.from(byIds));
@@ -33,14 +33,14 @@ describe('damageByEvent(loops, events)', () => {
   });
 
   test('damageByEvent rejects unsorted starts, reversals before the first event and ids out of range', () => {
-    const loops = { damage: [0.4], startIndex: [1], endIndex: [3] };
+    const loops = { damage: [0.4], startIndex: [1], turnIndex: [3] };
     expect(() => damageByEvent(loops, { starts: [0, 5, 5] })).toThrow(expect.objectContaining({ code: 'invalid-events', field: 'starts', index: 2 }));
     expect(() => damageByEvent(loops, { starts: [] })).toThrow(expect.objectContaining({ code: 'invalid-events' }));
     expect(() => damageByEvent(loops, { starts: [2] })).toThrow(expect.objectContaining({ code: 'invalid-index', field: 'startIndex', index: 0 }));
-    expect(() => damageByEvent(loops, { startEvent: [0], endEvent: [2], eventCount: 2 })).toThrow(
-      expect.objectContaining({ code: 'invalid-events', field: 'endEvent', value: 2, index: 0 }),
+    expect(() => damageByEvent(loops, { startEvent: [0], turnEvent: [2], eventCount: 2 })).toThrow(
+      expect.objectContaining({ code: 'invalid-events', field: 'turnEvent', value: 2, index: 0 }),
     );
-    expect(() => damageByEvent(loops, { startEvent: [0], endEvent: [0], eventCount: 0 })).toThrow(expect.objectContaining({ field: 'eventCount' }));
-    expect(() => damageByEvent(loops, { startEvent: [0, 1], endEvent: [0], eventCount: 2 })).toThrow(expect.objectContaining({ field: 'startEvent.length' }));
+    expect(() => damageByEvent(loops, { startEvent: [0], turnEvent: [0], eventCount: 0 })).toThrow(expect.objectContaining({ field: 'eventCount' }));
+    expect(() => damageByEvent(loops, { startEvent: [0, 1], turnEvent: [0], eventCount: 2 })).toThrow(expect.objectContaining({ field: 'startEvent.length' }));
   });
 });

@@ -6,7 +6,7 @@ import { closeRelative, loopRecords, toColumns } from './support/arbitraries';
 
 describe('damageTimeline(loops, {binSize, sampleCount?, out?})', () => {
   test('damageTimeline gives half of each loop to the bin of each reversal (the TSDoc example)', () => {
-    const t = damageTimeline({ damage: [0.2, 0.1], startIndex: [0, 5], endIndex: [9, 6] }, { binSize: 5 });
+    const t = damageTimeline({ damage: [0.2, 0.1], startIndex: [0, 5], turnIndex: [9, 6] }, { binSize: 5 });
     expect(Array.from(t)).toEqual([0.1, 0.2]);
   });
 
@@ -33,7 +33,7 @@ describe('damageTimeline(loops, {binSize, sampleCount?, out?})', () => {
         const d = sum.columns().damage;
         loops.forEach((l, i) => {
           brute[l.startIndex] += d[i] / 2;
-          brute[l.endIndex] += d[i] / 2;
+          brute[l.turnIndex] += d[i] / 2;
         });
         expect(Array.from(t)).toEqual(brute);
       }),
@@ -41,20 +41,20 @@ describe('damageTimeline(loops, {binSize, sampleCount?, out?})', () => {
   });
 
   test('damageTimeline defaults sampleCount to the largest index + 1 and reuses a caller-owned out', () => {
-    const loops = { damage: [1], startIndex: [3], endIndex: [7] };
+    const loops = { damage: [1], startIndex: [3], turnIndex: [7] };
     expect(Array.from(damageTimeline(loops, { binSize: 4 }))).toEqual([0.5, 0.5]);
     const out = new Float64Array(5).fill(9);
     const t = damageTimeline(loops, { binSize: 4, sampleCount: 8, out });
     expect(Array.from(t)).toEqual([0.5, 0.5]);
     expect(t.buffer).toBe(out.buffer);
-    expect(Array.from(damageTimeline({ damage: [], startIndex: [], endIndex: [] }, { binSize: 10 }))).toEqual([0]);
+    expect(Array.from(damageTimeline({ damage: [], startIndex: [], turnIndex: [] }, { binSize: 10 }))).toEqual([0]);
   });
 
   test('damageTimeline rejects bad bin sizes, indices beyond sampleCount, NaN damage', () => {
-    const loops = { damage: [1], startIndex: [3], endIndex: [7] };
+    const loops = { damage: [1], startIndex: [3], turnIndex: [7] };
     expect(() => damageTimeline(loops, { binSize: 0 })).toThrow(expect.objectContaining({ code: 'invalid-argument', field: 'binSize' }));
     expect(() => damageTimeline(loops, { binSize: 1.5 })).toThrow(/binSize = 1.5/);
-    expect(() => damageTimeline(loops, { binSize: 2, sampleCount: 7 })).toThrow(expect.objectContaining({ code: 'invalid-index', field: 'endIndex', index: 0 }));
+    expect(() => damageTimeline(loops, { binSize: 2, sampleCount: 7 })).toThrow(expect.objectContaining({ code: 'invalid-index', field: 'turnIndex', index: 0 }));
     expect(() => damageTimeline({ ...loops, damage: [NaN] }, { binSize: 2 })).toThrow(expect.objectContaining({ field: 'damage', index: 0 }));
     expect(() => damageTimeline({ ...loops, startIndex: [-1] }, { binSize: 2 })).toThrow(expect.objectContaining({ code: 'invalid-index' }));
     expect(() => damageTimeline(loops, { binSize: 2, out: new Float64Array(1) })).toThrow(expect.objectContaining({ field: 'out' }));

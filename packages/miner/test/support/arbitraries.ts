@@ -5,7 +5,7 @@ export interface LoopRecord {
   count: number;
   cyclesToFailure: number;
   startIndex: number;
-  endIndex: number;
+  turnIndex: number;
   range: number;
 }
 
@@ -24,7 +24,7 @@ export const loopRecords = (samples = 200, maxLength = 80): fc.Arbitrary<LoopRec
         { weight: 1, arbitrary: fc.constant(Infinity) },
       ),
       startIndex: fc.integer({ min: 0, max: samples - 1 }),
-      endIndex: fc.integer({ min: 0, max: samples - 1 }),
+      turnIndex: fc.integer({ min: 0, max: samples - 1 }),
       range: fc.double({ min: 0, max: 1000, noNaN: true }),
     }),
     { maxLength },
@@ -36,7 +36,7 @@ export function toColumns(loops: LoopRecord[]) {
     count: Float64Array.from(loops, (l) => l.count),
     cyclesToFailure: Float64Array.from(loops, (l) => l.cyclesToFailure),
     startIndex: Float64Array.from(loops, (l) => l.startIndex),
-    endIndex: Float64Array.from(loops, (l) => l.endIndex),
+    turnIndex: Float64Array.from(loops, (l) => l.turnIndex),
     range: Float64Array.from(loops, (l) => l.range),
   };
 }
