@@ -35,7 +35,8 @@ export interface DamageResult {
 }
 
 /**
- * A mean-stress damage parameter: maps a closed loop and a material to reversals to failure.
+ * A mean-stress damage parameter: maps a material and a closed loop to reversals to failure
+ * (the material first, as in `@loopwise/material`).
  * All of them are strain-life equations of the two-term form solved by the material package's
  * `solveTwoTermReversals` (monotone bracketed Newton in ln 2Nf, 1e-10 relative, iteration cap).
  */
@@ -47,7 +48,7 @@ export interface DamageParameter<Name extends string = string> {
   /** Unit of `value`: `"strain"` (εa), `"stress*strain"` (σmax·εa) or `"stress"` (Walker). */
   readonly valueUnit: 'strain' | 'stress*strain' | 'stress';
   /** Reversals to failure 2Nf (not cycles) of one loop, with the parameter's value and flags. */
-  reversalsToFailure(loop: Loop, material: Material, options?: ReversalsOptions): DamageResult;
+  reversalsToFailure(material: Material, loop: Loop, options?: ReversalsOptions): DamageResult;
   /**
    * Typed-array kernel: reversals to failure 2Nf of every loop of `loops` into the caller-owned
    * `out` (returned); optional `flags` gets {@link DAMAGE_FLAG_BITS} per loop. No allocation per
@@ -66,8 +67,8 @@ export interface DamageParameter<Name extends string = string> {
    * from the table).
    */
   reversalsToFailureInto(
-    loops: LoopColumns,
     material: Material,
+    loops: LoopColumns,
     out: Float64Array,
     flags?: Uint8Array,
     options?: ReversalsOptions,

@@ -18,7 +18,7 @@ export type MeanStressErrorCode =
  * `index` (the loop index for column input, otherwise undefined).
  *
  * @example
- * try { smithWatsonTopper.reversalsToFailure({ stressMax: 100, stressMin: 200, strainMax: 0.002, strainMin: 0 }, m); }
+ * try { smithWatsonTopper.reversalsToFailure(m, { stressMax: 100, stressMin: 200, strainMax: 0.002, strainMin: 0 }); }
  * catch (e) { (e as MeanStressError).code; }
  * // returns 'invalid-loop'
  */

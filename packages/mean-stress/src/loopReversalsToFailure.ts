@@ -17,11 +17,11 @@ export interface LoopReversalsOptions extends ReversalsOptions {
  * `walker`).
  *
  * @example
- * loopReversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
+ * loopReversalsToFailure(aisi4340, { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 })
  * // returns { reversals: 8250.04..., value: 4, flags: [] }   (SWT)
  */
-export function loopReversalsToFailure(loop: Loop, material: Material, options: LoopReversalsOptions = {}): DamageResult {
+export function loopReversalsToFailure(material: Material, loop: Loop, options: LoopReversalsOptions = {}): DamageResult {
   const p = options.parameter ?? DEFAULT_DAMAGE_PARAMETER;
   const parameter = typeof p === 'string' ? damageParameter(p) : p;
-  return parameter.reversalsToFailure(loop, material, options);
+  return parameter.reversalsToFailure(material, loop, options);
 }

@@ -43,7 +43,7 @@ function flagBits(material: Material, sMax: number, sMin: number, r: number): nu
  * Engineering Materials and Structures 32 (2009) 1004-1019, doi:10.1111/j.1460-2695.2009.01404.x.
  *
  * @example
- * morrow.reversalsToFailure({ stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 }, aisi4340)
+ * morrow.reversalsToFailure(aisi4340, { stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 })
  * // returns { reversals: 8677.64..., value: 0.005, flags: [] }   (σm = 200 MPa)
  */
 export const morrow: DamageParameter<'morrow'> = Object.freeze({
@@ -51,7 +51,7 @@ export const morrow: DamageParameter<'morrow'> = Object.freeze({
   label: 'Morrow',
   valueUnit: 'strain' as const,
 
-  reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
+  reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
     const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
     checkLoop(sMax, sMin, eMax, eMin, undefined);
@@ -64,7 +64,7 @@ export const morrow: DamageParameter<'morrow'> = Object.freeze({
   },
 
   reversalsToFailureInto(
-    loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
+    material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
   ): Float64Array {
     assertMaterial(material);
     const count = checkColumns(loops, out, flags);

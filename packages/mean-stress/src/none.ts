@@ -30,7 +30,7 @@ function flagBits(r: number): number {
  * Mechanical Behavior of Materials, Pearson, section 14.2.
  *
  * @example
- * none.reversalsToFailure({ stressMax: 500, stressMin: -300, strainMax: 0.004, strainMin: -0.004 }, sae1045)
+ * none.reversalsToFailure(sae1045, { stressMax: 500, stressMin: -300, strainMax: 0.004, strainMin: -0.004 })
  * // returns { reversals: 43494.70..., value: 0.004, flags: [] }
  */
 export const none: DamageParameter<'none'> = Object.freeze({
@@ -38,7 +38,7 @@ export const none: DamageParameter<'none'> = Object.freeze({
   label: 'none (fully reversed strain-life curve)',
   valueUnit: 'strain' as const,
 
-  reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
+  reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
     checkLoop(loop.stressMax, loop.stressMin, loop.strainMax, loop.strainMin, undefined);
     const ea = (loop.strainMax - loop.strainMin) / 2;
@@ -50,7 +50,7 @@ export const none: DamageParameter<'none'> = Object.freeze({
   },
 
   reversalsToFailureInto(
-    loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
+    material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
   ): Float64Array {
     assertMaterial(material);
     const count = checkColumns(loops, out, flags);

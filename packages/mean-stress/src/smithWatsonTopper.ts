@@ -37,7 +37,7 @@ function flagBits(sMax: number, r: number): number {
  * of metals", Journal of Materials, JMLSA 5 (1970) 767-778.
  *
  * @example
- * smithWatsonTopper.reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
+ * smithWatsonTopper.reversalsToFailure(aisi4340, { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 })
  * // returns { reversals: 8250.04..., value: 4, flags: [] }
  */
 export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.freeze({
@@ -45,7 +45,7 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
   label: 'Smith-Watson-Topper',
   valueUnit: 'stress*strain' as const,
 
-  reversalsToFailure(loop: Loop, material: Material, options: ReversalsOptions = {}): DamageResult {
+  reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
     assertMaterial(material);
     const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
     checkLoop(sMax, sMin, eMax, eMin, undefined);
@@ -61,7 +61,7 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.fr
   },
 
   reversalsToFailureInto(
-    loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
+    material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
   ): Float64Array {
     assertMaterial(material);
     const count = checkColumns(loops, out, flags);

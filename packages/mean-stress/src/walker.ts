@@ -97,7 +97,7 @@ function flagBits(t: WalkerTerms, sMax: number, r: number): number {
  *
  * @throws {MeanStressError} `invalid-gamma` for γ outside (0, 1].
  * @example
- * createWalker({ gamma: 0.6474 }).reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340)
+ * createWalker({ gamma: 0.6474 }).reversalsToFailure(aisi4340, { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 })
  * // returns { reversals: 9209.21..., value: ..., flags: [] }
  */
 export function createWalker(options: WalkerOptions): DamageParameter<'walker'> {
@@ -108,7 +108,7 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
     label: gammaOption === 'steel-from-Su' ? 'Walker (gamma from Su, steel)' : `Walker (gamma = ${gammaOption})`,
     valueUnit: 'stress' as const,
 
-    reversalsToFailure(loop: Loop, material: Material, opts: ReversalsOptions = {}): DamageResult {
+    reversalsToFailure(material: Material, loop: Loop, opts: ReversalsOptions = {}): DamageResult {
       assertMaterial(material);
       const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
       checkLoop(sMax, sMin, eMax, eMin, undefined);
@@ -123,7 +123,7 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
     },
 
     reversalsToFailureInto(
-      loops: LoopColumns, material: Material, out: Float64Array, flags?: Uint8Array, opts: ReversalsOptions = {},
+      material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, opts: ReversalsOptions = {},
     ): Float64Array {
       assertMaterial(material);
       const count = checkColumns(loops, out, flags);
@@ -188,7 +188,7 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
  * metals use `createWalker({ gamma: 0.5 })` or a fitted γ.
  *
  * @example
- * walker.reversalsToFailure(loop, handbookSteels[5])   // AISI 4340, Su = 1172 MPa → γ = 0.6474
- * // returns the same as createWalker({ gamma: 0.6474 }).reversalsToFailure(loop, handbookSteels[5])
+ * walker.reversalsToFailure(handbookSteels[5], loop)   // AISI 4340, Su = 1172 MPa → γ = 0.6474
+ * // returns the same as createWalker({ gamma: 0.6474 }).reversalsToFailure(handbookSteels[5], loop)
  */
 export const walker: DamageParameter<'walker'> = createWalker({ gamma: 'steel-from-Su' });

@@ -52,9 +52,9 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
           });
           const out = new Float64Array(n);
           const flags = new Uint8Array(n);
-          expect(p.reversalsToFailureInto(cols, m, out, flags)).toBe(out);
+          expect(p.reversalsToFailureInto(m, cols, out, flags)).toBe(out);
           for (let i = 0; i < n; i++) {
-            const r = p.reversalsToFailure({ stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] }, m);
+            const r = p.reversalsToFailure(m, { stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] });
             expect(out[i]).toBe(r.reversals);
             expect(flags[i]).toBe(r.flags.reduce((bits, f) => bits | DAMAGE_FLAG_BITS[f], 0));
             expect(Number.isNaN(out[i])).toBe(false);
@@ -94,10 +94,10 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
           const out = new Float64Array(n);
           const flags = new Uint8Array(n);
           // Act
-          expect(param.reversalsToFailureInto(cols, m, out, flags)).toBe(out);
+          expect(param.reversalsToFailureInto(m, cols, out, flags)).toBe(out);
           // Assert: 1 and Infinity exactly, roots to the solver's tolerance, flags exactly, no NaN
           for (let i = 0; i < n; i++) {
-            const r = param.reversalsToFailure({ stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] }, m);
+            const r = param.reversalsToFailure(m, { stressMax: cols.stressMax[i], stressMin: cols.stressMin[i], strainMax: cols.strainMax[i], strainMin: cols.strainMin[i] });
             expect(Number.isNaN(out[i])).toBe(false);
             if (r.reversals === 1 || r.reversals === Infinity) expect(out[i]).toBe(r.reversals);
             else expect(Math.abs(out[i] / r.reversals - 1)).toBeLessThan(1e-12);
@@ -120,10 +120,10 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
     };
     const out = new Float64Array(n).fill(-1);
     cols.stressMin[n - 1] = NaN;
-    expect(() => p.reversalsToFailureInto(cols, aisi4340, out)).toThrow(new RegExp(`stressMin\\[${n - 1}\\]`));
+    expect(() => p.reversalsToFailureInto(aisi4340, cols, out)).toThrow(new RegExp(`stressMin\\[${n - 1}\\]`));
     if (name !== 'morrow') expect(out.every((v) => v === -1)).toBe(true);
     cols.stressMin[n - 1] = good.stressMin;
-    expect(() => p.reversalsToFailureInto(cols, aisi4340, out, undefined, { maxIterations: 0 })).toThrow(ConvergenceError);
+    expect(() => p.reversalsToFailureInto(aisi4340, cols, out, undefined, { maxIterations: 0 })).toThrow(ConvergenceError);
   });
 
   describe.each(names)('%s: bad input', (name) => {
@@ -132,9 +132,9 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
       ['stressMax', NaN], ['stressMax', Infinity], ['stressMin', NaN], ['stressMin', -Infinity],
       ['strainMax', NaN], ['strainMax', Infinity], ['strainMin', NaN], ['strainMin', -Infinity],
     ])('a loop with %s = %s throws invalid-loop naming the field', (field, value) => {
-      expect(() => p.reversalsToFailure({ ...good, [field]: value }, aisi4340)).toThrow(MeanStressError);
+      expect(() => p.reversalsToFailure(aisi4340, { ...good, [field]: value })).toThrow(MeanStressError);
       try {
-        p.reversalsToFailure({ ...good, [field]: value }, aisi4340);
+        p.reversalsToFailure(aisi4340, { ...good, [field]: value });
       } catch (e) {
         expect(e).toBeInstanceOf(LoopwiseError);
         expect((e as MeanStressError).name).toBe('MeanStressError');
@@ -145,29 +145,29 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
       }
     });
     it('a loop with stressMax < stressMin or strainMax < strainMin throws invalid-loop', () => {
-      expect(() => p.reversalsToFailure({ ...good, stressMax: -500 }, aisi4340)).toThrow(/invalid-loop: stressMin = -400 \(must be <= stressMax \(-500\)\)/);
-      expect(() => p.reversalsToFailure({ ...good, strainMin: 0.01 }, aisi4340)).toThrow(/strainMin/);
+      expect(() => p.reversalsToFailure(aisi4340, { ...good, stressMax: -500 })).toThrow(/invalid-loop: stressMin = -400 \(must be <= stressMax \(-500\)\)/);
+      expect(() => p.reversalsToFailure(aisi4340, { ...good, strainMin: 0.01 })).toThrow(/strainMin/);
     });
     it('the kernel names the index of a bad loop and checks column lengths', () => {
       const cols = { stressMax: [800, 800, 100], stressMin: [-400, -400, 200], strainMax: [0.006, 0.006, 0.006], strainMin: [-0.004, -0.004, -0.004] };
-      expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(3))).toThrow(/stressMin\[2\]/);
-      expect(() => p.reversalsToFailureInto({ ...cols, strainMin: [0] }, aisi4340, new Float64Array(3))).toThrow(/loops\.strainMin/);
-      expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(2))).toThrow(/out/);
-      expect(() => p.reversalsToFailureInto(cols, aisi4340, new Float64Array(3), new Uint8Array(1))).toThrow(/flags/);
+      expect(() => p.reversalsToFailureInto(aisi4340, cols, new Float64Array(3))).toThrow(/stressMin\[2\]/);
+      expect(() => p.reversalsToFailureInto(aisi4340, { ...cols, strainMin: [0] }, new Float64Array(3))).toThrow(/loops\.strainMin/);
+      expect(() => p.reversalsToFailureInto(aisi4340, cols, new Float64Array(2))).toThrow(/out/);
+      expect(() => p.reversalsToFailureInto(aisi4340, cols, new Float64Array(3), new Uint8Array(1))).toThrow(/flags/);
     });
     it('an invalid material throws MaterialError (zero or negative moduli, b >= 0, c >= 0, n outside (0, 1))', () => {
       for (const bad of [{ E: 0 }, { E: -2e5 }, { K: 0 }, { b: 0 }, { c: 0.1 }, { n: 1 }, { n: 0 }, { sigmaF: NaN }]) {
-        expect(() => p.reversalsToFailure(good, { ...aisi4340, ...bad } as Material)).toThrow(MaterialError);
+        expect(() => p.reversalsToFailure({ ...aisi4340, ...bad } as Material, good)).toThrow(MaterialError);
       }
     });
     it('amplitude 0 gives Infinity, a huge amplitude gives 1 or Infinity (compressive), never NaN', () => {
-      expect(p.reversalsToFailure({ ...good, strainMax: 0.001, strainMin: 0.001 }, aisi4340).reversals).toBe(Infinity);
-      const huge = p.reversalsToFailure({ ...good, strainMax: 1e300, strainMin: -1e300 }, aisi4340);
+      expect(p.reversalsToFailure(aisi4340, { ...good, strainMax: 0.001, strainMin: 0.001 }).reversals).toBe(Infinity);
+      const huge = p.reversalsToFailure(aisi4340, { ...good, strainMax: 1e300, strainMin: -1e300 });
       expect(huge.reversals).toBe(1);
       expect(huge.flags).toEqual(['at-or-above-first-reversal']);
     });
     it('honours the iteration cap: maxIterations 1 throws ConvergenceError', () => {
-      expect(() => p.reversalsToFailure(good, aisi4340, { maxIterations: 1 })).toThrow(ConvergenceError);
+      expect(() => p.reversalsToFailure(aisi4340, good, { maxIterations: 1 })).toThrow(ConvergenceError);
     });
   });
 
@@ -175,6 +175,6 @@ describe('damageParameters (registry) and damageParameter(name)', () => {
     const w = createWalker({ gamma: 0.6 });
     expect(w.name).toBe('walker');
     expect(w.label).toBe('Walker (gamma = 0.6)');
-    expect(w.reversalsToFailure(good, aisi4340).flags).toEqual([]);
+    expect(w.reversalsToFailure(aisi4340, good).flags).toEqual([]);
   });
 });

@@ -8,10 +8,10 @@ describe('README example', () => {
   it('AISI 4340, sigma_max 800 MPa, epsilon_a 0.005: SWT 8250.04..., Walker 9209.21... reversals', () => {
     const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
     const loop = { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 };
-    const swt = loopReversalsToFailure(loop, aisi4340);
+    const swt = loopReversalsToFailure(aisi4340, loop);
     expect(swt.reversals).toBeCloseTo(8250.04652803425, 6);
     expect(swt.value).toBeCloseTo(4, 12);
     expect(swt.flags).toEqual([]);
-    expect(damageParameters.walker.reversalsToFailure(loop, aisi4340).reversals).toBeCloseTo(9209.21746607676, 5);
+    expect(damageParameters.walker.reversalsToFailure(aisi4340, loop).reversals).toBeCloseTo(9209.21746607676, 5);
   });
 });

@@ -8,14 +8,14 @@ import { bisect } from './bisect';
 
 const aisi4340 = handbookSteels.find((m) => m.name === 'AISI 4340 (aircraft quality)')!;
 
-describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
+describe('smithWatsonTopper.reversalsToFailure(material, loop)', () => {
   it('round trips life -> loop -> reversals to 1e-9 over generated materials and peak stresses', () => {
     checkProperty(
       'SWT round trip',
       fc.property(realisticMaterial, log10Reversals, range(10, 3000), (m, lg, sMax) => {
         const x = 10 ** lg;
         const swt = (m.sigmaF ** 2 / m.E) * x ** (2 * m.b) + m.sigmaF * m.epsilonF * x ** (m.b + m.c);
-        const r = smithWatsonTopper.reversalsToFailure(loopOf(swt / sMax, sMax, sMax), m);
+        const r = smithWatsonTopper.reversalsToFailure(m, loopOf(swt / sMax, sMax, sMax));
         expect(rel(r.reversals, x)).toBeLessThan(1e-9);
         expect(rel(r.value, swt)).toBeLessThan(1e-14);
       }),
@@ -31,7 +31,7 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
         const ea = (m.sigmaF / m.E) * x ** m.b + m.epsilonF * x ** m.c;
         const sa = cyclicStress(m, ea);
         const loop = loopOf(ea, sa, 2 * sa);
-        expect(rel(smithWatsonTopper.reversalsToFailure(loop, m).reversals, none.reversalsToFailure(loop, m).reversals)).toBeLessThan(1e-9);
+        expect(rel(smithWatsonTopper.reversalsToFailure(m, loop).reversals, none.reversalsToFailure(m, loop).reversals)).toBeLessThan(1e-9);
       }),
       { numRuns: 300 },
     );
@@ -44,7 +44,7 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
     const ea = 0.004;
     const sa = cyclicStress(m, ea);
     const loop = loopOf(ea, sa, 2 * sa);
-    expect(rel(smithWatsonTopper.reversalsToFailure(loop, m).reversals, none.reversalsToFailure(loop, m).reversals)).toBeGreaterThan(0.01);
+    expect(rel(smithWatsonTopper.reversalsToFailure(m, loop).reversals, none.reversalsToFailure(m, loop).reversals)).toBeGreaterThan(0.01);
   });
 
   it('is monotone in amplitude and in peak stress (to the solve tolerance)', () => {
@@ -55,7 +55,7 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
     checkProperty(
       'SWT monotone',
       fc.property(realisticMaterial, range(-4, -1), range(0, 0.5), range(1, 2000), range(0, 500), (m, lg, dlg, sMax, ds) => {
-        const at = (ea: number, s: number) => smithWatsonTopper.reversalsToFailure(loopOf(ea, s, s), m).reversals;
+        const at = (ea: number, s: number) => smithWatsonTopper.reversalsToFailure(m, loopOf(ea, s, s)).reversals;
         expect(at(10 ** (lg + dlg), sMax)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
         expect(at(10 ** lg, sMax + ds)).toBeLessThanOrEqual(at(10 ** lg, sMax) * slack);
       }),
@@ -67,7 +67,7 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
     // Inputs: Dowling, Mechanical Behavior of Materials, Table 14.1 (AISI 4340) via the shared
     // reference file. The book's answer is not at hand: the expected 2Nf = 8250.04652803425 was
     // computed from the SWT equation (mpmath, 40 digits) and is checked here by bisection.
-    const r = smithWatsonTopper.reversalsToFailure({ stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 }, aisi4340);
+    const r = smithWatsonTopper.reversalsToFailure(aisi4340, { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 });
     expect(rel(r.reversals, 8250.04652803425)).toBeLessThan(1e-10);
     expect(r.value).toBeCloseTo(4, 12);
     const { sigmaF, E, b, epsilonF, c } = aisi4340;
@@ -75,17 +75,17 @@ describe('smithWatsonTopper.reversalsToFailure(loop, material)', () => {
   });
 
   it('sigma_max <= 0 does no damage: Infinity with compressive-no-damage (documented practice)', () => {
-    expect(smithWatsonTopper.reversalsToFailure(loopOf(0.01, 0, 500), aisi4340)).toEqual({
+    expect(smithWatsonTopper.reversalsToFailure(aisi4340, loopOf(0.01, 0, 500))).toEqual({
       reversals: Infinity,
       value: 0,
       flags: ['compressive-no-damage'],
     });
-    expect(smithWatsonTopper.reversalsToFailure(loopOf(0.01, -100, 500), aisi4340).reversals).toBe(Infinity);
-    expect(smithWatsonTopper.reversalsToFailure(loopOf(0.01, -0, 500), aisi4340).flags).toEqual(['compressive-no-damage']);
+    expect(smithWatsonTopper.reversalsToFailure(aisi4340, loopOf(0.01, -100, 500)).reversals).toBe(Infinity);
+    expect(smithWatsonTopper.reversalsToFailure(aisi4340, loopOf(0.01, -0, 500)).flags).toEqual(['compressive-no-damage']);
   });
 
   it('zero amplitude gives Infinity (below-cutoff), a huge parameter gives 1 (at-or-above-first-reversal)', () => {
-    expect(smithWatsonTopper.reversalsToFailure(loopOf(0, 300, 0), aisi4340).flags).toEqual(['below-cutoff']);
-    expect(smithWatsonTopper.reversalsToFailure(loopOf(10, 3000, 100), aisi4340)).toMatchObject({ reversals: 1, flags: ['at-or-above-first-reversal'] });
+    expect(smithWatsonTopper.reversalsToFailure(aisi4340, loopOf(0, 300, 0)).flags).toEqual(['below-cutoff']);
+    expect(smithWatsonTopper.reversalsToFailure(aisi4340, loopOf(10, 3000, 100))).toMatchObject({ reversals: 1, flags: ['at-or-above-first-reversal'] });
   });
 });
