@@ -1,3 +1,5 @@
+import { grownCapacity, RowShare, widenColumn } from '@loopwise/base';
+
 /** The columns of a {@link LoopTable}, each trimmed to its length. */
 export interface LoopColumns {
   /** Largest local stress of the loop. */
@@ -12,9 +14,9 @@ export interface LoopColumns {
   startIndex: Float64Array;
   /** Sample index of the reversal where it turned. */
   turnIndex: Float64Array;
-  /** Sample index of the sample at which the path reached the memory point again. */
+  /** Sample index of the point at which the path reached the memory point again. */
   closeIndex: Float64Array;
-  /** Cycle count of the loop: 1 for a closed loop. */
+  /** Loops the row stands for: 1 for a closed loop, more for a loop of an event's repeats. */
   count: Float64Array;
 }
 
@@ -33,6 +35,10 @@ export interface LoopRow {
 /**
  * Growable struct-of-arrays table of closed hysteresis loops: eight Float64Array columns,
  * doubled when full; no objects per loop. Indices are stored as doubles (exact up to 2^53).
+ *
+ * Honest: the columns a table hands out belong to it alone. Tables made by {@link LoopTable.split}
+ * start on one storage; each moves its rows to storage of its own before it hands out columns
+ * or adds a row while another table still uses that storage.
  */
 export class LoopTable {
   // One field per column (not an array of columns): every store in `add` is then a direct,
@@ -47,6 +53,7 @@ export class LoopTable {
   private cCount: Float64Array;
   private n = 0;
   private capacity = 0;
+  private share: RowShare | null = null;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);
@@ -61,7 +68,7 @@ export class LoopTable {
     this.cCount = new Float64Array(cap);
   }
 
-  /** Number of loops. */
+  /** Number of rows. */
   get length(): number {
     return this.n;
   }
@@ -107,11 +114,11 @@ export class LoopTable {
     this.cCount[i] = count;
   }
 
-  /** Appends rows `from` … `to − 1` of another table. */
+  /** Appends rows `from` … `to − 1` of another table (a copy). */
   appendRange(other: LoopTable, from: number, to: number): void {
     if (to <= from) return;
     const n = this.n;
-    if (this.capacity < n + (to - from)) this.grow(Math.max(2 * this.capacity, n + (to - from)));
+    if (this.share !== null || this.capacity < n + (to - from)) this.grow(grownCapacity(this.capacity, n + (to - from)));
     this.cStressMax.set(other.cStressMax.subarray(from, to), n);
     this.cStressMin.set(other.cStressMin.subarray(from, to), n);
     this.cStrainMax.set(other.cStrainMax.subarray(from, to), n);
@@ -123,8 +130,22 @@ export class LoopTable {
     this.n = n + (to - from);
   }
 
-  /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
+  /**
+   * Multiplies the count of rows `from` … `to − 1` by `factor`: each row then stands for that
+   * many identical loops (the loops of an event's repeats once the memory repeats).
+   */
+  scaleCounts(from: number, to: number, factor: number): void {
+    if (this.share !== null) this.own();
+    const c = this.cCount;
+    for (let i = from; i < to; i++) c[i] *= factor;
+  }
+
+  /**
+   * Views of the columns, trimmed to `length` (no copy; valid until the next `add`). They belong
+   * to this table alone: a table that shared its storage moves its rows first.
+   */
   columns(): LoopColumns {
+    if (this.share !== null) this.own();
     const n = this.n;
     return {
       stressMax: this.cStressMax.subarray(0, n),
@@ -160,47 +181,81 @@ export class LoopTable {
   }
 
   /**
-   * Rows `from` … `to − 1` of `other` as a table that shares its storage (internal: the repeating
-   * shortcut hands out both passes without copying). Reading costs nothing; the first row added
-   * or appended moves the rows to storage of their own first, so neither table ever sees rows
-   * the other adds later.
+   * Splits a table into tables of the given row ranges `[from, to)` (they may overlap), without
+   * a copy up front: the new tables start on the source's storage, and each moves its rows to
+   * storage of its own the first time it hands out columns or adds a row while another of them
+   * still uses the storage (the last one keeps it). The source hands its storage over and is
+   * empty afterwards. Writing through one table's columns therefore never changes another.
+   *
+   * @example
+   * const [a, b] = LoopTable.split(table, [[0, 10], [5, 20]]);
+   * a.columns().count.fill(0); // b's rows 0…4 (the source's 5…9) keep their counts
    */
-  static view(other: LoopTable, from: number, to: number): LoopTable {
-    const t = new LoopTable(16);
-    t.cStressMax = other.cStressMax.subarray(from, to);
-    t.cStressMin = other.cStressMin.subarray(from, to);
-    t.cStrainMax = other.cStrainMax.subarray(from, to);
-    t.cStrainMin = other.cStrainMin.subarray(from, to);
-    t.cStart = other.cStart.subarray(from, to);
-    t.cTurn = other.cTurn.subarray(from, to);
-    t.cClose = other.cClose.subarray(from, to);
-    t.cCount = other.cCount.subarray(from, to);
-    t.n = to - from;
-    t.capacity = to - from;
-    return t;
+  static split(source: LoopTable, ranges: readonly (readonly [number, number])[]): LoopTable[] {
+    const share = ranges.length > 1 ? new RowShare(ranges.length) : null;
+    const out = ranges.map(([from, to]) => {
+      const t = new LoopTable(16);
+      t.cStressMax = source.cStressMax.subarray(from, to);
+      t.cStressMin = source.cStressMin.subarray(from, to);
+      t.cStrainMax = source.cStrainMax.subarray(from, to);
+      t.cStrainMin = source.cStrainMin.subarray(from, to);
+      t.cStart = source.cStart.subarray(from, to);
+      t.cTurn = source.cTurn.subarray(from, to);
+      t.cClose = source.cClose.subarray(from, to);
+      t.cCount = source.cCount.subarray(from, to);
+      t.n = to - from;
+      t.capacity = to - from;
+      t.share = share;
+      return t;
+    });
+    source.clear();
+    return out;
   }
 
-  /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */
+  /** Makes room for `rows` rows in all (skips the doublings when the size can be estimated). */
   reserve(rows: number): void {
     if (rows > this.capacity) this.grow(rows);
   }
 
-  /** Moves the rows in use to columns of capacity `cap`. */
+  /** Empties the table onto new storage of its own. */
+  private clear(): void {
+    const z = new Float64Array(16);
+    this.cStressMax = z;
+    this.cStressMin = z.slice();
+    this.cStrainMax = z.slice();
+    this.cStrainMin = z.slice();
+    this.cStart = z.slice();
+    this.cTurn = z.slice();
+    this.cClose = z.slice();
+    this.cCount = z.slice();
+    this.n = 0;
+    this.capacity = 16;
+    this.share = null;
+  }
+
+  /** Leaves a shared storage: copies the rows when another table still uses it. */
+  private own(): void {
+    const share = this.share!;
+    this.share = null;
+    if (share.leave()) this.grow(Math.max(16, this.n));
+  }
+
+  /** Moves the rows in use to columns of capacity `cap` (and off any shared storage). */
   private grow(cap: number): void {
+    if (this.share !== null) {
+      // leaving the shared storage: this table copies now, whoever else holds it
+      this.share.leave();
+      this.share = null;
+    }
     const n = this.n;
-    const widen = (a: Float64Array) => {
-      const b = new Float64Array(cap);
-      b.set(a.subarray(0, n));
-      return b;
-    };
-    this.cStressMax = widen(this.cStressMax);
-    this.cStressMin = widen(this.cStressMin);
-    this.cStrainMax = widen(this.cStrainMax);
-    this.cStrainMin = widen(this.cStrainMin);
-    this.cStart = widen(this.cStart);
-    this.cTurn = widen(this.cTurn);
-    this.cClose = widen(this.cClose);
-    this.cCount = widen(this.cCount);
+    this.cStressMax = widenColumn(this.cStressMax, n, cap);
+    this.cStressMin = widenColumn(this.cStressMin, n, cap);
+    this.cStrainMax = widenColumn(this.cStrainMax, n, cap);
+    this.cStrainMin = widenColumn(this.cStrainMin, n, cap);
+    this.cStart = widenColumn(this.cStart, n, cap);
+    this.cTurn = widenColumn(this.cTurn, n, cap);
+    this.cClose = widenColumn(this.cClose, n, cap);
+    this.cCount = widenColumn(this.cCount, n, cap);
     this.capacity = cap;
   }
 }

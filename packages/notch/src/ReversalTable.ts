@@ -1,3 +1,5 @@
+import { grownCapacity, RowShare, widenColumn } from '@loopwise/base';
+
 /** The columns of a {@link ReversalTable}, each trimmed to its length. */
 export interface ReversalColumns {
   /** Source sample index of the reversal (-1 for the initial value). */
@@ -20,7 +22,8 @@ export interface ReversalRow {
 
 /**
  * Growable struct-of-arrays table of local reversal points: one Float64Array per column,
- * doubled when full, so millions of reversals cost four doubles each and no objects.
+ * doubled when full, so millions of reversals cost four doubles each and no objects. Honest
+ * like {@link LoopTable}: the columns it hands out belong to it alone.
  */
 export class ReversalTable {
   private cIndex: Float64Array;
@@ -29,6 +32,7 @@ export class ReversalTable {
   private cStrain: Float64Array;
   private n = 0;
   private capacity = 0;
+  private share: RowShare | null = null;
 
   constructor(initialCapacity = 256) {
     const cap = Math.max(16, initialCapacity | 0);
@@ -58,7 +62,7 @@ export class ReversalTable {
   appendRange(other: ReversalTable, from: number, to: number): void {
     if (to <= from) return;
     const n = this.n;
-    if (this.capacity < n + (to - from)) this.grow(Math.max(2 * this.capacity, n + (to - from)));
+    if (this.share !== null || this.capacity < n + (to - from)) this.grow(grownCapacity(this.capacity, n + (to - from)));
     this.cIndex.set(other.cIndex.subarray(from, to), n);
     this.cValue.set(other.cValue.subarray(from, to), n);
     this.cStress.set(other.cStress.subarray(from, to), n);
@@ -66,8 +70,12 @@ export class ReversalTable {
     this.n = n + (to - from);
   }
 
-  /** Views of the columns, trimmed to `length` (no copy; valid until the next `add`). */
+  /**
+   * Views of the columns, trimmed to `length` (no copy; valid until the next `add`). They belong
+   * to this table alone: a table that shared its storage moves its rows first.
+   */
   columns(): ReversalColumns {
+    if (this.share !== null) this.own();
     const n = this.n;
     return {
       index: this.cIndex.subarray(0, n),
@@ -90,39 +98,57 @@ export class ReversalTable {
   }
 
   /**
-   * Rows `from` … `to − 1` of `other` as a table that shares its storage (internal: the repeating
-   * shortcut hands out both passes without copying). Reading costs nothing; the first row added
-   * or appended moves the rows to storage of their own first, so neither table ever sees rows
-   * the other adds later.
+   * Splits a table into tables of the given row ranges `[from, to)` (they may overlap), without
+   * a copy up front; each moves its rows to storage of its own before it hands out columns or
+   * adds a row while another of them still uses the storage. The source is empty afterwards.
+   * See {@link LoopTable.split}.
    */
-  static view(other: ReversalTable, from: number, to: number): ReversalTable {
-    const t = new ReversalTable(16);
-    t.cIndex = other.cIndex.subarray(from, to);
-    t.cValue = other.cValue.subarray(from, to);
-    t.cStress = other.cStress.subarray(from, to);
-    t.cStrain = other.cStrain.subarray(from, to);
-    t.n = to - from;
-    t.capacity = to - from;
-    return t;
+  static split(source: ReversalTable, ranges: readonly (readonly [number, number])[]): ReversalTable[] {
+    const share = ranges.length > 1 ? new RowShare(ranges.length) : null;
+    const out = ranges.map(([from, to]) => {
+      const t = new ReversalTable(16);
+      t.cIndex = source.cIndex.subarray(from, to);
+      t.cValue = source.cValue.subarray(from, to);
+      t.cStress = source.cStress.subarray(from, to);
+      t.cStrain = source.cStrain.subarray(from, to);
+      t.n = to - from;
+      t.capacity = to - from;
+      t.share = share;
+      return t;
+    });
+    source.cIndex = new Float64Array(16);
+    source.cValue = new Float64Array(16);
+    source.cStress = new Float64Array(16);
+    source.cStrain = new Float64Array(16);
+    source.n = 0;
+    source.capacity = 16;
+    source.share = null;
+    return out;
   }
 
-  /** Makes room for `rows` rows in all (internal: lets a caller that can estimate its size skip the doublings). */
+  /** Makes room for `rows` rows in all (skips the doublings when the size can be estimated). */
   reserve(rows: number): void {
     if (rows > this.capacity) this.grow(rows);
   }
 
-  /** Moves the rows in use to columns of capacity `cap`. */
+  /** Leaves a shared storage: copies the rows when another table still uses it. */
+  private own(): void {
+    const share = this.share!;
+    this.share = null;
+    if (share.leave()) this.grow(Math.max(16, this.n));
+  }
+
+  /** Moves the rows in use to columns of capacity `cap` (and off any shared storage). */
   private grow(cap: number): void {
+    if (this.share !== null) {
+      this.share.leave();
+      this.share = null;
+    }
     const n = this.n;
-    const widen = (a: Float64Array) => {
-      const b = new Float64Array(cap);
-      b.set(a.subarray(0, n));
-      return b;
-    };
-    this.cIndex = widen(this.cIndex);
-    this.cValue = widen(this.cValue);
-    this.cStress = widen(this.cStress);
-    this.cStrain = widen(this.cStrain);
+    this.cIndex = widenColumn(this.cIndex, n, cap);
+    this.cValue = widenColumn(this.cValue, n, cap);
+    this.cStress = widenColumn(this.cStress, n, cap);
+    this.cStrain = widenColumn(this.cStrain, n, cap);
     this.capacity = cap;
   }
 }

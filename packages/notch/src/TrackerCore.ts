@@ -10,10 +10,10 @@ import {
   type ResolvedTrackerOptions,
 } from './NotchTrackerOptions';
 import { NotchValidityError } from './NotchValidityError';
-import { decodeNumber, encodeNumber, type EncodedNumber } from './numberCodec';
+import { decodeNumber, encodeNumber, type EncodedNumber } from '@loopwise/base';
 import { ReversalTable } from './ReversalTable';
 
-/** What {@link NotchTracker.end}, {@link trackNotch} and {@link trackNotchRepeating} return. */
+/** What {@link NotchTracker.end} and {@link trackNotch} return. */
 export interface NotchTrackResult {
   /** Every reversal of the local path, in order: source index, history value, local σ and ε. */
   reversals: ReversalTable;
@@ -47,7 +47,7 @@ export interface NotchTrackerState {
   firstBeyondIndex: number;
 }
 
-/** A frozen copy of the memory, for the repeating-mode shortcut (internal). */
+/** A frozen copy of the memory. */
 export interface TrackerSnapshot {
   k: number;
   dir: number;
@@ -59,7 +59,7 @@ export interface TrackerSnapshot {
   se: Float64Array;
 }
 
-/** The first point of largest |value| a tracker has seen, and the state right after it (internal). */
+/** The first point of largest |value| a tracker has seen, and the state right after it. */
 export interface LargestPoint {
   /** Sample index of the point (the first sample of its plateau). */
   index: number;
@@ -74,37 +74,13 @@ export interface LargestPoint {
 }
 
 /**
- * The memory-aware local stress-strain tracker at a notch root, streaming: push chunks of the
- * history in any sizes (chunk size 1 included) and get the same events as one batch call.
- *
- * Model (Clormann and Seeger's hysteresis-counting memory model): the part starts unloaded
- * (or at `initial`, reached by first loading). First loading follows the cyclic curve; after a
- * reversal each branch is the Masing curve from its origin, with the notch rule applied to the
- * pseudo-elastic range from the same origin. Memory 1: a branch that reaches the value of the
- * origin of the branch it interrupted (ties close) closes that loop; both reversal points leave
- * the memory and the path continues on the older branch. Memory 2: when the older branch is the
- * first-loading curve, the path continues on it. Memory 3: a branch that starts on the
- * first-loading curve and goes beyond the mirror of its start continues on the first-loading
- * curve of the other sign (a branch that turns exactly at the mirror keeps its start in memory,
- * and the loop closes when the path returns to it, ties closing as in memory 1). Because a branch's local stress and strain grow monotonically with its
- * pseudo-elastic range, closing in the history's value is closing in σ–ε space; after a closure
- * the live state is exactly the stored memory point.
- *
- * Per sample the work is a comparison with the running extreme and with the closure level;
- * notch-rule solves run only at reversals. Every sample is checked: NaN or ±Infinity throws
- * {@link NotchSampleError} with its index.
- *
- * Reference: U. H. Clormann and T. Seeger, "Rainflow-HCM, ein Hysteresisschleifen-Zählalgorithmus
- * auf werkstoffmechanischer Grundlage", Stahlbau 55(3), 1986, 65-71; Masing's hypothesis:
- * G. Masing, Proc. 2nd Int. Congress of Applied Mechanics, Zürich, 1926, 332-335.
- *
- * @example
- * const t = new NotchTracker({ material, Kt: 2.5 });
- * t.push([0, 300]).push([-240, 360]);
- * t.end().loops.length
- * // returns 1 (the loop 300/-240 closes on the first pass)
+ * The state machine of the memory-aware notch tracker (see {@link NotchTracker} for the model
+ * and its references). Not exported from the package: {@link NotchTracker} (one history,
+ * streaming) and {@link RepeatingNotchTracker} (a history that repeats, events with repeat
+ * counts) are its two public faces, and the recipe of the repeating pass lives next to it, in
+ * this package, because it needs the memory itself (a copy, a comparison, the largest point).
  */
-export class NotchTracker {
+export class TrackerCore {
   /** The checked options. */
   readonly options: Readonly<ResolvedTrackerOptions>;
   private readonly solver: BranchSolver;
@@ -115,8 +91,8 @@ export class NotchTracker {
   private readonly offset: number = 0;
   private readonly strainLimit: number = 0;
   private readonly recordReversals: boolean = true;
-  private revs = new ReversalTable();
-  private loopTable = new LoopTable();
+  revs = new ReversalTable();
+  loopTable = new LoopTable();
   private next = 0;
   private samples = 0;
   private dir = 0;
@@ -137,6 +113,10 @@ export class NotchTracker {
   private peakIndex = -1;
   private peakReversalRow = 0;
   private peakLoopRow = 0;
+  // Rows handed over by takeLoops / takeResult so far: the rows of the largest point count from
+  // the start of the tracking, whatever was taken since.
+  private reversalsTaken = 0;
+  private loopsTaken = 0;
   private peakKnown = true;
   // Output of computeAtExtreme.
   private outStress = 0;
@@ -158,12 +138,17 @@ export class NotchTracker {
     return this.next;
   }
 
-  /** Events so far (live tables; read, do not keep across pushes). */
+  /** Samples (or points) pushed so far. */
+  get sampleCount(): number {
+    return this.samples;
+  }
+
+  /** Events so far (the live tables). */
   get reversals(): ReversalTable {
     return this.revs;
   }
 
-  /** Closed loops so far (live table). */
+  /** Closed loops so far (the live table). */
   get loops(): LoopTable {
     return this.loopTable;
   }
@@ -174,30 +159,12 @@ export class NotchTracker {
     return this;
   }
 
-  /** Pushes `chunk[from]` … `chunk[to − 1]` (internal use by the batch functions too). */
+  /** Pushes `chunk[from]` … `chunk[to − 1]` as consecutive samples from `nextIndex` on. */
   pushRange(chunk: ArrayLike<number>, from: number, to: number): void {
     this.run(chunk, null, from, to);
   }
 
-  /**
-   * Pushes `values[from]` … `values[to − 1]` as consecutive samples whose sample indices are
-   * `indices[from]` … `indices[to − 1]`, for points that were thinned before (turning points,
-   * a hysteresis gate). Events are those that pushing the raw samples would give, provided the
-   * points keep every turning point of the raw history: reversals and loops carry the given
-   * indices, and a loop's `closeIndex` is the index of the point that closed it (with raw
-   * samples, the first sample that reached the memory point, which may lie before it). After
-   * the call `nextIndex` is the last given index + 1; `samples` counts the points pushed.
-   *
-   * The indices should be strictly increasing (and follow the indices pushed before). They are
-   * recorded as given and not checked: the memory model does not read them, so other indices
-   * change no σ or ε, only the indices the events carry. NaN or ±Infinity in `values` throws
-   * {@link NotchSampleError} naming `indices[k]`. No allocation per point.
-   *
-   * @example
-   * const tp = turningPoints(history); // @loopwise/rainflow: values and source indices
-   * tracker.pushIndexed(tp.values, tp.indices, 0, tp.values.length);
-   * // same loops (σ, ε, start and turn indices) as tracker.push(history)
-   */
+  /** Pushes points with their source sample indices (see {@link NotchTracker.pushIndexed}). */
   pushIndexed(values: ArrayLike<number>, indices: ArrayLike<number>, from: number, to: number): this {
     this.run(values, indices, from, to);
     return this;
@@ -331,8 +298,8 @@ export class NotchTracker {
       this.peakAbs = av;
       this.peakValue = v;
       this.peakIndex = index;
-      this.peakReversalRow = this.revs.length;
-      this.peakLoopRow = this.loopTable.length;
+      this.peakReversalRow = this.reversalsTaken + this.revs.length;
+      this.peakLoopRow = this.loopsTaken + this.loopTable.length;
     }
     if (this.recordReversals) this.revs.add(index, v, stress, strain);
     if (this.k === this.sv.length) this.growMemory();
@@ -442,28 +409,39 @@ export class NotchTracker {
 
   /**
    * Like {@link end}, but hands the live event tables over instead of copying them, and
-   * continues with empty tables of the given capacities (internal, for the batch functions:
-   * copying millions of rows cost them more than the solves). The state is unchanged.
+   * continues with empty tables of the given capacities (copying millions of rows costs more
+   * than the solves). The state is unchanged.
    */
   takeResult(reversalCapacity = 256, loopCapacity = 256): NotchTrackResult {
     const out = this.resultWith(this.revs, this.loopTable);
+    this.reversalsTaken += this.revs.length;
+    this.loopsTaken += this.loopTable.length;
     this.revs = new ReversalTable(reversalCapacity);
     this.loopTable = new LoopTable(loopCapacity);
     return out;
   }
 
-  /**
-   * The events from reversal row `reversalFrom` and loop row `loopFrom` on, as tables that share
-   * the live tables' storage, with the residue now (internal, for the repeating shortcut: both
-   * passes come out of one pair of tables without a copy; see {@link LoopTable.view}).
-   */
-  viewResult(reversalFrom: number, loopFrom: number): NotchTrackResult {
-    return this.resultWith(ReversalTable.view(this.revs, reversalFrom, this.revs.length), LoopTable.view(this.loopTable, loopFrom, this.loopTable.length));
+  /** Hands the loops closed since the last take over (no residue, no copy); the state is unchanged. */
+  takeLoops(capacity = 256): LoopTable {
+    const out = this.loopTable;
+    this.loopsTaken += out.length;
+    this.loopTable = new LoopTable(capacity);
+    return out;
+  }
+
+  /** Loop rows closed since the start of the tracking (taken or not). */
+  get loopRows(): number {
+    return this.loopsTaken + this.loopTable.length;
+  }
+
+  /** Reversal rows recorded since the start of the tracking (taken or not). */
+  get reversalRows(): number {
+    return this.reversalsTaken + this.revs.length;
   }
 
   /**
    * Reserves table room for `total` samples in all at the reversal rate seen so far, with a
-   * quarter to spare (internal: the batch functions call it after a first piece of the history,
+   * quarter to spare (called after a first piece of the history,
    * so that tables of millions of rows are not copied at every doubling). Each loop takes two
    * reversals, so half as many loops fit.
    */
@@ -477,7 +455,7 @@ export class NotchTracker {
     this.loopTable.reserve((rows >> 1) + 1);
   }
 
-  private resultWith(reversals: ReversalTable, loops: LoopTable): NotchTrackResult {
+  resultWith(reversals: ReversalTable, loops: LoopTable): NotchTrackResult {
     return {
       reversals,
       loops,
@@ -488,7 +466,7 @@ export class NotchTracker {
     };
   }
 
-  /** The memory as a frozen copy (internal, for the repeating-mode shortcut). */
+  /** The memory as a frozen copy. */
   snapshot(): TrackerSnapshot {
     const k = this.k;
     return {
@@ -505,8 +483,8 @@ export class NotchTracker {
 
   /**
    * The first sample of largest |value| pushed so far (a reversal point or the pending extreme),
-   * the event-table rows up to it and the memory right after it (internal, for the repeating
-   * shortcut: it needs no scan of its own). Null when no sample exceeds |initial| in magnitude,
+   * the event-table rows up to it and the memory right after it (the repeating pass needs no
+   * scan of its own). Null when no sample exceeds |initial| in magnitude,
    * when nothing was pushed, or for a tracker restored from JSON.
    *
    * Why the memory after it is known: every point in memory then is an earlier sample or the
@@ -526,8 +504,8 @@ export class NotchTracker {
       abs = e < 0 ? -e : e;
       value = e;
       index = this.extIndex;
-      reversalRow = this.revs.length;
-      loopRow = this.loopTable.length;
+      reversalRow = this.reversalsTaken + this.revs.length;
+      loopRow = this.loopsTaken + this.loopTable.length;
     }
     const init = this.options.initial;
     if (index < 0 || !((init < 0 ? -init : init) < abs)) return null;
@@ -536,7 +514,7 @@ export class NotchTracker {
     return { index, value, reversalRow, loopRow, after };
   }
 
-  /** True when the memory equals a snapshot exactly (internal). */
+  /** True when the memory equals a snapshot exactly. */
   matches(s: TrackerSnapshot): boolean {
     if (s.k !== this.k || s.dir !== this.dir || s.ext !== this.ext || s.extIndex !== this.extIndex) return false;
     for (let i = 0; i < s.k; i++) {
@@ -545,7 +523,7 @@ export class NotchTracker {
     return true;
   }
 
-  /** Sets the index of the next sample (internal: a repeated block keeps its own indices). */
+  /** Sets the index of the next sample (a repeated block keeps its own indices). */
   restartIndex(next: number): void {
     this.next = next;
   }
@@ -585,7 +563,7 @@ export class NotchTracker {
   }
 
   /** Rebuilds a tracker from {@link toJSON} output; it continues exactly (with empty event tables). */
-  static fromJSON(state: NotchTrackerState): NotchTracker {
+  static fromJSON(state: NotchTrackerState): TrackerCore {
     if (state == null || typeof state !== 'object' || state.format !== 'loopwise-notch-tracker') {
       throw new NotchStateError('format', "must be 'loopwise-notch-tracker'");
     }
@@ -599,7 +577,7 @@ export class NotchTracker {
         throw new NotchStateError(field, 'must be an encoded number');
       }
     };
-    const t = new NotchTracker({
+    const t = new TrackerCore({
       material: materialFromFields(o.material as Record<string, unknown>),
       input: o.input as NotchTrackerOptions['input'],
       rule: o.rule as NotchTrackerOptions['rule'],

@@ -12,9 +12,17 @@ export { NotchStateError } from './NotchStateError';
 export { NotchValidityError } from './NotchValidityError';
 export { ReversalTable, type ReversalColumns, type ReversalRow } from './ReversalTable';
 export { LoopTable, type LoopColumns, type LoopRow } from './LoopTable';
-export type { NotchInputKind, NotchRuleName, NotchTrackerOptions } from './NotchTrackerOptions';
+export { DEFAULT_TRACKER_TOLERANCE, type NotchInputKind, type NotchRuleName, type NotchTrackerOptions } from './NotchTrackerOptions';
 export { NotchTracker, type NotchTrackerState, type NotchTrackResult } from './NotchTracker';
 export { trackNotch } from './trackNotch';
 export { trackNotchRepeating, type NotchRepeatingResult } from './trackNotchRepeating';
+export {
+  RepeatingNotchTracker,
+  type PassRows,
+  type RepeatingTrackerOptions,
+  type RepeatingTrackResult,
+  type SecondPassNeed,
+  type TakenLoops,
+} from './RepeatingNotchTracker';
 export { branchResponse, type LocalPoint } from './branchResponse';
 export { checkLoopClosures, loopClosureError, type LoopClosureReport } from './checkLoopClosures';

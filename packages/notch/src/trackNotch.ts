@@ -1,4 +1,5 @@
-import { NotchTracker, type NotchTrackResult } from './NotchTracker';
+import type { NotchTrackResult } from './NotchTracker';
+import { TrackerCore } from './TrackerCore';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
 
 /**
@@ -18,7 +19,7 @@ import type { NotchTrackerOptions } from './NotchTrackerOptions';
  * // returns 1
  */
 export function trackNotch(history: ArrayLike<number>, options: NotchTrackerOptions): NotchTrackResult {
-  const t = new NotchTracker(options);
+  const t = new TrackerCore(options);
   t.pushRange(history, 0, history.length);
   return t.takeResult(16, 16); // the tracker is discarded: its tables need no copy
 }

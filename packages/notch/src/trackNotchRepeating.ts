@@ -1,8 +1,8 @@
-import { NotchTracker, type NotchTrackResult } from './NotchTracker';
+import { LoopTable } from './LoopTable';
+import type { NotchTrackResult } from './NotchTracker';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
-
-/** Samples of the first piece, whose reversal rate sizes the event tables for the whole block. */
-const SIZING_PIECE = 16384;
+import { RepeatingNotchTracker } from './RepeatingNotchTracker';
+import { ReversalTable } from './ReversalTable';
 
 /** What {@link trackNotchRepeating} returns. */
 export interface NotchRepeatingResult {
@@ -14,16 +14,13 @@ export interface NotchRepeatingResult {
    * pass was reused (`reusedFirstPass`), its reversals and loops are listed as they come in a
    * pass that starts just after the largest |value| (from there to the end of the block, then
    * from its start up to that value: the same cyclic sequence, as ASTM E1049-85 5.4.5 starts a
-   * repeating history at its largest peak); otherwise from sample 0. Its tables share storage
-   * with the first pass's; adding to either copies it first.
+   * repeating history at its largest peak); otherwise from sample 0. Its tables are its own:
+   * writing through one pass's columns never changes the other's.
    */
   stabilised: NotchTrackResult;
-  /**
-   * Index of the block's first sample of largest |value| (after offset), or -1 for an empty
-   * block. From there on the stabilised pass was copied from the first pass.
-   */
+  /** Index of the block's first sample of largest |value| (after offset), or -1 for an empty block. */
   largestIndex: number;
-  /** True when the copy was taken (the memories of both passes agreed at `largestIndex`). */
+  /** True when the stabilised pass reused the first pass from `largestIndex` on. */
   reusedFirstPass: boolean;
 }
 
@@ -31,67 +28,59 @@ export interface NotchRepeatingResult {
  * Tracks a block that repeats: a first pass from the unloaded state and a stabilised pass that
  * starts from the memory the first pass left (the seam from the last sample to the first is
  * part of the history). Life per repeat comes from the stabilised pass, whose loops are the
- * `repeat` rainflow cycles of the block.
- *
- * Method: only the part of the block before its largest |value| can differ between the passes:
- * reaching that value closes every loop back to the first-loading curve (memories 1 to 3), so
- * both passes then hold the same memory. The stabilised pass is therefore tracked up to that
- * sample only; if its memory then equals the first pass's memory exactly (it does unless
- * `initial` exceeds the block), the rest of the first pass's events is reused, otherwise the
- * whole block is tracked again. The first pass notes that sample as it goes (it is a reversal
- * point or the last extreme), so the block is not scanned for it separately.
+ * `repeat` rainflow cycles of the block. The batch form of {@link RepeatingNotchTracker}, which
+ * holds the method (the second pass runs only up to the largest |value|, then the first pass is
+ * reused).
  *
  * Reference: U. H. Clormann and T. Seeger, Stahlbau 55(3), 1986, 65-71; repeating histories as
  * in ASTM E1049-85 (reapproved 2017), 5.4.5.
  *
  * @example
  * trackNotchRepeating([300, -240, 360, -100], { material, Kt: 2.5 }).stabilised.loops.length
- * // returns 2 (360/-240 and 300/-100 ... see the README for the worked example)
+ * // returns 2 (360/-240 and 300/-100 close in the stabilised pass)
  */
 export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrackerOptions): NotchRepeatingResult {
-  const t = new NotchTracker(options);
   const n = block.length;
-  const off = t.options.offset;
-  if (n === 0) {
-    const r = t.end();
-    return { first: r, stabilised: t.end(), largestIndex: -1, reusedFirstPass: false };
-  }
-  // First pass. The tracker keeps the first sample of largest |value| and the memory right after
-  // it as it goes (at its reversals), so the block is read once. The tables are sized for the
-  // first pass and half a block more, the second pass's usual share.
-  const head = n < SIZING_PIECE ? n : SIZING_PIECE;
-  t.pushRange(block, 0, head);
-  t.reserveFor(n + (n >> 1));
-  t.pushRange(block, head, n);
-  const peak = t.largestPoint();
-  const m = peak !== null ? peak.index : largestMagnitudeIndex(block, off);
-  const rev1 = t.reversals.length;
-  const loops1 = t.loops.length;
-  const first = t.viewResult(0, 0);
-  // Second pass, into the same tables after the first pass's rows.
-  t.restartIndex(0);
-  let reused = false;
-  if (peak !== null) {
-    t.pushRange(block, 0, m + 1);
-    reused = t.matches(peak.after);
-  }
-  if (!reused) t.pushRange(block, peak !== null ? m + 1 : 0, n);
-  // Reused: the tables now hold the first pass, then the second up to the peak. The stabilised
-  // pass starting just after the peak is one run of rows: the first pass's from the peak on, then
-  // the second's; its residue is the first pass's. Otherwise the second pass is its own run.
-  const end = reused && peak !== null ? t.viewResult(peak.reversalRow, peak.loopRow) : t.viewResult(rev1, loops1);
-  const stabilised: NotchTrackResult = {
-    reversals: end.reversals,
-    loops: end.loops,
-    residue: reused ? first.residue : end.residue,
+  const t = new RepeatingNotchTracker({ ...options, expectedPoints: n });
+  t.push(block);
+  t.endFirstPass();
+  t.pushAgain(block);
+  const r = t.finish();
+  const s = r.stabilised!;
+  // both passes out of one pair of tables: honest splits, copied only when both are read
+  const [firstLoops, stabilisedLoops] = LoopTable.split(r.loops, [
+    [r.first.loopFrom, r.first.loopTo],
+    [s.loopFrom, s.loopTo],
+  ]);
+  const [firstReversals, stabilisedReversals] = ReversalTable.split(r.reversals, [
+    [r.first.reversalFrom, r.first.reversalTo],
+    [s.reversalFrom, s.reversalTo],
+  ]);
+  const pass = (reversals: ReversalTable, loops: LoopTable, residue: ReversalTable): NotchTrackResult => ({
+    reversals,
+    loops,
+    residue,
     samples: n,
-    beyondStrainLimit: end.beyondStrainLimit,
-    firstBeyondIndex: end.firstBeyondIndex,
+    beyondStrainLimit: r.beyondStrainLimit,
+    firstBeyondIndex: r.firstBeyondIndex,
+  });
+  // the residue tables are the result's own too
+  const stabilisedResidue = s.residue === r.first.residue ? copyOf(s.residue) : s.residue;
+  return {
+    first: pass(firstReversals, firstLoops, r.first.residue),
+    stabilised: pass(stabilisedReversals, stabilisedLoops, stabilisedResidue),
+    largestIndex: r.largestIndex >= 0 || n === 0 ? r.largestIndex : largestMagnitudeIndex(block, t.options.offset),
+    reusedFirstPass: r.reusedFirstPass,
   };
-  return { first, stabilised, largestIndex: m, reusedFirstPass: reused };
 }
 
-/** Index of the first sample of largest |value + offset| (the slow way, for the cases the tracker does not cover). */
+function copyOf(t: ReversalTable): ReversalTable {
+  const out = new ReversalTable(t.length);
+  out.appendRange(t, 0, t.length);
+  return out;
+}
+
+/** Index of the first sample of largest |value + offset| (when no sample exceeds |initial|, the tracker notes none). */
 function largestMagnitudeIndex(block: ArrayLike<number>, offset: number): number {
   let best = -1;
   let at = -1;

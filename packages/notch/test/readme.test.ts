@@ -18,7 +18,7 @@ describe('README example', () => {
     const tp = turningPoints([0, 300, -240, 320, 360, 200]);
     expect(Array.from(tp.indices)).toEqual([0, 1, 2, 4, 5]);
     const tracker = new NotchTracker({ material, Kt: 2.5 }).pushIndexed(tp.values, tp.indices, 0, tp.values.length);
-    expect(tracker.loops.row(0)).toMatchObject({ startIndex: 1, turnIndex: 2, closeIndex: 4 });
+    expect(tracker.end().loops.row(0)).toMatchObject({ startIndex: 1, turnIndex: 2, closeIndex: 4 });
     expect(trackNotch([0, 300, -240, 320, 360, 200], { material, Kt: 2.5 }).loops.row(0).closeIndex).toBe(3);
     expect(tracker.nextIndex).toBe(6);
   });

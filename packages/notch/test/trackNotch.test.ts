@@ -16,7 +16,9 @@ import {
   type NotchTrackerOptions,
   type NotchTrackResult,
 } from '@loopwise/notch';
-import { encodeNumber } from '../src/numberCodec';
+import { encodeNumber } from '@loopwise/base';
+import { TrackerCore } from '../src/TrackerCore';
+import { DEFAULT_TRACKER_TOLERANCE } from '../src/NotchTrackerOptions';
 import { checkProperty } from '../../../test/property';
 import { gridHistory, realisticMaterial, sae1045 } from './support';
 
@@ -221,7 +223,8 @@ describe('trackNotch: properties', () => {
       fc.property(gridHistory(), (h) => {
         const r = trackNotch(h.map((x) => x * S), opts);
         const xmax = Math.max(0, ...h.map(Math.abs)) * S;
-        const bound = neuber(sae1045, 2.5 * xmax).stress * (1 + 1e-12);
+        // the tracker's solves hold their documented tolerance (default 1e-10 relative)
+        const bound = neuber(sae1045, 2.5 * xmax).stress * (1 + DEFAULT_TRACKER_TOLERANCE);
         for (const row of r.reversals.toRows()) expect(Math.abs(row.stress)).toBeLessThanOrEqual(bound);
       }),
     );
@@ -276,7 +279,7 @@ describe('trackNotchRepeating(block, options)', () => {
         expect(pairs(r.stabilised)).toEqual(cycles(h));
         expect(r.stabilised.loops.totalCount()).toBe(cycles(h).length);
         // third pass by streaming
-        const t = new NotchTracker(opts);
+        const t = new TrackerCore(opts);
         t.push(block);
         t.restartIndex(0);
         t.push(block);
@@ -301,7 +304,7 @@ describe('trackNotchRepeating(block, options)', () => {
         const o: NotchTrackerOptions = { ...opts, initial: init * S, offset: off * S };
         const block = h.map((x) => x * S);
         const r = trackNotchRepeating(block, o);
-        const t = new NotchTracker(o);
+        const t = new TrackerCore(o);
         t.push(block);
         const first = t.end();
         t.restartIndex(0);
@@ -322,12 +325,15 @@ describe('trackNotchRepeating(block, options)', () => {
         expect(r.stabilised.reversals.toRows()).toEqual(rotate(all.reversals.toRows().slice(nRev), splitRev));
         expect(r.stabilised.loops.toRows()).toEqual(rotate(all.loops.toRows().slice(nLoops), splitLoops));
         expect(r.stabilised.residue.toRows()).toEqual(all.residue.toRows());
-        // the tables share storage, yet adding to one leaves the other as it was
+        // the tables may share storage, yet adding to or writing through one leaves the other as it was
         const before = r.stabilised.loops.toRows();
+        const beforeRev = r.stabilised.reversals.toRows();
         r.first.loops.add(1, 2, 3, 4, 5, 6, 7, 1);
         r.first.reversals.add(1, 2, 3, 4);
+        for (const c of Object.values(r.first.loops.columns())) c.fill(-1);
+        for (const c of Object.values(r.first.reversals.columns())) c.fill(-1);
         expect(r.stabilised.loops.toRows()).toEqual(before);
-        expect(r.first.loops.toRows().slice(0, -1)).toEqual(first.loops.toRows());
+        expect(r.stabilised.reversals.toRows()).toEqual(beforeRev);
         // the largest |value| found without a scan of its own is the first sample of largest |value|
         const mags = block.map((x) => Math.abs(x + off * S));
         expect(r.largestIndex).toBe(mags.indexOf(Math.max(...mags)));
@@ -341,7 +347,7 @@ describe('trackNotchRepeating(block, options)', () => {
       fc.property(gridHistory(), fc.integer({ min: -9, max: 9 }), (h, init) => {
         const o: NotchTrackerOptions = { ...opts, initial: init * S };
         const block = h.map((x) => x * S);
-        const t = new NotchTracker(o);
+        const t = new TrackerCore(o);
         t.push(block);
         const p = t.largestPoint();
         const mags = block.map(Math.abs);
@@ -356,7 +362,7 @@ describe('trackNotchRepeating(block, options)', () => {
         expect(p!.index).toBe(m);
         expect(p!.value).toBe(block[m]);
         // replay up to the point and compare with what the tracker saw then
-        const u = new NotchTracker(o);
+        const u = new TrackerCore(o);
         u.push(block.slice(0, m + 1));
         expect(u.matches(p!.after)).toBe(true);
         expect(p!.loopRow).toBe(u.loops.length);
