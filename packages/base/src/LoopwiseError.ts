@@ -2,16 +2,17 @@
  * The base class of every loopwise error: a stable `code` for programs (kebab-case, the same
  * style in every package, e.g. `'non-finite-sample'`), and the place of the problem for people:
  * `field` (an option, a job field, a material field, a column: `'events[2].repeats'`), the
- * `value` it had, and `index` (a sample, row or element index) when there is one.
+ * `value` it had, and `index` (a sample, row or element index) when there is one. `name` is the
+ * class name of the error thrown.
  *
  * Each package derives its own classes (so `instanceof` tells them apart) and this class is a
  * real runtime dependency, not bundled into each package: `err instanceof LoopwiseError` holds
  * for an error of any loopwise package.
  *
  * @example
- * try { rainflow([0, NaN]); }
- * catch (e) { [(e as LoopwiseError).code, (e as LoopwiseError).index]; }
- * // returns ['non-finite-sample', 1]
+ * const e = new LoopwiseError('invalid-option', 'gate', -1, 'option gate = -1 is invalid: must be >= 0');
+ * [e.name, e.code, e.field, e.value, e.index]
+ * // returns ['LoopwiseError', 'invalid-option', 'gate', -1, undefined]
  */
 export class LoopwiseError extends Error {
   /** Stable machine-readable code. */
@@ -41,8 +42,19 @@ export class LoopwiseError extends Error {
 }
 
 /**
- * A value as it reads in an error message: -0 as `-0`, strings quoted, objects as JSON (or
- * their `String` when they do not serialise), undefined as `undefined`.
+ * A value as it reads in an error message, exactly: numbers as JavaScript writes them (-0 as
+ * `-0`, `NaN`, `Infinity`), strings quoted, undefined as `undefined`, arrays, typed arrays and
+ * plain objects as JSON in which every number keeps that exact form (plain JSON would write NaN
+ * and ±Infinity as `null` and -0 as `0`). Arrays show their first 20 elements and then how many
+ * there are; a value JSON cannot write (a cycle, a bigint inside) falls back to its `String`.
+ *
+ * @example
+ * describeValue(-0)
+ * // returns '-0'
+ * describeValue([1, NaN, -Infinity])
+ * // returns '[1,NaN,-Infinity]'
+ * describeValue(Float64Array.of(0.5, -0))
+ * // returns '[0.5,-0]'
  */
 export function describeValue(value: unknown): string {
   if (typeof value === 'number') return Object.is(value, -0) ? '-0' : String(value);
@@ -50,8 +62,23 @@ export function describeValue(value: unknown): string {
   if (value === undefined) return 'undefined';
   if (typeof value === 'bigint' || typeof value === 'symbol' || typeof value === 'function') return String(value);
   try {
-    return JSON.stringify(value) ?? String(value);
+    const text = JSON.stringify(value, exactReplacer);
+    return text === undefined ? String(value) : text.replace(MARKED, '$1');
   } catch {
     return String(value);
   }
+}
+
+const MAX_ELEMENTS = 20;
+// A number JSON cannot write exactly travels as a marked string and is unquoted afterwards.
+const MARK = '\u0001\u0002';
+const MARKED = /"\\u0001\\u0002([^"]*)\\u0001\\u0002"/g;
+
+function exactReplacer(_key: string, v: unknown): unknown {
+  if (typeof v === 'number') return Number.isFinite(v) && !Object.is(v, -0) ? v : `${MARK}${describeValue(v)}${MARK}`;
+  if (ArrayBuffer.isView(v) && !(v instanceof DataView)) v = Array.from(v as unknown as ArrayLike<number>);
+  if (Array.isArray(v) && v.length > MAX_ELEMENTS) {
+    return [...v.slice(0, MAX_ELEMENTS), `${MARK}… (${v.length} elements)${MARK}`];
+  }
+  return v;
 }

@@ -1,7 +1,9 @@
 /**
  * Index of the bin of `v` among strictly increasing `edges` (bins [e0, e1), [e1, e2), …, the
- * last bin closed: [e(n−1), e(n)]), or -1 when v is outside (or NaN). Binary search, O(log n),
- * no allocation.
+ * last bin closed: [e(n−1), e(n)]), or -1 when v is outside, NaN, or there are fewer than two
+ * edges. A value on an inner edge belongs to the bin above it; -0 and 0 are the same value.
+ * Binary search, O(log n), no allocation; the edges are not checked (the caller validated them
+ * once, e.g. with rainflow's `binEdges`).
  *
  * @example
  * binIndex(Float64Array.of(0, 100, 200), 100)

@@ -5,7 +5,8 @@
  */
 
 /**
- * A new column of `capacity` entries holding the first `used` entries of `column`.
+ * A new column of `capacity` entries (`capacity` >= `used`) holding the first `used` entries of
+ * `column`, zeros after them. The new column shares nothing with `column`.
  *
  * @example
  * widenColumn(Float64Array.of(1, 2, 3), 2, 4)
@@ -17,7 +18,16 @@ export function widenColumn(column: Float64Array, used: number, capacity: number
   return out;
 }
 
-/** The capacity to grow to when `needed` rows must fit into `capacity`: doubling, at least 16. */
+/**
+ * The capacity to grow to when `needed` rows must fit into a table of `capacity` rows: the
+ * capacity (at least 16) doubled until `needed` fits, so n rows cost O(n) copying in all.
+ *
+ * @example
+ * grownCapacity(16, 17)
+ * // returns 32
+ * grownCapacity(0, 1)
+ * // returns 16
+ */
 export function grownCapacity(capacity: number, needed: number): number {
   let c = capacity < 16 ? 16 : capacity;
   while (c < needed) c *= 2;
