@@ -1,15 +1,14 @@
 import { defineMaterial, type Material, type MaterialInput } from '@loopwise/material';
 import { damageParameters, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from '@loopwise/mean-stress';
-import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
+import type { ServiceUnit } from '@loopwise/miner';
+import { DEFAULT_TRACKER_TOLERANCE, type NotchInputKind, type NotchRuleName } from '@loopwise/notch';
 import { EngineError } from './EngineError';
 
-/** Service that one repeat stands for: a unit label and, for a single history, its amount. */
-export interface ServicePerRepeat {
-  /** Unit of service, e.g. `'h'`, `'km'`, `'laps'`, `'flights'`. */
-  label: string;
-  /** Amount of the unit one repeat of the history stands for. Duty cycles take it from their events. */
-  perRepeat?: number;
-}
+/**
+ * The job's unit of service: miner's {@link ServiceUnit} (a label and the amount one repeat
+ * stands for), with the amount optional because a duty cycle takes it from its events' durations.
+ */
+export type JobServiceUnit = Omit<ServiceUnit, 'perRepeat'> & { perRepeat?: number };
 
 /** What to assess and how. Every field but `material` has a documented default. */
 export interface LifeJob {
@@ -55,7 +54,7 @@ export interface LifeJob {
   /** Scatter factor on life, >= 1; default 1. */
   scatterFactor?: number;
   /** Service per repeat, for life in hours, km, laps or flights. */
-  unit?: ServicePerRepeat;
+  unit?: JobServiceUnit;
   /** History value at which the part sits when the history starts; default 0 (unloaded). */
   initial?: number;
   /** Added to every sample first (a gauge zeroed under load); default 0. */
@@ -64,7 +63,11 @@ export interface LifeJob {
   timelineBins?: number;
   /** Number of most damaging loops listed in the report; default 10. */
   worstLoopCount?: number;
-  /** Relative tolerance of the notch-rule solves; default 1e-12 (at most 1e-10). */
+  /**
+   * Relative tolerance of the notch-rule solves, in [1e-15, 1e-10]; default 1e-10 (the tracker's
+   * default: a verified answer table, local σ and ε within 1e-10 relative; tighter costs about
+   * 1.5× per reversal).
+   */
   tolerance?: number;
 }
 
@@ -85,7 +88,7 @@ export interface ResolvedJob {
   cutoffCycles: number | undefined;
   criticalDamage: number;
   scatterFactor: number;
-  unit: ServicePerRepeat | undefined;
+  unit: JobServiceUnit | undefined;
   initial: number;
   offset: number;
   timelineBins: number;
@@ -157,7 +160,7 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
   const criticalDamage = positive('criticalDamage', job.criticalDamage, 1);
   const scatterFactor = finite('scatterFactor', job.scatterFactor, 1);
   if (!(scatterFactor >= 1)) bad('scatterFactor', scatterFactor, 'must be >= 1');
-  let unit: ServicePerRepeat | undefined;
+  let unit: JobServiceUnit | undefined;
   if (job.unit !== undefined) {
     if (job.unit === null || typeof job.unit !== 'object' || typeof job.unit.label !== 'string' || job.unit.label === '') {
       bad('unit', job.unit, 'must be { label, perRepeat } with a non-empty label');
@@ -169,7 +172,7 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
   if (!Number.isInteger(timelineBins) || timelineBins < 1) bad('timelineBins', timelineBins, 'must be an integer >= 1');
   const worstLoopCount = job.worstLoopCount ?? 10;
   if (!Number.isInteger(worstLoopCount) || worstLoopCount < 0) bad('worstLoopCount', worstLoopCount, 'must be an integer >= 0');
-  const tolerance = finite('tolerance', job.tolerance, 1e-12);
+  const tolerance = finite('tolerance', job.tolerance, DEFAULT_TRACKER_TOLERANCE);
   if (!(tolerance >= 1e-15 && tolerance <= 1e-10)) bad('tolerance', tolerance, 'must be in [1e-15, 1e-10]');
   return {
     material,

@@ -4,8 +4,8 @@ import type { LifeEstimate } from '@loopwise/miner';
 /**
  * Typed-array columns of the loops that make up the damage of one repeat (stabilised pass). Rows
  * are in closing order; for a repeating history, of the pass that starts just after the largest
- * |value| (the loops from there to the end, then those up to it). Read them, do not write: for a
- * single repeating history the local and life columns are views of the tracker's tables.
+ * |value| (the loops from there to the end, then those up to it). The columns belong to this
+ * report alone: writing through them changes no other result.
  */
 export interface LifeLoopColumns {
   /** Local stresses and strains of the loop at the notch root. */
@@ -77,7 +77,8 @@ export interface LifeReport {
   /** The safety caution that goes with every estimate. */
   caution: string;
   damage: {
-    correction: DamageParameterName;
+    /** The mean-stress correction (damage parameter) in use, as named in the job. */
+    meanStress: DamageParameterName;
     parameterUnit: string;
     /** Damage per repeat of the schedule, stabilised pass (the basis of life). */
     perRepeat: number;

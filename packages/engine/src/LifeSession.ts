@@ -1,15 +1,16 @@
-import { LoopTable, NotchSampleError, NotchTracker, ReversalTable } from '@loopwise/notch';
-import { ReversalFilter } from '@loopwise/rainflow';
-import { emptyColumns, gateBoundAt, reportFrame, reportFrom, trackerOptionsOf, warningsOf, type IndexMap } from './assessDutyCycle';
-import { LoopAggregate } from './LoopAggregate';
+import { NotchSampleError, RepeatingNotchTracker } from '@loopwise/notch';
+import { NonFiniteSampleError, ReversalFilter } from '@loopwise/rainflow';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
 import type { LifeReport } from './LifeReport';
-import type { LoopSegment } from './trackSchedule';
+import { LoopAggregate } from './LoopAggregate';
+import { reportFromTracked, reportHead, type ReportEvent } from './reportAssembly';
+import { emptyColumns } from './reportColumns';
+import { trackedFrom, trackerOptionsOf } from './trackHistory';
+import { gateBoundAt, warningsOf } from './warnings';
 
+/** Samples per block through the gate (the turning points of a block stay in cache). */
 const BLOCK = 65536;
-/** Points per piece of the first pass's largest-|value| search. */
-const PIECE = 16384;
 
 /** Options of {@link LifeSession}. */
 export interface LifeSessionOptions {
@@ -25,61 +26,48 @@ export interface LifeSessionOptions {
 
 /**
  * A streaming assessment of one history that arrives in chunks (a file larger than memory):
- * `push` the samples once; for a repeating history (the default) push its first
- * `secondPassSamples` samples once more with `pushSecondPass` (re-read the file; it is not held);
- * then `finish()` returns the report that {@link assessLife} gives for the whole history.
+ * `push` the samples once; for a repeating history (the default) call `endFirstPass()`, which
+ * returns how many samples from the start are needed again, and push those with
+ * `pushSecondPass` (re-read the file; it is not held); then `finish()` returns the report that
+ * {@link assessLife} gives for the whole history.
  *
- * Memory: the gate's and the tracker's O(1) state and memory, one chunk of turning points, and
+ * The same stages as the batch assessment: turning points with the gate (a streaming
+ * ReversalFilter, gate 0 included), the notch package's RepeatingNotchTracker (which decides
+ * what the second pass needs: the samples up to the first of largest |value|, or all of them),
+ * the loop evaluation and the report assembly.
+ *
+ * Memory: the gate's and the tracker's O(1) state and memory, one block of turning points, and
  * the closed loops the report lists (about 120 bytes per loop), not the samples.
- *
- * Why a second pass: the stabilised pass starts from the memory the first pass left and is
- * tracked up to the history's first sample of largest |value|; from there on it equals the
- * first pass. That sample is known only at the end of the first pass, and the samples before it
- * are needed again. When the initial value is at least as large as every sample, the whole
- * history is needed again (`secondPassSamples` is then the sample count).
  *
  * @example
  * const session = new LifeSession({ material, notch: { Kt: 2 }, gateFraction: 0.01, fullScale: 800 });
  * for await (const chunk of readChunks(file)) session.push(chunk);
- * let left = session.secondPassSamples;
+ * let left = session.endFirstPass();
  * for await (const chunk of readChunks(file)) { if (left <= 0) break; session.pushSecondPass(chunk); left -= chunk.length; }
  * const report = session.finish();
  */
 export class LifeSession {
   private readonly job: ResolvedJob;
   private readonly gate: number;
-  private readonly tracker: NotchTracker;
+  private readonly tracker: RepeatingNotchTracker;
   private filter: ReversalFilter;
   private readonly tv = new Float64Array(BLOCK + 2);
   private readonly ti = new Float64Array(BLOCK + 2);
-  private readonly loops = new LoopTable();
   private stage: 'first' | 'second' | 'done' = 'first';
   private samples = 0;
-  private best = -1;
-  private peakIndex = -1;
-  private peakValue = 0;
-  private peakRow = -1;
-  private peakSnapshot: ReturnType<NotchTracker['snapshot']> | null = null;
-  private firstRows = 0;
-  private firstResidue: ReversalTable | null = null;
   private removed = 0;
+  private largestKept = 0;
   private secondNeeded = 0;
   private secondSeen = 0;
-  private secondFull = false;
-  private reused = false;
-  // The first three turning points of the first pass (gated histories): the first sample and
-  // the extremes the gate kept before its first reversal, for a second read that ends before it.
-  private readonly leadValues = new Float64Array(3);
-  private readonly leadIndices = new Float64Array(3);
-  private leadCount = 0;
-  private beyond = false;
-  private firstBeyond = -1;
 
   private readonly keepLoops: boolean;
   private readonly binSize: number;
+  // running totals without kept loops: first-pass loops before the largest |value| so far,
+  // after it (reused by the stabilised pass), and the second pass's
   private before: LoopAggregate | null = null;
   private current: LoopAggregate | null = null;
   private second: LoopAggregate | null = null;
+  private currentFrom = 0;
 
   constructor(job: LifeJob, options: LifeSessionOptions = {}) {
     this.job = resolveLifeJob(job);
@@ -100,7 +88,7 @@ export class LifeSession {
     }
     this.gate = j.gate ?? (j.gateFraction !== undefined ? j.gateFraction * (j.fullScale as number) : 0);
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
-    this.tracker = new NotchTracker({ ...trackerOptionsOf(j), recordReversals: false });
+    this.tracker = new RepeatingNotchTracker(trackerOptionsOf(j));
   }
 
   /** Samples pushed in the first pass so far. */
@@ -109,56 +97,63 @@ export class LifeSession {
   }
 
   /**
-   * Samples of the history to push again with {@link pushSecondPass} (0 for a one-off history).
-   * Known once the first pass has ended, that is after the first call of `pushSecondPass` or
-   * of this getter, which ends it.
+   * Samples of the history to push again with {@link pushSecondPass}, from sample 0 (0 for a
+   * one-off history). Known once the first pass has ended ({@link endFirstPass}); before, a
+   * session-state error.
    */
   get secondPassSamples(): number {
-    this.endFirstPass();
+    if (this.stage === 'first') throw new EngineError('session-state', 'secondPassSamples', undefined, 'known once the first pass has ended: call endFirstPass()');
     return this.secondNeeded;
   }
 
   /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
-    if (this.gate === 0) {
-      try {
-        this.feedFirstPass(chunk, null, chunk.length, this.samples);
-      } catch (err) {
-        if (err instanceof NotchSampleError) {
-          throw new EngineError('invalid-history', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index);
-        }
-        throw err;
-      }
-      this.samples += chunk.length;
-      return this;
-    }
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
-      const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
-      this.keepLeading(k);
-      this.feedFirstPass(this.tv, this.ti, k, 0);
+      const k = this.gated(chunk, s, e);
+      this.feed(k, false);
     }
     this.samples += chunk.length;
     return this;
   }
 
-  /** Pushes the history's samples again, from sample 0 on; samples past `secondPassSamples` are ignored. */
+  /**
+   * Ends the first pass; returns the number of samples, from sample 0, to push again with
+   * {@link pushSecondPass} (0 for a one-off history or an empty one). Calling it again returns
+   * the same number.
+   */
+  endFirstPass(): number {
+    if (this.stage !== 'first') return this.secondNeeded;
+    // the last extreme is a turning point too
+    this.feed(this.filter.pendingInto(this.tv, this.ti, 0), false);
+    this.removed = this.filter.removedCount;
+    if (this.samples === 0 || !this.job.repeating) {
+      this.stage = 'done';
+      return 0;
+    }
+    const need = this.tracker.endFirstPass();
+    this.secondNeeded = need.whole ? this.samples : need.throughIndex + 1;
+    this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
+    this.stage = 'second';
+    return this.secondNeeded;
+  }
+
+  /** Pushes the history's samples again, from sample 0 on; samples past the need are ignored. */
   pushSecondPass(chunk: ArrayLike<number>): this {
     this.endFirstPass();
     if (this.stage !== 'second') throw new EngineError('session-state', 'pushSecondPass', undefined, 'no second pass is open');
     const want = Math.min(chunk.length, this.secondNeeded - this.secondSeen);
-    if (this.gate === 0) {
-      if (want > 0) this.tracker.pushRange(chunk, 0, want);
-      this.drain();
-    }
-    for (let s = 0; this.gate > 0 && s < want; s += BLOCK) {
+    for (let s = 0; s < want; s += BLOCK) {
       const e = Math.min(want, s + BLOCK);
-      const k = this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
-      this.feed(k);
+      this.feed(this.gated(chunk, s, e), true);
     }
     this.secondSeen += want;
-    if (this.secondSeen === this.secondNeeded) this.endSecondPass();
+    if (this.secondSeen === this.secondNeeded) {
+      // the read ends at the last needed sample: its pending extremes are turning points too
+      this.feed(this.filter.pendingInto(this.tv, this.ti, 0), true);
+      this.stage = 'done';
+    }
     return this;
   }
 
@@ -173,217 +168,104 @@ export class LifeSession {
         `the second pass needs samples 0 to ${this.secondNeeded - 1} again; ${this.secondSeen} were pushed`,
       );
     }
-    if (this.stage === 'done' && this.samples === 0) {
-      throw new EngineError('invalid-event', 'history', '[]', "event 'history' has no samples");
-    }
-    if (!this.keepLoops) return this.aggregateReport();
-    const n = this.loops.length;
-    const first: LoopSegment[] = [{ from: 0, to: this.firstRows, weight: 1 }];
-    let stabilised: LoopSegment[] = first;
-    if (this.job.repeating) {
-      // from just after the largest |value| on, as in trackSchedule
-      stabilised = this.reused
-        ? [
-            { from: this.peakRow, to: this.firstRows, weight: 1 },
-            { from: this.firstRows, to: n, weight: 1 },
-          ]
-        : [{ from: this.firstRows, to: n, weight: 1 }];
-    }
-    const identity: IndexMap = (src, from, to, out, at, events) => {
-      for (let i = from, j = at; i < to; i++, j++) {
-        out[j] = src[i];
-        events[j] = src[i] < 0 ? -1 : 0;
-      }
-    };
-    return reportFrom(
-      {
-        events: [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }],
-        eventStarts: [0],
-        gate: this.gate,
-        removed: this.removed,
-        totalSamples: this.samples,
-        largestKept: Math.max(this.best, Math.abs(this.job.initial)),
-        toSample: identity,
-        track: {
-          loops: this.loops,
-          beyondStrainLimit: this.beyond,
-          firstBeyondIndex: this.firstBeyond,
-          first,
-          stabilised,
-          firstResidue: this.firstResidue as ReversalTable,
-          reusedFirstPass: this.reused,
-        },
-      },
-      this.job,
-    );
+    if (this.samples === 0) throw new EngineError('invalid-event', 'history', '[]', "event 'history' has no samples");
+    const events: ReportEvent[] = [{ name: 'history', repeats: 1, samples: this.samples }];
+    if (!this.keepLoops) return this.aggregateReport(events);
+    const tracked = trackedFrom(this.tracker, this.job.repeating, {
+      eventStarts: [0],
+      totalSamples: this.samples,
+      gate: this.gate,
+      removed: this.removed,
+      largestKept: this.removed > 0 ? Math.max(this.largestKept, Math.abs(this.job.initial)) : 0,
+    });
+    return reportFromTracked(tracked, events, this.job);
   }
 
   private aggregate(): LoopAggregate {
     return new LoopAggregate(this.binSize, this.job.worstLoopCount, this.job.cutoffCycles ?? Infinity);
   }
 
-  /** Loops closed before a new largest |value| belong to the first pass only. */
-  private newPeak(): void {
-    if (this.keepLoops) return;
-    this.before!.merge(this.current!);
-    this.current = this.aggregate();
+  /** Samples `chunk[s..e)` through the gate into tv/ti; returns the turning points written. */
+  private gated(chunk: ArrayLike<number>, s: number, e: number): number {
+    try {
+      return this.filter.pushRange(chunk, s, e, this.tv, this.ti, 0);
+    } catch (err) {
+      if (err instanceof NonFiniteSampleError) {
+        throw new EngineError('non-finite-sample', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index as number);
+      }
+      throw err;
+    }
+  }
+
+  /** Turning points tv/ti[0..k) into the tracker (first or second pass); loops folded when not kept. */
+  private feed(k: number, again: boolean): void {
+    if (k === 0) return;
+    const off = this.job.offset;
+    try {
+      if (again) this.tracker.pushAgain(this.tv, this.ti, 0, k);
+      else {
+        this.tracker.push(this.tv, this.ti, 0, k);
+        for (let i = 0; i < k; i++) {
+          const a = Math.abs(this.tv[i] + off);
+          if (a > this.largestKept) this.largestKept = a;
+        }
+      }
+    } catch (err) {
+      if (err instanceof NotchSampleError) {
+        throw new EngineError('non-finite-sample', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index);
+      }
+      throw err;
+    }
+    if (!this.keepLoops) this.fold();
   }
 
   /**
-   * Pushes points of the first pass: raw samples (indices null: sample indices from `base`) or
-   * turning points with their indices. In pieces that stay in cache, a piece whose largest
-   * |value| beats every earlier one is split there: loops closed so far belong to the first
-   * pass only, and the memory at that point is saved for the second pass. One split per piece
-   * at most, so a steadily growing history costs no more than any other.
+   * Folds the loops closed so far into the running totals: first-pass loops before the largest
+   * |value| so far belong to the first pass only; those after it are reused by the stabilised
+   * pass; second-pass loops are its own.
    */
-  private feedFirstPass(values: ArrayLike<number>, indices: Float64Array | null, count: number, base: number): void {
-    const off = this.job.offset;
-    for (let s = 0; s < count; s += PIECE) {
-      const end = Math.min(count, s + PIECE);
-      let j = -1;
-      let top = this.best;
-      for (let i = s; i < end; i++) {
-        const x = values[i] + off;
-        const a = x < 0 ? -x : x;
-        if (a > top) {
-          top = a;
-          j = i;
-        }
-      }
-      if (j < 0) {
-        this.pushPart(values, indices, s, end);
-        continue;
-      }
-      this.pushPart(values, indices, s, j + 1);
-      this.drain();
-      this.newPeak();
-      this.best = top;
-      this.peakIndex = indices === null ? base + j : indices[j];
-      this.peakValue = values[j];
-      this.peakRow = this.loops.length;
-      this.peakSnapshot = this.tracker.snapshot();
-      this.pushPart(values, indices, j + 1, end);
-    }
-    this.drain();
-  }
-
-  private pushPart(values: ArrayLike<number>, indices: Float64Array | null, from: number, to: number): void {
-    if (to <= from) return;
-    if (indices === null) this.tracker.pushRange(values, from, to);
-    else this.tracker.pushIndexed(values, indices, from, to);
-  }
-
-  /** Keeps the first pass's first three turning points (from tv/ti, k of them now). */
-  private keepLeading(k: number): void {
-    for (let i = 0; i < k && this.leadCount < 3; i++) {
-      this.leadValues[this.leadCount] = this.tv[i];
-      this.leadIndices[this.leadCount++] = this.ti[i];
-    }
-  }
-
-  private feed(k: number): void {
-    if (k > 0) this.tracker.pushIndexed(this.tv, this.ti, 0, k);
-    this.drain();
-  }
-
-  /** Moves the tracker's new loops into the session's table and keeps the highest-stress reversal. */
-  private drain(): void {
-    const r = this.tracker.takeResult();
-    if (this.keepLoops) this.loops.appendRange(r.loops, 0, r.loops.length);
-    else {
-      const into = this.stage === 'first' ? this.current! : this.second!;
-      into.add(r.loops.columns(), this.job.material, this.job.meanStress, this.job.walkerGamma);
-    }
-    if (r.beyondStrainLimit && !this.beyond) {
-      this.beyond = true;
-      this.firstBeyond = r.firstBeyondIndex;
-    }
-  }
-
-  private endFirstPass(): void {
-    if (this.stage !== 'first') return;
-    if (this.samples === 0) {
-      this.stage = 'done';
+  private fold(): void {
+    const taken = this.tracker.takeLoops();
+    const n = taken.loops.length;
+    if (n === 0 && taken.secondPass) return;
+    const j = this.job;
+    const cols = taken.loops.columns();
+    const part = (from: number, to: number) => {
+      const out: typeof cols = { ...cols };
+      for (const key of Object.keys(cols) as (keyof typeof cols)[]) out[key] = cols[key].subarray(from, to);
+      return out;
+    };
+    if (taken.secondPass) {
+      this.second!.add(cols, j.material, j.meanStress, j.walkerGamma);
       return;
     }
-    // the last extreme is a turning point too
-    if (this.gate > 0) {
-      const k = this.filter.pendingInto(this.tv, this.ti, 0);
-      this.keepLeading(k);
-      this.feedFirstPass(this.tv, this.ti, k, 0);
-    }
-    this.removed = this.filter.removedCount;
-    this.firstRows = this.loops.length;
-    this.firstResidue = this.tracker.residue();
-    if (!this.job.repeating) {
-      this.stage = 'done';
-      return;
-    }
-    // A full second read when the initial value reaches the history's largest |value| (initial
-    // is a value after the offset, as the samples are here), or when the history starts at that
-    // value and ends on it too: the plateau across the seam then keeps the end's sample index,
-    // so the memories at the largest |value| differ in that index.
-    const end = this.tracker.snapshot();
-    const seamPlateau = this.peakIndex === 0 && end.extIndex !== 0 && end.ext === this.peakValue + this.job.offset;
-    this.secondFull = !(Math.abs(this.job.initial) < this.best) || seamPlateau;
-    this.secondNeeded = this.secondFull ? this.samples : this.peakIndex + 1;
-    this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
-    if (this.gate === 0) this.tracker.restartIndex(0);
-    this.stage = 'second';
-  }
-
-  private endSecondPass(): void {
-    if (this.secondFull) {
-      if (this.gate > 0) this.feed(this.filter.pendingInto(this.tv, this.ti, 0));
-      this.stage = 'done';
-      return;
-    }
-    if (this.gate > 0 && this.filter.confirmedCount > 1) {
-      // The samples up to the largest |value| confirm every turning point before it again; the
-      // one at it was confirmed by later samples in the first pass, so it is pushed as found there.
-      this.tv[0] = this.peakValue;
-      this.ti[0] = this.peakIndex;
-      this.feed(1);
-    } else if (this.gate > 0) {
-      // The read ended before the gate's first reversal (only the first sample is out): the first
-      // pass kept the extremes before it when that reversal came, the largest |value| among them.
-      // Those up to the largest |value| are pushed as the first pass found them.
-      let k = 0;
-      for (let i = 1; i < this.leadCount; i++) {
-        if (this.leadIndices[i] > this.peakIndex) break;
-        this.tv[k] = this.leadValues[i];
-        this.ti[k++] = this.leadIndices[i];
-      }
-      this.feed(k);
-    }
-    if (this.peakSnapshot !== null && this.tracker.matches(this.peakSnapshot)) {
-      this.reused = true;
-      this.stage = 'done';
-      return;
-    }
-    // The memory rules make both passes equal from the largest |value| on unless the initial
-    // value exceeds the history, which is handled by a full second pass.
-    throw new EngineError(
-      'session-state',
-      'pushSecondPass',
-      this.peakIndex,
-      `the two passes hold different memories at sample ${this.peakIndex}; assess this history with assessLife`,
-    );
+    const split = taken.largestRow - taken.firstRow;
+    if (taken.largestRow > this.currentFrom) {
+      // a new largest |value|: everything before it is the first pass's only
+      this.before!.merge(this.current!);
+      this.current = this.aggregate();
+      this.currentFrom = taken.largestRow;
+      const k = Math.min(n, Math.max(0, split));
+      this.before!.add(part(0, k), j.material, j.meanStress, j.walkerGamma);
+      this.current!.add(part(k, n), j.material, j.meanStress, j.walkerGamma);
+    } else this.current!.add(cols, j.material, j.meanStress, j.walkerGamma);
   }
 
   /** The report from the running totals (loops not kept). */
-  private aggregateReport(): LifeReport {
+  private aggregateReport(events: ReportEvent[]): LifeReport {
     const job = this.job;
-    const residue = (this.firstResidue as ReversalTable).columns();
+    // every loop was folded as it closed: the tracked result holds the passes' facts only
+    const result = trackedFrom(this.tracker, job.repeating, { eventStarts: [0], totalSamples: this.samples, gate: this.gate, removed: this.removed, largestKept: 0 });
     const stab = this.aggregate();
     const firstPass = this.aggregate();
     firstPass.merge(this.before!);
     firstPass.merge(this.current!);
     if (job.repeating) {
       stab.merge(this.second!);
-      if (this.reused) stab.merge(this.current!);
+      if (result.reusedFirstPass) stab.merge(this.current!);
     } else {
       // a one-off history: the first pass, and its open loops as half cycles
+      const residue = result.firstResidue.columns();
       const m = residue.index.length - 1;
       if (m > 0) {
         const half = {
@@ -407,13 +289,13 @@ export class LifeSession {
       stab.merge(firstPass);
     }
     const damage = stab.total();
-    const events = [{ name: 'history', history: { length: this.samples } as ArrayLike<number>, repeats: 1 }];
     const bins = Math.max(1, Math.ceil(this.samples / this.binSize));
     const timeline = new Float64Array(bins);
     timeline.set(stab.timeline.subarray(0, Math.min(bins, stab.timeline.length)));
     const worstLoops = stab.worst.map((w) => ({ ...w, share: damage > 0 ? w.damage / damage : 0 }));
+    const largest = Math.max(this.largestKept, Math.abs(job.initial));
     return {
-      ...reportFrame(job, events, this.gate, { perRepeat: damage, firstPass: firstPass.total(), reusedFirstPass: this.reused }),
+      ...reportHead(job, events, this.gate, { perRepeat: damage, firstPass: firstPass.total(), reusedFirstPass: result.reusedFirstPass }),
       loops: emptyColumns(0),
       worstLoops,
       timeline: { binSize: this.binSize, samples: this.samples, damage: timeline },
@@ -423,13 +305,13 @@ export class LifeSession {
         damage,
         gate: this.gate,
         removed: this.removed,
-        gateBound: this.removed > 0 ? gateBoundAt(job, Math.max(this.best, Math.abs(job.initial)), this.gate, this.removed) : 0,
+        gateBound: this.removed > 0 ? gateBoundAt(job, largest, this.gate, this.removed) : 0,
         cutoff:
           job.cutoffCycles === undefined
             ? null
             : { removedCount: stab.removedCount, removedDamage: stab.removedDamage, nearFactor: 2, nearCutoffShare: damage > 0 ? stab.nearDamage / damage : 0 },
-        beyondStrainLimit: this.beyond,
-        firstBeyondIndex: this.firstBeyond,
+        beyondStrainLimit: result.beyondStrainLimit,
+        firstBeyondIndex: result.firstBeyondIndex,
         firstReversal: stab.firstReversal,
       }),
     };

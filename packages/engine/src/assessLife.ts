@@ -1,5 +1,5 @@
-import { assessResolved, checkEvents } from './assessDutyCycle';
-import { resolveLifeJob, type LifeJob } from './LifeJob';
+import { assessDutyCycle } from './assessDutyCycle';
+import type { LifeJob } from './LifeJob';
 import type { LifeReport } from './LifeReport';
 
 /**
@@ -20,9 +20,8 @@ import type { LifeReport } from './LifeReport';
  * @example
  * const report = assessLife(history, { material, notch: { Kt: 2.2 }, unit: { label: 'km', perRepeat: 3.1 } });
  * report.life.repeats; // repeats of the history to crack initiation (mean estimate)
- * report.life.designLife; // km, with the scatter factor
+ * report.life.designService; // km, with the scatter factor
  */
 export function assessLife(history: ArrayLike<number>, job: LifeJob): LifeReport {
-  const resolved = resolveLifeJob(job);
-  return assessResolved(checkEvents([{ name: 'history', history, repeats: 1 }]), resolved);
+  return assessDutyCycle([{ name: 'history', history, repeats: 1 }], job);
 }

@@ -1,12 +1,14 @@
 import { damageParameters, type DamageParameterName } from '@loopwise/mean-stress';
 import type { LifeEstimate } from '@loopwise/miner';
-import { checkEvents, reportFrom, trackResolved, type DutyEvent } from './assessDutyCycle';
 import { resolveLifeJob, type LifeJob } from './LifeJob';
 import type { LifeReport } from './LifeReport';
+import { reportEvents, reportFromTracked } from './reportAssembly';
+import { checkEvents, type DutyEvent } from './schedule';
+import { trackDutyCycle } from './trackHistory';
 
 /** One mean-stress correction's result, side by side with the others. */
 export interface CorrectionResult {
-  correction: DamageParameterName;
+  meanStress: DamageParameterName;
   /** Damage per repeat (stabilised pass). */
   damagePerRepeat: number;
   /** Damage of the first pass. */
@@ -26,17 +28,19 @@ export interface CorrectionResult {
  *
  * @example
  * compareCorrections([{ name: 'history', history, repeats: 1 }], { material, notch: { Kt: 2 } })
- *   .map((r) => [r.correction, r.life.repeats]);
+ *   .map((r) => [r.meanStress, r.life.repeats]);
  */
 export function compareCorrections(events: DutyEvent[], job: LifeJob): CorrectionResult[] {
   const resolved = resolveLifeJob(job);
-  const tracked = trackResolved(checkEvents(events), resolved);
+  const tracked = trackDutyCycle(checkEvents(events), resolved);
+  const reported = reportEvents(events);
   const out: CorrectionResult[] = [];
   for (const correction of Object.keys(damageParameters) as DamageParameterName[]) {
     if (correction === 'walker' && resolved.walkerGamma === undefined && resolved.material.Su === undefined) continue;
-    const r: LifeReport = reportFrom(tracked, { ...resolved, meanStress: correction });
+    // the tracked history serves every correction: the report columns are copies
+    const r: LifeReport = reportFromTracked(tracked, reported, { ...resolved, meanStress: correction }, false);
     out.push({
-      correction,
+      meanStress: correction,
       damagePerRepeat: r.damage.perRepeat,
       firstPassDamage: r.damage.firstPass,
       life: r.life,

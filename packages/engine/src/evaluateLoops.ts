@@ -50,12 +50,7 @@ export function evaluateLoops(
   const cyclesToFailure = new Float64Array(n);
   const flags = new Uint8Array(n);
   const p = damageParameterFor(name, walkerGamma);
-  p.reversalsToFailureInto(
-    { sigmaMax: cols.stressMax, sigmaMin: cols.stressMin, epsilonMax: cols.strainMax, epsilonMin: cols.strainMin },
-    material,
-    reversalsToFailure,
-    flags,
-  );
+  p.reversalsToFailureInto(material, cols, reversalsToFailure, flags);
   const gamma = name === 'walker' ? walkerGammaOf(material, walkerGamma) : 0;
   for (let i = 0; i < n; i++) {
     cyclesToFailure[i] = reversalsToFailure[i] / 2;

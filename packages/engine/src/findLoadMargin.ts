@@ -1,6 +1,8 @@
-import { checkEvents, reportFrom, trackResolved, type DutyEvent } from './assessDutyCycle';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
+import { reportEvents, reportFromTracked } from './reportAssembly';
+import { checkEvents, type DutyEvent } from './schedule';
+import { trackDutyCycle } from './trackHistory';
 
 /** Options of {@link findLoadMargin}. */
 export interface MarginOptions {
@@ -101,5 +103,5 @@ function repeatsAt(events: DutyEvent[], job: ResolvedJob, f: number): number {
     fullScale: job.fullScale === undefined ? undefined : job.fullScale * f,
     worstLoopCount: 0,
   };
-  return reportFrom(trackResolved(scaled, j), j).life.repeats;
+  return reportFromTracked(trackDutyCycle(scaled, j), reportEvents(scaled), j).life.repeats;
 }

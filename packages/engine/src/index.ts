@@ -1,5 +1,5 @@
 export { EngineError, type EngineErrorCode } from './EngineError';
-export { resolveLifeJob, type LifeJob, type ResolvedJob, type ServicePerRepeat } from './LifeJob';
+export { resolveLifeJob, type JobServiceUnit, type LifeJob, type ResolvedJob } from './LifeJob';
 export type { EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
 export { ASSUMPTIONS, CAUTION } from './assumptions';
 export { assessLife } from './assessLife';

@@ -13,7 +13,7 @@ function streamed(history: number[], cuts: number[], job: Parameters<typeof asse
     s.push(history.slice(at, c));
     at = c;
   }
-  let left = s.secondPassSamples;
+  let left = s.endFirstPass();
   // the second pass re-reads the history in other chunks (a file read again)
   for (let i = 0; left > 0; i += 3) {
     const part = history.slice(i, i + 3);
@@ -52,7 +52,7 @@ describe('LifeSession', () => {
     const history = [0, 100, -50, 300, -120, 80, -60, 40];
     const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } });
     s.push(history);
-    expect(s.secondPassSamples).toBe(4); // samples 0 … 3; 300 is the largest |value|
+    expect(s.endFirstPass()).toBe(4); // samples 0 … 3; 300 is the largest |value|
     s.pushSecondPass(history);
     expect(s.finish().damage.reusedFirstPass).toBe(true);
   });
@@ -62,7 +62,7 @@ describe('LifeSession', () => {
     const job = { material: sae1045, notch: { Kt: 2 }, initial: 150 };
     const s = new LifeSession(job);
     s.push(history);
-    expect(s.secondPassSamples).toBe(history.length);
+    expect(s.endFirstPass()).toBe(history.length);
     s.pushSecondPass(history);
     expect(plain(s.finish())).toBe(plain(assessLife(history, job)));
     // the initial value is after the offset, as the samples are: |-170| exceeds 100 + 60, the
@@ -70,7 +70,7 @@ describe('LifeSession', () => {
     const shifted = { ...job, initial: -170, offset: 60 };
     const t = new LifeSession(shifted);
     t.push(history);
-    expect(t.secondPassSamples).toBe(history.length);
+    expect(t.endFirstPass()).toBe(history.length);
     t.pushSecondPass(history);
     expect(plain(t.finish())).toBe(plain(assessLife(history, shifted)));
   });
@@ -82,7 +82,7 @@ describe('LifeSession', () => {
     const job = { material: sae1045, notch: { Kt: 2 } };
     const s = new LifeSession(job);
     s.push(history);
-    expect(s.secondPassSamples).toBe(history.length);
+    expect(s.endFirstPass()).toBe(history.length);
     s.pushSecondPass(history);
     expect(plain(s.finish())).toBe(plain(assessLife(history, job)));
   });
@@ -95,7 +95,7 @@ describe('LifeSession', () => {
     expect(plain(streamed(history, [], job))).toBe(plain(assessLife(history, job)));
     const s = new LifeSession(job);
     s.push(history);
-    expect(s.secondPassSamples).toBe(3);
+    expect(s.endFirstPass()).toBe(3);
   });
 
   test('misuse and bad input get clear errors', () => {
@@ -103,7 +103,7 @@ describe('LifeSession', () => {
     expect(() => new LifeSession({ ...job, gateFraction: 0.1 })).toThrow(/fullScale/);
     const s = new LifeSession(job);
     s.push([0, 200, -100]);
-    void s.secondPassSamples;
+    void s.endFirstPass();
     expect(() => s.push([1])).toThrow(EngineError);
     expect(() => s.finish()).toThrow(/samples 0 to 1 again/);
     expect(() => new LifeSession(job).push([0, NaN])).toThrow(/sample 1/);
@@ -125,7 +125,7 @@ describe('LifeSession({ keepLoops: false })', () => {
           const batch = assessLife(history, job);
           const s = new LifeSession(job, { keepLoops: false, timelineBinSize: 7 });
           s.push(history);
-          if (s.secondPassSamples > 0) s.pushSecondPass(history);
+          if (s.endFirstPass() > 0) s.pushSecondPass(history);
           const r = s.finish();
           const close = (a: number, b: number) => Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b));
           expect(close(r.damage.perRepeat, batch.damage.perRepeat)).toBe(true);

@@ -38,7 +38,7 @@ describe('assessLife(history, job)', () => {
       1e30,
     );
     const r = assessLife([S, -S], { material: m, notch: { Kt } });
-    expect(r.damage.correction).toBe('smithWatsonTopper');
+    expect(r.damage.meanStress).toBe('smithWatsonTopper');
     expect(rel(r.damage.perRepeat, 2 / reversals)).toBeLessThan(1e-8);
   });
 
@@ -77,6 +77,16 @@ describe('assessLife(history, job)', () => {
   test("damage never falls as the load scale grows, for the 'none' correction and for an elastic material", () => {
     const elastic = { ...sae1045, K: 1e12, n: 0.2, warnings: undefined, name: 'elastic SAE 1045 (K′ made huge for the test)' };
     delete (elastic as { warnings?: unknown }).warnings;
+    // Solve error may put two damages out of order by a little: each life is solved to 1e-10
+    // relative (docs/material.md, "Solving for reversals") from a local stress solved to the job's
+    // tolerance, 1e-12 relative by default (packages/engine/README.md). That stress error moves ε
+    // by at most 1/n' times as much, σmax·εa by (1 + 1/n') times, and a life by at most
+    // 1/min(|b|, |c|) times the relative error of its damage parameter.
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const NOTCH_SOLVE_TOLERANCE = 1e-12;
+    const n = Math.min(sae1045.n, elastic.n);
+    const lifeError = LIFE_SOLVE_TOLERANCE + (NOTCH_SOLVE_TOLERANCE * (1 + 1 / n)) / Math.min(-sae1045.b, -sae1045.c);
+    const slack = (1 - lifeError) / (1 + lifeError);
     checkProperty(
       'monotone in scale',
       fc.property(
@@ -89,7 +99,7 @@ describe('assessLife(history, job)', () => {
           ]) {
             const d1 = assessLife(block, job).damage.perRepeat;
             const d2 = assessLife(block.map((x) => x * f), job).damage.perRepeat;
-            expect(d2).toBeGreaterThanOrEqual(d1 * (1 - 1e-9));
+            expect(d2).toBeGreaterThanOrEqual(d1 * slack);
           }
         },
       ),

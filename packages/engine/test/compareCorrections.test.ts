@@ -8,9 +8,9 @@ describe('compareCorrections(events, job)', () => {
     const history = [0, 320, -150, 280, -60, 300, 20];
     const job = { material: sae1045, notch: { Kt: 2 } };
     const all = compareCorrections([{ name: 'h', history, repeats: 1 }], job);
-    expect(all.map((r) => r.correction)).toEqual(['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker']);
+    expect(all.map((r) => r.meanStress)).toEqual(['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker']);
     for (const r of all) {
-      const single = assessLife(history, { ...job, meanStress: r.correction });
+      const single = assessLife(history, { ...job, meanStress: r.meanStress });
       expect(r.damagePerRepeat).toBe(single.damage.perRepeat);
     }
   });
@@ -21,7 +21,7 @@ describe('compareCorrections(events, job)', () => {
     const { K, n } = compatibleCyclicCurve(sae1045);
     const m = defineMaterial({ E: sae1045.E, sigmaF: sae1045.sigmaF, b: sae1045.b, epsilonF: sae1045.epsilonF, c: sae1045.c, K, n, Su: sae1045.Su, name: 'SAE 1045 with a compatible cyclic curve' });
     const all = compareCorrections([{ name: 'fully reversed', history: [250, -250], repeats: 1 }], { material: m, notch: { Kt: 2 } });
-    const none = all.find((r) => r.correction === 'none')!.damagePerRepeat;
+    const none = all.find((r) => r.meanStress === 'none')!.damagePerRepeat;
     for (const r of all) expect(Math.abs(r.damagePerRepeat - none) / none).toBeLessThan(1e-8);
   });
 });

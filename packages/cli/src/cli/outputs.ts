@@ -22,7 +22,7 @@ export interface ResultRow {
 export function resultRows(results: ChannelResult[]): ResultRow[] {
   const rows: ResultRow[] = [];
   for (const r of results) {
-    const list = r.corrections ?? [{ correction: r.report.damage.correction, damagePerRepeat: r.report.damage.perRepeat, life: r.report.life }];
+    const list = r.corrections ?? [{ correction: r.report.damage.meanStress, damagePerRepeat: r.report.damage.perRepeat, life: r.report.life }];
     for (const c of list) {
       rows.push({
         channel: r.name,
@@ -132,7 +132,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
   for (const r of results) {
     const rep: LifeReport = r.report;
     const life = rep.life;
-    out.push(`channel ${r.name} (${r.unit}), correction ${rep.damage.correction}`);
+    out.push(`channel ${r.name} (${r.unit}), correction ${rep.damage.meanStress}`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
     out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.life as number)} ${life.unit}` : ''}`);
     if (life.scatterFactor > 1) {

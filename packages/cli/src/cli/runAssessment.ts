@@ -87,7 +87,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       progress?.(chunk.firstSample + chunk.length, 1);
     },
   });
-  const need = Math.max(...sessions.map((s) => s.secondPassSamples));
+  const need = Math.max(...sessions.map((s) => s.endFirstPass()));
   if (need > 0) {
     // the stabilised pass needs the samples up to the largest |value| once more: read them again
     await readDelimitedParallel(file, {

@@ -12,7 +12,7 @@ export function resultsTable(channels: HtmlChannel[]): string {
     ['channel', 'mean-stress correction', 'damage per repeat', 'life (repeats)', 'life (service unit)', 'design life'],
     channels.map((c) => {
       const r = c.report;
-      return [c.name, correctionName(r.damage.correction), num(formatNumber(r.damage.perRepeat)), num(repeatsText(r.life)), num(unitLifeText(r.life)), num(designLifeText(r.life))];
+      return [c.name, correctionName(r.damage.meanStress), num(formatNumber(r.damage.perRepeat)), num(repeatsText(r.life)), num(unitLifeText(r.life)), num(designLifeText(r.life))];
     }),
   );
 }

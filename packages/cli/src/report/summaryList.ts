@@ -16,7 +16,7 @@ export function summaryList(report: LifeReport): string {
     ['design life', designLifeText(report.life)],
     ['critical damage sum', formatNumber(report.life.criticalDamage)],
     ['damage of the first pass', formatNumber(report.damage.firstPass)],
-    ['mean-stress correction', correctionName(report.damage.correction)],
+    ['mean-stress correction', correctionName(report.damage.meanStress)],
     ['loops per repeat', `${formatNumber(cycles)} cycles in ${loops.length} rows`],
     ['gate', `range ${formatNumber(report.gate.range)} (assessed history units), ${formatNumber(report.gate.removedReversals)} reversals removed`],
   ]);
