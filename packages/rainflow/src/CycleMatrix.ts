@@ -1,7 +1,7 @@
-import { binEdges, binOf, type BinSpec } from './binEdges';
+import { binIndex, decodeArray, describeValue, decodeNumber, encodeArray, encodeNumber, type EncodedNumber } from '@loopwise/base';
+import { binEdges, type BinSpec } from './binEdges';
 import type { CycleSink } from './CycleSink';
-import { BinError } from './errors';
-import { decodeArray, decodeNumber, encodeArray, encodeNumber, type EncodedNumber } from './numberCodec';
+import { BinError, InvalidOptionError } from './errors';
 
 /** What a matrix does with a cycle outside its bins: tally it (default) or throw. */
 export type OutsidePolicy = 'tally' | 'error';
@@ -33,15 +33,27 @@ export interface CycleMatrixJSON {
   outside: { count: EncodedNumber; rowMin: EncodedNumber; rowMax: EncodedNumber; columnMin: EncodedNumber; columnMax: EncodedNumber };
 }
 
-/** Thrown by a matrix with `outside: 'error'` when a cycle falls outside its bins. */
+/**
+ * Thrown by a matrix with `outside: 'error'` when a cycle falls outside its bins: a
+ * {@link BinError} with code `'outside-bins'`, `field` the coordinate outside (`'range'`,
+ * `'mean'`, `'from'` or `'to'`; the row's when both are), `value` its value, and `index` the
+ * sample index of the cycle's first reversal. `row` and `column` are both coordinates.
+ */
 export class OutsideBinsError extends BinError {
-  constructor(
-    readonly row: number,
-    readonly column: number,
-    readonly startIndex: number,
-  ) {
-    super('bins', `the cycle starting at sample ${startIndex} (${row}, ${column}) is outside the bins`);
+  declare readonly index: number;
+  /** The cycle's row coordinate (range, or from). */
+  readonly row: number;
+  /** The cycle's column coordinate (mean, or to). */
+  readonly column: number;
+  /** Sample index of the cycle's first reversal; the same as `index`. */
+  readonly startIndex: number;
+
+  constructor(field: string, value: number, row: number, column: number, startIndex: number) {
+    super(field, value, `${describeValue(value)} of the cycle starting at sample ${startIndex} is outside the bins (row ${describeValue(row)}, column ${describeValue(column)})`, startIndex, 'outside-bins');
     this.name = 'OutsideBinsError';
+    this.row = row;
+    this.column = column;
+    this.startIndex = startIndex;
   }
 }
 
@@ -57,13 +69,15 @@ export abstract class CycleMatrix implements CycleSink {
   /** Row-major counts, rows × columns. */
   readonly counts: Float64Array;
   readonly outsidePolicy: OutsidePolicy;
+  private readonly names: readonly [string, string];
   protected tally: OutsideTally = { count: 0, rowMin: Infinity, rowMax: -Infinity, columnMin: Infinity, columnMax: -Infinity };
 
   protected constructor(rows: BinSpec | Float64Array, columns: BinSpec | Float64Array, outside: OutsidePolicy, names: [string, string]) {
     this.rowEdges = rows instanceof Float64Array ? rows : binEdges(rows, names[0]);
     this.columnEdges = columns instanceof Float64Array ? columns : binEdges(columns, names[1]);
-    if (outside !== 'tally' && outside !== 'error') throw new BinError('outside', `must be 'tally' or 'error', got ${String(outside)}`);
+    if (outside !== 'tally' && outside !== 'error') throw new InvalidOptionError('outside', outside, "must be 'tally' or 'error'");
     this.outsidePolicy = outside;
+    this.names = names;
     this.counts = new Float64Array((this.rowEdges.length - 1) * (this.columnEdges.length - 1));
   }
 
@@ -107,10 +121,12 @@ export abstract class CycleMatrix implements CycleSink {
   addCycle(from: number, to: number, count: number, startIndex: number, _endIndex = startIndex, _closeIndex = _endIndex): void {
     const r = this.rowValue(from, to);
     const c = this.columnValue(from, to);
-    const i = binOf(this.rowEdges, r);
-    const j = binOf(this.columnEdges, c);
+    const i = binIndex(this.rowEdges, r);
+    const j = binIndex(this.columnEdges, c);
     if (i < 0 || j < 0) {
-      if (this.outsidePolicy === 'error') throw new OutsideBinsError(r, c, startIndex);
+      if (this.outsidePolicy === 'error') {
+        throw i < 0 ? new OutsideBinsError(this.names[0], r, r, c, startIndex) : new OutsideBinsError(this.names[1], c, r, c, startIndex);
+      }
       const t = this.tally;
       t.count += count;
       if (r < t.rowMin) t.rowMin = r;
@@ -124,7 +140,7 @@ export abstract class CycleMatrix implements CycleSink {
 
   /** Adds another matrix of the same kind and identical bins (two recordings into one). */
   add(other: CycleMatrix): this {
-    if (other.kind !== this.kind) throw new BinError('kind', `cannot add a ${other.kind} matrix to a ${this.kind} matrix`);
+    if (other.kind !== this.kind) throw new BinError('kind', other.kind, `cannot add a ${other.kind} matrix to a ${this.kind} matrix`);
     sameEdges(this.rowEdges, other.rowEdges, 'rowEdges');
     sameEdges(this.columnEdges, other.columnEdges, 'columnEdges');
     for (let i = 0; i < this.counts.length; i++) this.counts[i] += other.counts[i];
@@ -140,7 +156,7 @@ export abstract class CycleMatrix implements CycleSink {
 
   /** Multiplies every count (inside and outside) by `factor`, e.g. a number of repeats. */
   scale(factor: number): this {
-    if (!(factor >= 0) || factor === Infinity) throw new BinError('factor', `must be a finite number >= 0, got ${factor}`);
+    if (!(factor >= 0) || factor === Infinity) throw new InvalidOptionError('factor', factor, 'must be a finite number >= 0');
     for (let i = 0; i < this.counts.length; i++) this.counts[i] *= factor;
     this.tally.count *= factor;
     return this;
@@ -169,7 +185,7 @@ export abstract class CycleMatrix implements CycleSink {
   protected load(json: CycleMatrixJSON): this {
     const counts = decodeArray(json.counts, 'counts');
     if (counts.length !== this.counts.length) {
-      throw new BinError('counts', `expected ${this.counts.length} counts for ${this.rows} × ${this.columns} bins, got ${counts.length}`);
+      throw new BinError('counts', counts.length, `expected ${this.counts.length} counts for ${this.rows} × ${this.columns} bins, got ${counts.length}`);
     }
     this.counts.set(counts);
     const o = json.outside;
@@ -187,10 +203,10 @@ export abstract class CycleMatrix implements CycleSink {
 /** Checks the envelope of a matrix JSON and returns its decoded edges. */
 export function readMatrixJSON(json: CycleMatrixJSON, kind: CycleMatrixKind): [Float64Array, Float64Array] {
   if (json === null || typeof json !== 'object' || json.format !== 'loopwise-cycle-matrix') {
-    throw new BinError('format', 'not a loopwise-cycle-matrix object');
+    throw new BinError('format', json?.format, 'not a loopwise-cycle-matrix object');
   }
-  if (json.version !== 1) throw new BinError('version', `unsupported matrix version ${String(json.version)}`);
-  if (json.kind !== kind) throw new BinError('kind', `expected a ${kind} matrix, got ${String(json.kind)}`);
+  if (json.version !== 1) throw new BinError('version', json.version, `unsupported matrix version ${String(json.version)}`);
+  if (json.kind !== kind) throw new BinError('kind', json.kind, `expected a ${kind} matrix, got ${String(json.kind)}`);
   const rows = binEdges({ edges: decodeArray(json.rowEdges, 'rowEdges') }, 'rowEdges');
   const columns = binEdges({ edges: decodeArray(json.columnEdges, 'columnEdges') }, 'columnEdges');
   return [rows, columns];
@@ -198,6 +214,6 @@ export function readMatrixJSON(json: CycleMatrixJSON, kind: CycleMatrixKind): [F
 
 function sameEdges(a: Float64Array, b: Float64Array, field: string): void {
   if (a.length !== b.length || a.some((v, i) => !Object.is(v, b[i]))) {
-    throw new BinError(field, 'matrices with different bins cannot be added: rebin one first');
+    throw new BinError(field, b, 'matrices with different bins cannot be added: rebin one first');
   }
 }

@@ -1,6 +1,6 @@
+import { decodeArray, encodeArray, grownCapacity, widenColumn, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
 import { CounterStateError, RangeOverflowError } from './errors';
-import { decodeArray, encodeArray, type EncodedNumber } from './numberCodec';
 
 /** The columns of a {@link CycleTable}, each trimmed to `length`. */
 export interface CycleColumns {
@@ -78,8 +78,8 @@ export class CycleTable implements CycleSink {
 
   addCycle(from: number, to: number, count: number, startIndex: number, endIndex: number, closeIndex: number): void {
     const range = to > from ? to - from : from - to;
-    if (range === Infinity) throw new RangeOverflowError(startIndex, endIndex);
-    if (this.n === this.capacity) this.grow();
+    if (range === Infinity) throw new RangeOverflowError(startIndex, endIndex, from, to);
+    if (this.n === this.capacity) this.grow(this.n + 1);
     const i = this.n++;
     const sum = from + to;
     this.cRange[i] = range;
@@ -99,7 +99,7 @@ export class CycleTable implements CycleSink {
 
   /** Copies row `i` of `other` to the end of this table. */
   copyRow(other: CycleTable, i: number): void {
-    if (this.n === this.capacity) this.grow();
+    if (this.n === this.capacity) this.grow(this.n + 1);
     const j = this.n++;
     this.cRange[j] = other.cRange[i];
     this.cMean[j] = other.cMean[i];
@@ -166,7 +166,7 @@ export class CycleTable implements CycleSink {
   }
 
   static fromJSON(state: CycleTableState): CycleTable {
-    if (state === null || typeof state !== 'object') throw new CounterStateError('cycle table state must be an object');
+    if (state === null || typeof state !== 'object') throw new CounterStateError('cycles', state, 'cycle table state must be an object');
     const from = decodeArray(state.from, 'cycles.from');
     const to = decodeArray(state.to, 'cycles.to');
     const count = decodeArray(state.count, 'cycles.count');
@@ -174,29 +174,29 @@ export class CycleTable implements CycleSink {
     const e = decodeArray(state.endIndex, 'cycles.endIndex');
     const k = decodeArray(state.closeIndex, 'cycles.closeIndex');
     const n = from.length;
-    if ([to, count, s, e, k].some((a) => a.length !== n)) {
-      throw new CounterStateError('cycle table state has columns of different lengths');
+    const others = { to, count, startIndex: s, endIndex: e, closeIndex: k };
+    for (const [name, column] of Object.entries(others)) {
+      if (column.length !== n) {
+        throw new CounterStateError(`cycles.${name}`, column.length, `cycle table state has columns of different lengths: cycles.from has ${n}, cycles.${name} ${column.length}`);
+      }
     }
     const t = new CycleTable(n);
     for (let i = 0; i < n; i++) t.addCycle(from[i], to[i], count[i], s[i], e[i], k[i]);
     return t;
   }
 
-  private grow(): void {
-    const cap = this.capacity * 2;
-    const widen = (a: Float64Array) => {
-      const b = new Float64Array(cap);
-      b.set(a);
-      return b;
-    };
-    this.cRange = widen(this.cRange);
-    this.cMean = widen(this.cMean);
-    this.cFrom = widen(this.cFrom);
-    this.cTo = widen(this.cTo);
-    this.cCount = widen(this.cCount);
-    this.cStart = widen(this.cStart);
-    this.cEnd = widen(this.cEnd);
-    this.cClose = widen(this.cClose);
+  /** Moves the rows to columns with room for at least `needed` rows (doubling). */
+  private grow(needed: number): void {
+    const cap = grownCapacity(this.capacity, needed);
+    const n = this.n;
+    this.cRange = widenColumn(this.cRange, n, cap);
+    this.cMean = widenColumn(this.cMean, n, cap);
+    this.cFrom = widenColumn(this.cFrom, n, cap);
+    this.cTo = widenColumn(this.cTo, n, cap);
+    this.cCount = widenColumn(this.cCount, n, cap);
+    this.cStart = widenColumn(this.cStart, n, cap);
+    this.cEnd = widenColumn(this.cEnd, n, cap);
+    this.cClose = widenColumn(this.cClose, n, cap);
     this.capacity = cap;
   }
 }

@@ -1,7 +1,7 @@
+import { decodeArray, encodeArray, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
 import { CycleTable, type CycleTableState } from './CycleTable';
 import { CounterStateError, InvalidOptionError } from './errors';
-import { decodeArray, encodeArray, type EncodedNumber } from './numberCodec';
 import { closeRepeatingResidue } from './closeRepeatingResidue';
 import { ReversalFilter, type ReversalFilterState } from './ReversalFilter';
 
@@ -207,10 +207,12 @@ export class RainflowCounter {
     this.assertOpen();
     later.assertOpen();
     if (later.filter.gate !== this.filter.gate) {
-      throw new CounterStateError(`cannot append a segment counted with gate ${later.filter.gate} to one with gate ${this.filter.gate}`);
+      throw new CounterStateError('gate', later.filter.gate, `cannot append a segment counted with gate ${later.filter.gate} to one with gate ${this.filter.gate}`);
     }
     if (later.startIndex !== this.filter.nextIndex) {
       throw new CounterStateError(
+        'startIndex',
+        later.startIndex,
         `the appended segment starts at sample ${later.startIndex}, but this one ends before sample ${this.filter.nextIndex}`,
       );
     }
@@ -257,11 +259,11 @@ export class RainflowCounter {
    */
   static fromJSON(state: RainflowCounterState, options: { sink?: CycleSink } = {}): RainflowCounter {
     if (state === null || typeof state !== 'object' || state.format !== 'loopwise-rainflow-state') {
-      throw new CounterStateError('not a loopwise-rainflow-state object');
+      throw new CounterStateError('format', state?.format, 'not a loopwise-rainflow-state object');
     }
-    if (state.version !== 1) throw new CounterStateError(`unsupported rainflow state version ${String(state.version)}`);
+    if (state.version !== 1) throw new CounterStateError('version', state.version, `unsupported rainflow state version ${String(state.version)}`);
     if (state.cycles === null && !options.sink) {
-      throw new CounterStateError('this state counted into a caller sink: pass options.sink to resume it');
+      throw new CounterStateError('options.sink', options.sink, 'this state counted into a caller sink: pass options.sink to resume it');
     }
     const c = new RainflowCounter({
       residue: state.residue,
@@ -272,7 +274,9 @@ export class RainflowCounter {
     if (state.cycles !== null && c.table) c.table.appendTable(CycleTable.fromJSON(state.cycles));
     const v = decodeArray(state.stackValues, 'stackValues');
     const i = decodeArray(state.stackIndices, 'stackIndices');
-    if (v.length !== i.length) throw new CounterStateError('stackValues and stackIndices differ in length');
+    if (v.length !== i.length) {
+      throw new CounterStateError('stackIndices', i.length, `stackValues and stackIndices differ in length (${v.length} and ${i.length})`);
+    }
     c.reserve(v.length);
     c.sv.set(v);
     c.si.set(i);
@@ -354,7 +358,9 @@ export class RainflowCounter {
   }
 
   private assertOpen(): void {
-    if (this.finished) throw new CounterStateError('this counter has finished (or was appended to another); start a new one');
+    if (this.finished) {
+      throw new CounterStateError('counter', 'finished', 'this counter has finished (or was appended to another); start a new one');
+    }
   }
 }
 

@@ -1,5 +1,5 @@
-import { InvalidOptionError, NonFiniteSampleError, CounterStateError } from './errors';
-import { decodeNumber, encodeNumber, type EncodedNumber } from './numberCodec';
+import { decodeNumber, encodeNumber, type EncodedNumber } from '@loopwise/base';
+import { CounterStateError, InvalidOptionError, NonFiniteSampleError } from './errors';
 
 /** Options of {@link ReversalFilter}. */
 export interface ReversalFilterOptions {
@@ -350,7 +350,7 @@ export class ReversalFilter {
 
   private absorbRawCounts(later: ReversalFilter): void {
     if (!later.started) return;
-    if (!this.started) throw new CounterStateError('cannot absorb into a filter that has no samples');
+    if (!this.started) throw new CounterStateError('filter', 'empty', 'cannot absorb into a filter that has no samples');
     const dj = later.firstValue > this.rawLast ? 1 : later.firstValue < this.rawLast ? -1 : 0;
     let last = this.rawLastDir;
     let changes = this.rawChanges + later.rawChanges;
@@ -392,7 +392,7 @@ export class ReversalFilter {
   /** Rebuilds a filter from {@link toJSON} output. */
   static fromJSON(state: ReversalFilterState): ReversalFilter {
     if (state === null || typeof state !== 'object') {
-      throw new CounterStateError('filter state must be an object');
+      throw new CounterStateError('filter', state, 'filter state must be an object');
     }
     const f = new ReversalFilter({ gate: decodeNumber(state.gate, 'filter.gate'), keepLeadingExtremes: state.keepLeadingExtremes === true });
     f.next = state.next;

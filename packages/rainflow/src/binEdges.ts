@@ -4,52 +4,41 @@ import { BinError } from './errors';
 export type BinSpec = { edges: ArrayLike<number> } | { count: number; min: number; max: number };
 
 /**
- * Resolves a bin specification to its edges. Bin i holds values v with edges[i] <= v <
- * edges[i + 1]; the last bin also holds its upper edge. Values below the first edge or above the
- * last are outside (the matrices tally them, or throw, as chosen; nothing is dropped silently).
+ * Resolves a bin specification to its edges (a new array). Bin i holds values v with edges[i]
+ * <= v < edges[i + 1]; the last bin also holds its upper edge. Values below the first edge or
+ * above the last are outside (the matrices tally them, or throw, as chosen; nothing is dropped
+ * silently). The bin of a value is `binIndex(edges, v)` of `@loopwise/base`.
+ *
+ * A bad specification throws {@link BinError} (code `'invalid-bins'`) with `field` = `field`,
+ * the bad value and, for an edge, its index.
  *
  * @example
  * binEdges({ count: 4, min: 0, max: 100 }, 'range'); // returns Float64Array [0, 25, 50, 75, 100]
  */
 export function binEdges(spec: BinSpec, field: string): Float64Array {
-  if (spec === null || typeof spec !== 'object') throw new BinError(field, 'bins must be { edges } or { count, min, max }');
+  if (spec === null || typeof spec !== 'object') throw new BinError(field, spec, 'bins must be { edges } or { count, min, max }');
   if ('edges' in spec) {
     const e = Float64Array.from(spec.edges);
-    if (e.length < 2) throw new BinError(field, `needs at least two edges, got ${e.length}`);
+    if (e.length < 2) throw new BinError(field, spec.edges, `needs at least two edges, got ${e.length}`);
     for (let i = 0; i < e.length; i++) {
-      if (!Number.isFinite(e[i])) throw new BinError(field, `edge ${i} is ${e[i]}: edges must be finite`);
+      if (!Number.isFinite(e[i])) throw new BinError(field, e[i], `edge ${i} is ${e[i]}: edges must be finite`, i);
       if (i > 0 && !(e[i] > e[i - 1])) {
-        throw new BinError(field, `edges must increase strictly: edge ${i} (${e[i]}) is not above edge ${i - 1} (${e[i - 1]})`);
+        throw new BinError(field, e[i], `edges must increase strictly: edge ${i} (${e[i]}) is not above edge ${i - 1} (${e[i - 1]})`, i);
       }
     }
     return e;
   }
   const { count, min, max } = spec;
-  if (!Number.isInteger(count) || count < 1) throw new BinError(field, `count must be an integer >= 1, got ${count}`);
+  if (!Number.isInteger(count) || count < 1) throw new BinError(field, count, `count must be an integer >= 1, got ${count}`);
   if (!Number.isFinite(min) || !Number.isFinite(max) || !(max > min)) {
-    throw new BinError(field, `needs finite min < max, got min ${min}, max ${max}`);
+    throw new BinError(field, spec, `needs finite min < max, got min ${min}, max ${max}`);
   }
   const e = new Float64Array(count + 1);
   const w = (max - min) / count;
   for (let i = 0; i <= count; i++) e[i] = min + i * w;
   e[count] = max;
   for (let i = 1; i <= count; i++) {
-    if (!(e[i] > e[i - 1])) throw new BinError(field, `bins of width ${w} are too narrow to represent at ${e[i]}`);
+    if (!(e[i] > e[i - 1])) throw new BinError(field, spec, `bins of width ${w} are too narrow to represent at ${e[i]}`, i);
   }
   return e;
-}
-
-/** Bin of v among `edges` (see {@link binEdges}), or -1 when v is outside. O(log bins). */
-export function binOf(edges: Float64Array, v: number): number {
-  const last = edges.length - 1;
-  if (!(v >= edges[0] && v <= edges[last])) return -1;
-  if (v === edges[last]) return last - 1;
-  let lo = 0;
-  let hi = last;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >>> 1;
-    if (edges[mid] <= v) lo = mid;
-    else hi = mid;
-  }
-  return lo;
 }

@@ -1,74 +1,90 @@
+import { describeValue, LoopwiseError } from '@loopwise/base';
+
 /**
- * Error classes of @loopwise/rainflow. Each has a stable `code` for programs and names the place
- * of the problem (a sample index, an option field) for people.
+ * Error classes of @loopwise/rainflow. Each is a {@link LoopwiseError} of `@loopwise/base`: a
+ * stable kebab-case `code` for programs, and for people the `field` at fault, the `value` it
+ * had and, where there is one, the sample `index`.
  */
 
-/** A sample is NaN or ±Infinity. `index` is the sample's index in the whole history. */
-export class NonFiniteSampleError extends Error {
-  readonly code = 'LW_NON_FINITE_SAMPLE';
-  constructor(
-    readonly index: number,
-    readonly value: number,
-  ) {
-    super(`sample ${index} is ${String(value)}: histories must hold finite numbers only`);
+/**
+ * A sample is NaN or ±Infinity. Code `'non-finite-sample'`, field `'history'`, `value` the
+ * sample, `index` its index in the whole history (counted from the count's `startIndex`).
+ */
+export class NonFiniteSampleError extends LoopwiseError {
+  declare readonly index: number;
+
+  constructor(index: number, value: number) {
+    super('non-finite-sample', 'history', value, `sample ${index} is ${String(value)}: histories must hold finite numbers only`, index);
     this.name = 'NonFiniteSampleError';
   }
 }
 
-/** An option has a value outside its documented domain. `field` names the option. */
-export class InvalidOptionError extends Error {
-  readonly code = 'LW_INVALID_OPTION';
-  constructor(
-    readonly field: string,
-    readonly value: unknown,
-    rule: string,
-  ) {
-    super(`option ${field} = ${describe(value)} is invalid: ${rule}`);
+/** An option has a value outside its documented domain. Code `'invalid-option'`; `field` names the option. */
+export class InvalidOptionError extends LoopwiseError {
+  constructor(field: string, value: unknown, rule: string) {
+    super('invalid-option', field, value, `option ${field} = ${describeValue(value)} is invalid: ${rule}`);
     this.name = 'InvalidOptionError';
   }
 }
 
-/** A cycle's range is not a finite number (|values| near the largest double). */
-export class RangeOverflowError extends Error {
-  readonly code = 'LW_RANGE_OVERFLOW';
-  constructor(
-    readonly startIndex: number,
-    readonly endIndex: number,
-  ) {
+/**
+ * A cycle's range is not a finite number (|values| near the largest double). Code
+ * `'range-overflow'`, field `'history'`, `index` and `startIndex` the sample index of the cycle's
+ * first reversal and `value` the sample there; `turnIndex` the sample index of its second.
+ */
+export class RangeOverflowError extends LoopwiseError {
+  declare readonly index: number;
+  /** Sample index of the cycle's first reversal (`from`); the same as `index`. */
+  readonly startIndex: number;
+  /** Sample index of the cycle's second reversal (`to`). */
+  readonly turnIndex: number;
+
+  constructor(startIndex: number, turnIndex: number, from: number, to: number) {
     super(
-      `the range between samples ${startIndex} and ${endIndex} overflows a double: rescale the history (|values| must stay below about 8e307)`,
+      'range-overflow',
+      'history',
+      from,
+      `the range from ${describeValue(from)} (sample ${startIndex}) to ${describeValue(to)} (sample ${turnIndex}) overflows a double: rescale the history (|values| must stay below about 8e307)`,
+      startIndex,
     );
     this.name = 'RangeOverflowError';
+    this.startIndex = startIndex;
+    this.turnIndex = turnIndex;
   }
 }
 
-/** A counter is used in a way its state does not allow (push after finish, bad merge, bad JSON). */
-export class CounterStateError extends Error {
-  readonly code = 'LW_COUNTER_STATE';
-  constructor(message: string) {
-    super(message);
+/**
+ * A counter is used in a way its state does not allow (push after finish, a bad append, a saved
+ * state that is not one). Code `'counter-state'`; `field` names what is wrong (`'counter'` for a
+ * finished counter, `'startIndex'` or `'gate'` for an append, the field of a saved state).
+ */
+export class CounterStateError extends LoopwiseError {
+  constructor(field: string, value: unknown, message: string) {
+    super('counter-state', field, value, message);
     this.name = 'CounterStateError';
   }
 }
 
-/** Matrices or bins that cannot be combined, or a bin layout that is not valid. */
-export class BinError extends Error {
-  readonly code = 'LW_BINS';
-  constructor(
-    readonly field: string,
-    message: string,
-  ) {
-    super(`${field}: ${message}`);
-    this.name = 'BinError';
-  }
-}
+/** Codes of {@link BinError}. */
+export type BinErrorCode = 'invalid-bins' | 'outside-bins';
 
-function describe(value: unknown): string {
-  if (typeof value === 'number') return Object.is(value, -0) ? '-0' : String(value);
-  if (typeof value === 'string') return JSON.stringify(value);
-  try {
-    return JSON.stringify(value) ?? String(value);
-  } catch {
-    return String(value);
+/**
+ * Bins that are not a valid layout, or matrices whose bins or kinds cannot be combined. Code
+ * `'invalid-bins'` (`'outside-bins'` for its subclass `OutsideBinsError`); `field` names the
+ * bins or the matrix field at fault.
+ */
+export class BinError extends LoopwiseError {
+  declare readonly code: BinErrorCode;
+
+  /**
+   * @param field the bins or matrix field at fault, e.g. `'range'`, `'rowEdges'`
+   * @param value the value it had
+   * @param rule what is wrong, written after `field: `
+   * @param index the element (edge) index, if any
+   * @param code `'invalid-bins'`, or `'outside-bins'` for a cycle outside the bins
+   */
+  constructor(field: string, value: unknown, rule: string, index?: number, code: BinErrorCode = 'invalid-bins') {
+    super(code, field, value, `${field}: ${rule}`, index);
+    this.name = 'BinError';
   }
 }

@@ -1,5 +1,4 @@
-export { NonFiniteSampleError, InvalidOptionError, RangeOverflowError, CounterStateError, BinError } from './errors';
-export { encodeNumber, decodeNumber, type EncodedNumber } from './numberCodec';
+export { NonFiniteSampleError, InvalidOptionError, RangeOverflowError, CounterStateError, BinError, type BinErrorCode } from './errors';
 export { ReversalFilter, type ReversalFilterOptions, type ReversalFilterState } from './ReversalFilter';
 export { turningPoints, type TurningPoints, type TurningPointOptions } from './turningPoints';
 export { gateRange, type GateOptions } from './gateRange';
@@ -14,7 +13,12 @@ export {
   type ResiduePolicy,
 } from './RainflowCounter';
 export { rainflowFourPoint, rainflow, type RainflowOptions } from './rainflowFourPoint';
-export { binEdges, binOf, type BinSpec } from './binEdges';
+export { binEdges, type BinSpec } from './binEdges';
+/**
+ * @deprecated The bin lookup is `binIndex` of `@loopwise/base` (this name re-exports it, the one
+ * definition, while packages move over); import it from there.
+ */
+export { binIndex as binOf } from '@loopwise/base';
 export {
   CycleMatrix,
   OutsideBinsError,

@@ -1,21 +1,22 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { BinError, FromToMatrix, OutsideBinsError, RangeMeanMatrix, binEdges, binOf, rainflow } from '@loopwise/rainflow';
+import { binIndex } from '@loopwise/base';
+import { BinError, FromToMatrix, InvalidOptionError, OutsideBinsError, RangeMeanMatrix, binEdges, binOf, rainflow } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
 import { tiedHistory } from './support/arbitraries';
 
 const bins = { range: { count: 12, min: 0, max: 12 }, mean: { count: 12, min: -6, max: 6 } };
 
-describe('binEdges(spec) and binOf(edges, v)', () => {
+describe('binEdges(spec, field)', () => {
   test('binEdges({count, min, max}) makes count equal bins ending exactly at max', () => {
     expect(Array.from(binEdges({ count: 4, min: 0, max: 100 }, 'range'))).toEqual([0, 25, 50, 75, 100]);
     expect(binEdges({ count: 3, min: 0, max: 0.3 }, 'x')[3]).toBe(0.3);
   });
 
-  test('binOf puts a value on an inner edge in the upper bin and the top edge in the last bin', () => {
+  test('the bins of binEdges are looked up with binIndex of @loopwise/base (binOf is the same function, deprecated)', () => {
     const e = binEdges({ edges: [0, 1, 2, 3] }, 'x');
-    expect([binOf(e, 0), binOf(e, 0.5), binOf(e, 1), binOf(e, 2.999), binOf(e, 3)]).toEqual([0, 0, 1, 2, 2]);
-    expect([binOf(e, -1e-300), binOf(e, 3.0000000000000004)]).toEqual([-1, -1]);
+    expect([0, 0.5, 1, 2.999, 3].map((v) => binIndex(e, v))).toEqual([0, 0, 1, 2, 2]);
+    expect(binOf).toBe(binIndex);
   });
 
   test('binEdges rejects edges that do not increase, are not finite or are too few', () => {
@@ -26,6 +27,14 @@ describe('binEdges(spec) and binOf(edges, v)', () => {
     expect(() => binEdges({ edges: [1] }, 'x')).toThrow(/two edges/);
     expect(() => binEdges({ count: 0, min: 0, max: 1 }, 'x')).toThrow(/count/);
     expect(() => binEdges({ count: 2, min: 1, max: 1 }, 'x')).toThrow(/min < max/);
+  });
+
+  test('binEdges errors carry code invalid-bins, the field, the bad value and the edge index', () => {
+    expect(() => binEdges({ edges: [0, 2, 1] }, 'range')).toThrow(
+      expect.objectContaining({ code: 'invalid-bins', field: 'range', value: 1, index: 2 }),
+    );
+    expect(() => binEdges({ edges: [0, NaN] }, 'mean')).toThrow(expect.objectContaining({ code: 'invalid-bins', field: 'mean', index: 1 }));
+    expect(() => binEdges({ count: 0, min: 0, max: 1 }, 'from')).toThrow(expect.objectContaining({ field: 'from', value: 0, index: undefined }));
   });
 });
 
@@ -56,11 +65,22 @@ describe('RangeMeanMatrix and FromToMatrix', () => {
     expect(m.outside.count).toBe(0);
   });
 
-  test("outside: 'error' throws OutsideBinsError naming the cycle's start sample", () => {
+  test("outside: 'error' throws OutsideBinsError naming the coordinate outside and the cycle's start sample", () => {
     const m = new RangeMeanMatrix({ ...bins, range: { count: 2, min: 0, max: 2 }, outside: 'error' });
     expect(() => rainflow([0, 5, 0], { sink: m })).toThrow(OutsideBinsError);
     expect(() => rainflow([0, 5, 0], { sink: new RangeMeanMatrix({ ...bins, range: { count: 2, min: 0, max: 2 }, outside: 'error' }) })).toThrow(
-      /sample 0/,
+      expect.objectContaining({ code: 'outside-bins', field: 'range', value: 5, index: 0, row: 5, column: 2.5, startIndex: 0 }),
+    );
+    const ft = new FromToMatrix({ from: { count: 2, min: -1, max: 6 }, to: { count: 2, min: -1, max: 1 }, outside: 'error' });
+    expect(() => ft.addCycle(0, 5, 1, 7)).toThrow(expect.objectContaining({ field: 'to', value: 5, index: 7 }));
+    expect(() => ft.addCycle(0, 5, 1, 7)).toThrow(/to: 5 of the cycle starting at sample 7 is outside the bins/);
+    expect(new OutsideBinsError('range', 5, 5, 2.5, 0)).toBeInstanceOf(BinError);
+  });
+
+  test("a matrix with a bad outside option throws InvalidOptionError naming it", () => {
+    expect(() => new RangeMeanMatrix({ ...bins, outside: 'drop' as never })).toThrow(InvalidOptionError);
+    expect(() => new RangeMeanMatrix({ ...bins, outside: 'drop' as never })).toThrow(
+      expect.objectContaining({ code: 'invalid-option', field: 'outside', value: 'drop' }),
     );
   });
 
@@ -80,7 +100,7 @@ describe('RangeMeanMatrix and FromToMatrix', () => {
     rainflow([0, 3, -2, 4, 0], { sink: a });
     const total = a.totalCount();
     expect(a.scale(1000).totalCount()).toBe(total * 1000);
-    expect(() => a.scale(-1)).toThrow(/factor/);
+    expect(() => a.scale(-1)).toThrow(expect.objectContaining({ code: 'invalid-option', field: 'factor', value: -1 }));
     expect(() => a.add(new RangeMeanMatrix({ ...bins, mean: { count: 6, min: -6, max: 6 } }))).toThrow(/different bins/);
     expect(() => a.add(new FromToMatrix({ from: bins.range, to: bins.mean }) as never)).toThrow(/from-to/);
   });

@@ -180,7 +180,9 @@ describe('rainflowFourPoint edge cases', () => {
         rainflow(h);
       } catch (e) {
         expect((e as NonFiniteSampleError).index).toBe(3);
-        expect((e as NonFiniteSampleError).code).toBe('LW_NON_FINITE_SAMPLE');
+        expect((e as NonFiniteSampleError).code).toBe('non-finite-sample');
+        expect((e as NonFiniteSampleError).field).toBe('history');
+        expect(Object.is((e as NonFiniteSampleError).value, bad)).toBe(true);
         expect((e as Error).message).toContain('sample 3');
       }
     }
@@ -207,7 +209,11 @@ describe('rainflowFourPoint edge cases', () => {
     }
   });
 
-  test('rainflow of values whose range overflows a double throws RangeOverflowError', () => {
+  test('rainflow of values whose range overflows a double throws RangeOverflowError naming both samples', () => {
     expect(() => rainflow([0, 1.5e308, -1.5e308, 1.5e308])).toThrow(RangeOverflowError);
+    // the first range that overflows is 1.5e308 → -1.5e308, samples 1 and 2
+    expect(() => rainflow([0, 1.5e308, -1.5e308, 1.5e308])).toThrow(
+      expect.objectContaining({ code: 'range-overflow', field: 'history', index: 1, value: 1.5e308, startIndex: 1, turnIndex: 2 }),
+    );
   });
 });

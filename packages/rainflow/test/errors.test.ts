@@ -1,0 +1,78 @@
+import { describe, expect, test } from 'vitest';
+import { LoopwiseError } from '@loopwise/base';
+import {
+  BinError,
+  CounterStateError,
+  InvalidOptionError,
+  NonFiniteSampleError,
+  RainflowCounter,
+  RangeOverflowError,
+  ReversalFilter,
+  rainflow,
+  turningPoints,
+} from '@loopwise/rainflow';
+
+/** The error a call throws (fails when it throws nothing). */
+function thrown(f: () => unknown): LoopwiseError {
+  try {
+    f();
+  } catch (e) {
+    return e as LoopwiseError;
+  }
+  throw new Error('expected a throw');
+}
+
+describe('rainflow errors', () => {
+  test('every rainflow error is a LoopwiseError of @loopwise/base, named after its class', () => {
+    const cases: [LoopwiseError, string, string][] = [
+      [new NonFiniteSampleError(3, NaN), 'NonFiniteSampleError', 'non-finite-sample'],
+      [new InvalidOptionError('gate', -1, 'must be >= 0'), 'InvalidOptionError', 'invalid-option'],
+      [new RangeOverflowError(1, 2, 1e308, -1e308), 'RangeOverflowError', 'range-overflow'],
+      [new CounterStateError('counter', 'finished', 'finished'), 'CounterStateError', 'counter-state'],
+      [new BinError('range', [], 'needs at least two edges'), 'BinError', 'invalid-bins'],
+    ];
+    for (const [e, name, code] of cases) {
+      expect(e).toBeInstanceOf(LoopwiseError);
+      expect(e).toBeInstanceOf(Error);
+      expect([e.name, e.code]).toEqual([name, code]);
+    }
+  });
+
+  test('NonFiniteSampleError names the field history, the sample and its index in the whole history', () => {
+    const e = thrown(() => new RainflowCounter({ startIndex: 100 }).push([0, 1, -Infinity]));
+    expect(e).toBeInstanceOf(NonFiniteSampleError);
+    expect(e).toMatchObject({ code: 'non-finite-sample', field: 'history', value: -Infinity, index: 102 });
+    expect(e.message).toBe('sample 102 is -Infinity: histories must hold finite numbers only');
+    expect(thrown(() => turningPoints([0, NaN], { gateFraction: 0.5 }))).toMatchObject({ field: 'history', index: 1 });
+  });
+
+  test('InvalidOptionError names the option and the value, -0 and NaN written exactly', () => {
+    const e = thrown(() => rainflow([0, 1], { gate: NaN }));
+    expect(e).toMatchObject({ code: 'invalid-option', field: 'gate', index: undefined });
+    expect(e.value).toBeNaN();
+    expect(e.message).toBe('option gate = NaN is invalid: must be a finite number >= 0');
+    expect(thrown(() => new ReversalFilter({ startIndex: -0.5 }))).toMatchObject({ field: 'startIndex', value: -0.5 });
+    expect(thrown(() => new RainflowCounter({ residue: 'halves' as never })).message).toBe(
+      `option residue = "halves" is invalid: must be 'half', 'repeat' or 'none'`,
+    );
+  });
+
+  test('CounterStateError names what is wrong: the finished counter, the appended segment, the saved state', () => {
+    const c = new RainflowCounter().push([0, 1]);
+    c.finish();
+    expect(thrown(() => c.push([2]))).toMatchObject({ code: 'counter-state', field: 'counter', value: 'finished' });
+    const a = new RainflowCounter().push([0, 1]);
+    expect(thrown(() => a.append(new RainflowCounter({ startIndex: 5 })))).toMatchObject({ field: 'startIndex', value: 5 });
+    expect(thrown(() => a.append(new RainflowCounter({ startIndex: 2, gate: 1 })))).toMatchObject({ field: 'gate', value: 1 });
+    const state = new RainflowCounter().push([0, 2, 1]).toJSON();
+    expect(thrown(() => RainflowCounter.fromJSON({ ...state, format: 'x' } as never))).toMatchObject({ field: 'format', value: 'x' });
+    expect(thrown(() => RainflowCounter.fromJSON({ ...state, version: 2 } as never))).toMatchObject({ field: 'version', value: 2 });
+    expect(thrown(() => RainflowCounter.fromJSON({ ...state, stackIndices: [] }))).toMatchObject({ field: 'stackIndices', value: 0 });
+  });
+
+  test('a saved state with a number that is not encoded throws the codec error of @loopwise/base, naming the field', () => {
+    const state = JSON.parse(JSON.stringify(new RainflowCounter().push([0, 2, 1, 3]).toJSON()));
+    state.stackValues[1] = null; // what plain JSON makes of Infinity
+    expect(thrown(() => RainflowCounter.fromJSON(state))).toMatchObject({ code: 'invalid-encoded-number', field: 'stackValues', index: 1, value: null });
+  });
+});
