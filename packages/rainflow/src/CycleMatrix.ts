@@ -118,7 +118,7 @@ export abstract class CycleMatrix implements CycleSink {
   /** The binned column coordinate of a cycle (mean, or to). */
   protected abstract columnValue(from: number, to: number): number;
 
-  addCycle(from: number, to: number, count: number, startIndex: number, _endIndex = startIndex, _closeIndex = _endIndex): void {
+  addCycle(from: number, to: number, count: number, startIndex: number, _turnIndex = startIndex, _closeIndex = _turnIndex): void {
     const r = this.rowValue(from, to);
     const c = this.columnValue(from, to);
     const i = binIndex(this.rowEdges, r);

@@ -9,16 +9,16 @@ export interface CycleSink {
    * @param to value at its second reversal (c)
    * @param count 1 for a full cycle, 0.5 for a half cycle
    * @param startIndex sample index of `from`
-   * @param endIndex sample index of `to`
+   * @param turnIndex sample index of `to`, the cycle's second reversal point (where the loop turns)
    * @param closeIndex sample index of the turning point that closed the cycle (d); for a half
-   *   cycle of the residue, `endIndex`
+   *   cycle of the residue, `turnIndex`
    */
   addCycle(
     from: number,
     to: number,
     count: number,
     startIndex: number,
-    endIndex: number,
+    turnIndex: number,
     closeIndex: number,
   ): void;
 }

@@ -12,11 +12,14 @@ export interface CycleColumns {
   to: Float64Array;
   /** 1 for a full cycle, 0.5 for a half cycle. */
   count: Float64Array;
-  /** Sample index of `from`. */
+  /** Sample index of `from`, the cycle's first reversal point (b in the four-point rule). */
   startIndex: Float64Array;
-  /** Sample index of `to`. */
-  endIndex: Float64Array;
-  /** Sample index of the turning point that closed the cycle (`endIndex` for a half cycle). */
+  /**
+   * Sample index of `to`, the cycle's second reversal point (c): where the loop turns back, the
+   * sample notch's loops and miner's attribution also call `turnIndex`.
+   */
+  turnIndex: Float64Array;
+  /** Sample index of the turning point that closed the cycle (`turnIndex` for a half cycle). */
   closeIndex: Float64Array;
 }
 
@@ -26,11 +29,11 @@ export interface CycleTableState {
   to: EncodedNumber[];
   count: EncodedNumber[];
   startIndex: number[];
-  endIndex: number[];
+  turnIndex: number[];
   closeIndex: number[];
 }
 
-const NAMES = ['range', 'mean', 'from', 'to', 'count', 'startIndex', 'endIndex', 'closeIndex'] as const;
+const NAMES = ['range', 'mean', 'from', 'to', 'count', 'startIndex', 'turnIndex', 'closeIndex'] as const;
 
 /**
  * Growable struct-of-arrays table of cycles: one Float64Array per column, doubled when full, so
@@ -45,7 +48,7 @@ export class CycleTable implements CycleSink {
   private cTo: Float64Array;
   private cCount: Float64Array;
   private cStart: Float64Array;
-  private cEnd: Float64Array;
+  private cTurn: Float64Array;
   private cClose: Float64Array;
   private n = 0;
   private capacity: number;
@@ -59,7 +62,7 @@ export class CycleTable implements CycleSink {
     this.cTo = new Float64Array(cap);
     this.cCount = new Float64Array(cap);
     this.cStart = new Float64Array(cap);
-    this.cEnd = new Float64Array(cap);
+    this.cTurn = new Float64Array(cap);
     this.cClose = new Float64Array(cap);
   }
 
@@ -76,9 +79,9 @@ export class CycleTable implements CycleSink {
     return s;
   }
 
-  addCycle(from: number, to: number, count: number, startIndex: number, endIndex: number, closeIndex: number): void {
+  addCycle(from: number, to: number, count: number, startIndex: number, turnIndex: number, closeIndex: number): void {
     const range = to > from ? to - from : from - to;
-    if (range === Infinity) throw new RangeOverflowError(startIndex, endIndex, from, to);
+    if (range === Infinity) throw new RangeOverflowError(startIndex, turnIndex, from, to);
     if (this.n === this.capacity) this.grow(this.n + 1);
     const i = this.n++;
     const sum = from + to;
@@ -88,7 +91,7 @@ export class CycleTable implements CycleSink {
     this.cTo[i] = to;
     this.cCount[i] = count;
     this.cStart[i] = startIndex;
-    this.cEnd[i] = endIndex;
+    this.cTurn[i] = turnIndex;
     this.cClose[i] = closeIndex;
   }
 
@@ -107,7 +110,7 @@ export class CycleTable implements CycleSink {
     this.cTo[j] = other.cTo[i];
     this.cCount[j] = other.cCount[i];
     this.cStart[j] = other.cStart[i];
-    this.cEnd[j] = other.cEnd[i];
+    this.cTurn[j] = other.cTurn[i];
     this.cClose[j] = other.cClose[i];
   }
 
@@ -126,7 +129,7 @@ export class CycleTable implements CycleSink {
       to: this.cTo.subarray(0, n),
       count: this.cCount.subarray(0, n),
       startIndex: this.cStart.subarray(0, n),
-      endIndex: this.cEnd.subarray(0, n),
+      turnIndex: this.cTurn.subarray(0, n),
       closeIndex: this.cClose.subarray(0, n),
     };
   }
@@ -141,7 +144,7 @@ export class CycleTable implements CycleSink {
       to: this.cTo[i],
       count: this.cCount[i],
       startIndex: this.cStart[i],
-      endIndex: this.cEnd[i],
+      turnIndex: this.cTurn[i],
       closeIndex: this.cClose[i],
     };
   }
@@ -149,7 +152,7 @@ export class CycleTable implements CycleSink {
   /** Feeds every row, in order, to another sink. */
   replayInto(sink: CycleSink): void {
     for (let i = 0; i < this.n; i++) {
-      sink.addCycle(this.cFrom[i], this.cTo[i], this.cCount[i], this.cStart[i], this.cEnd[i], this.cClose[i]);
+      sink.addCycle(this.cFrom[i], this.cTo[i], this.cCount[i], this.cStart[i], this.cTurn[i], this.cClose[i]);
     }
   }
 
@@ -160,7 +163,7 @@ export class CycleTable implements CycleSink {
       to: encodeArray(this.cTo, n),
       count: encodeArray(this.cCount, n),
       startIndex: Array.from(this.cStart.subarray(0, n)),
-      endIndex: Array.from(this.cEnd.subarray(0, n)),
+      turnIndex: Array.from(this.cTurn.subarray(0, n)),
       closeIndex: Array.from(this.cClose.subarray(0, n)),
     };
   }
@@ -171,10 +174,10 @@ export class CycleTable implements CycleSink {
     const to = decodeArray(state.to, 'cycles.to');
     const count = decodeArray(state.count, 'cycles.count');
     const s = decodeArray(state.startIndex, 'cycles.startIndex');
-    const e = decodeArray(state.endIndex, 'cycles.endIndex');
+    const e = decodeArray(state.turnIndex, 'cycles.turnIndex');
     const k = decodeArray(state.closeIndex, 'cycles.closeIndex');
     const n = from.length;
-    const others = { to, count, startIndex: s, endIndex: e, closeIndex: k };
+    const others = { to, count, startIndex: s, turnIndex: e, closeIndex: k };
     for (const [name, column] of Object.entries(others)) {
       if (column.length !== n) {
         throw new CounterStateError(`cycles.${name}`, column.length, `cycle table state has columns of different lengths: cycles.from has ${n}, cycles.${name} ${column.length}`);
@@ -195,7 +198,7 @@ export class CycleTable implements CycleSink {
     this.cTo = widenColumn(this.cTo, n, cap);
     this.cCount = widenColumn(this.cCount, n, cap);
     this.cStart = widenColumn(this.cStart, n, cap);
-    this.cEnd = widenColumn(this.cEnd, n, cap);
+    this.cTurn = widenColumn(this.cTurn, n, cap);
     this.cClose = widenColumn(this.cClose, n, cap);
     this.capacity = cap;
   }

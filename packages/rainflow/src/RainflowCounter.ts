@@ -54,10 +54,13 @@ export interface RainflowResult {
   sampleCount: number;
 }
 
-/** Serialised {@link RainflowCounter} (format `loopwise-rainflow-state`, version 1). */
+/**
+ * Serialised {@link RainflowCounter} (format `loopwise-rainflow-state`, version 2; version 1,
+ * whose cycle table called `turnIndex` `endIndex`, is still read).
+ */
 export interface RainflowCounterState {
   format: 'loopwise-rainflow-state';
-  version: 1;
+  version: 2;
   residue: ResiduePolicy;
   startIndex: number;
   filter: ReversalFilterState;
@@ -194,7 +197,7 @@ export class RainflowCounter {
    * Appends a counter that counted the samples right after this one's (its `startIndex` equals
    * this counter's `nextIndex`, same gate), so that a long channel split into segments and
    * counted apart (in workers) combines into the result of counting it whole: the same cycles
-   * (values, counts, start and end samples), the same residue, turning-point and gate counts, and
+   * (values, counts, start and turn samples), the same residue, turning-point and gate counts, and
    * a state that continues exactly. The cycles that close across the junction are found from the
    * two residues; such a cycle may be closed by a later turning point than in the single count
    * (the one that closed it there was used up inside `later`), so its close index can be later.
@@ -243,7 +246,7 @@ export class RainflowCounter {
     this.assertOpen();
     return {
       format: 'loopwise-rainflow-state',
-      version: 1,
+      version: 2,
       residue: this.residuePolicy,
       startIndex: this.startIndex,
       filter: this.filter.toJSON(),
@@ -261,7 +264,8 @@ export class RainflowCounter {
     if (state === null || typeof state !== 'object' || state.format !== 'loopwise-rainflow-state') {
       throw new CounterStateError('format', state?.format, 'not a loopwise-rainflow-state object');
     }
-    if (state.version !== 1) throw new CounterStateError('version', state.version, `unsupported rainflow state version ${String(state.version)}`);
+    const version = state.version as number;
+    if (version !== 2 && version !== 1) throw new CounterStateError('version', version, `unsupported rainflow state version ${String(version)}`);
     if (state.cycles === null && !options.sink) {
       throw new CounterStateError('options.sink', options.sink, 'this state counted into a caller sink: pass options.sink to resume it');
     }
@@ -271,7 +275,11 @@ export class RainflowCounter {
       ...(state.cycles === null ? { sink: options.sink } : {}),
     });
     c.filter = ReversalFilter.fromJSON(state.filter);
-    if (state.cycles !== null && c.table) c.table.appendTable(CycleTable.fromJSON(state.cycles));
+    if (state.cycles !== null && c.table) {
+      // version 1 wrote the turn index column as `endIndex`
+      const cycles = version === 1 ? { ...state.cycles, turnIndex: (state.cycles as unknown as { endIndex: number[] }).endIndex } : state.cycles;
+      c.table.appendTable(CycleTable.fromJSON(cycles));
+    }
     const v = decodeArray(state.stackValues, 'stackValues');
     const i = decodeArray(state.stackIndices, 'stackIndices');
     if (v.length !== i.length) {

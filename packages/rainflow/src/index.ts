@@ -31,4 +31,3 @@ export { RangeMeanMatrix, type RangeMeanMatrixOptions } from './RangeMeanMatrix'
 export { FromToMatrix, type FromToMatrixOptions } from './FromToMatrix';
 export { levelCrossings, type LevelCrossings } from './levelCrossings';
 export { rangeSpectrum, type RangeSpectrum } from './rangeSpectrum';
-export { damageEquivalentRange, type DamageEquivalentOptions } from './damageEquivalentRange';

@@ -26,7 +26,7 @@ function sameResult(a: Result, b: Result): void {
 }
 
 /**
- * The same cycles (values, counts, start and end sample) and the same residue, in any order: what
+ * The same cycles (values, counts, start and turn sample) and the same residue, in any order: what
  * a merge of segments promises. A cycle that closes across the junction may be closed by a later
  * turning point than in the single count (the one that closed it inside the later segment was
  * used up there), so close indices, and the order they set, may differ.
@@ -75,6 +75,19 @@ describe('RainflowCounter', () => {
       ),
       { numRuns: 1000 },
     );
+  });
+
+  test('RainflowCounter.fromJSON(a version-1 state, whose table called turnIndex endIndex) resumes exactly', () => {
+    const h = [0, 3, -2, 5, -1, 4, -3, 2];
+    const state = JSON.parse(JSON.stringify(new RainflowCounter().push(h.slice(0, 6))));
+    expect(state.version).toBe(2);
+    expect(state.cycles.turnIndex.length).toBeGreaterThan(0);
+    // Arrange: the same state as version 1 wrote it
+    const { turnIndex, ...rest } = state.cycles;
+    const v1 = { ...state, version: 1, cycles: { ...rest, endIndex: turnIndex } };
+    // Act / Assert
+    const resumed = RainflowCounter.fromJSON(v1).push(h.slice(6)).finish();
+    sameResult(resumed, countWhole(h, 'half', 0));
   });
 
   test('segments counted apart and appended give the cycles and residue of the whole count, for any split and gate', () => {

@@ -24,7 +24,7 @@ describe('rainflowFourPoint(history, options)', () => {
     expect(countsByRange(cycles)).toEqual({ 3: 0.5, 4: 1.5, 6: 0.5, 8: 1, 9: 0.5 });
     // The one full cycle is -1 → 3 (samples 4 and 5), closed by the valley -4 at sample 6.
     expect(rows(cycles).filter((c) => c.count === 1)).toEqual([
-      { range: 4, mean: 1, from: -1, to: 3, count: 1, startIndex: 4, endIndex: 5, closeIndex: 6 },
+      { range: 4, mean: 1, from: -1, to: 3, count: 1, startIndex: 4, turnIndex: 5, closeIndex: 6 },
     ]);
   });
 
@@ -199,8 +199,8 @@ describe('rainflowFourPoint edge cases', () => {
     const plain = rows(rainflow(ASTM_EXAMPLE).cycles);
     for (const s of [1e-300, 1e300]) {
       const scaled = rows(rainflow(ASTM_EXAMPLE.map((x) => x * s)).cycles);
-      expect(scaled.map((c) => [c.count, c.startIndex, c.endIndex, c.closeIndex])).toEqual(
-        plain.map((c) => [c.count, c.startIndex, c.endIndex, c.closeIndex]),
+      expect(scaled.map((c) => [c.count, c.startIndex, c.turnIndex, c.closeIndex])).toEqual(
+        plain.map((c) => [c.count, c.startIndex, c.turnIndex, c.closeIndex]),
       );
       scaled.forEach((c, i) => {
         expect(Number.isFinite(c.range) && Number.isFinite(c.mean)).toBe(true);

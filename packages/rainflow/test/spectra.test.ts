@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { InvalidOptionError, damageEquivalentRange, levelCrossings, rainflow, rangeSpectrum } from '@loopwise/rainflow';
+import { InvalidOptionError, levelCrossings, rainflow, rangeSpectrum } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
 import { tiedHistory } from './support/arbitraries';
 
@@ -49,31 +49,5 @@ describe('rangeSpectrum(cycles)', () => {
   test('rangeSpectrum of no cycles is empty', () => {
     const s = rangeSpectrum(rainflow([1]).cycles!);
     expect(s.range.length).toBe(0);
-  });
-});
-
-describe('damageEquivalentRange(cycles, {slope, referenceCount})', () => {
-  test('damageEquivalentRange of constant-amplitude cycles is that range, scaled by (n/Nref)^(1/m)', () => {
-    // eight ranges of 2 (ASTM E1049 counts them as eight half cycles: four cycles)
-    const { cycles } = rainflow([0, 2, 0, 2, 0, 2, 0, 2, 0]);
-    expect(cycles!.totalCount()).toBe(4);
-    // ΔS_eq = (4 · 2^3 / 4)^(1/3) = 2; with N_ref = 32: (32 / 32)^(1/3) = 1
-    expect(damageEquivalentRange(cycles!, { slope: 3, referenceCount: 4 })).toBeCloseTo(2, 14);
-    expect(damageEquivalentRange(cycles!, { slope: 3, referenceCount: 32 })).toBeCloseTo(1, 14);
-  });
-
-  test('damageEquivalentRange matches the direct formula and does not overflow at large m', () => {
-    const cols = { range: Float64Array.from([100, 50, 10]), count: Float64Array.from([1, 10, 1000]) };
-    const direct = Math.pow((100 ** 5 + 10 * 50 ** 5 + 1000 * 10 ** 5) / 1e6, 1 / 5);
-    expect(damageEquivalentRange(cols, { slope: 5, referenceCount: 1e6 })).toBeCloseTo(direct, 10);
-    const big = { range: Float64Array.from([1e200]), count: Float64Array.from([1]) };
-    expect(damageEquivalentRange(big, { slope: 9, referenceCount: 1 })).toBe(1e200);
-    expect(damageEquivalentRange({ range: new Float64Array(0), count: new Float64Array(0) }, { slope: 3, referenceCount: 1 })).toBe(0);
-  });
-
-  test('damageEquivalentRange rejects a bad slope or reference count', () => {
-    const cols = { range: Float64Array.from([1]), count: Float64Array.from([1]) };
-    expect(() => damageEquivalentRange(cols, { slope: 0, referenceCount: 1 })).toThrow(/slope = 0/);
-    expect(() => damageEquivalentRange(cols, { slope: 3, referenceCount: NaN })).toThrow(/referenceCount = NaN/);
   });
 });

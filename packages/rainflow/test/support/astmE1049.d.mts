@@ -8,7 +8,7 @@ export interface RefCycle {
   to: number;
   count: number;
   startIndex: number;
-  endIndex: number;
+  turnIndex: number;
 }
 
 /** Peaks and valleys, ASTM E1049-85 3.1 (literal). */

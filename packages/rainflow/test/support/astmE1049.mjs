@@ -46,16 +46,16 @@ export function astmRainflow(points) {
       const a = list[n - 3];
       const b = list[n - 2];
       if (n - 3 === 0) {
-        out.push({ from: a.value, to: b.value, count: 0.5, startIndex: a.index, endIndex: b.index });
+        out.push({ from: a.value, to: b.value, count: 0.5, startIndex: a.index, turnIndex: b.index });
         list.splice(0, 1);
       } else {
-        out.push({ from: a.value, to: b.value, count: 1, startIndex: a.index, endIndex: b.index });
+        out.push({ from: a.value, to: b.value, count: 1, startIndex: a.index, turnIndex: b.index });
         list.splice(n - 3, 2);
       }
     }
   }
   for (let k = 0; k + 1 < list.length; k++) {
-    out.push({ from: list[k].value, to: list[k + 1].value, count: 0.5, startIndex: list[k].index, endIndex: list[k + 1].index });
+    out.push({ from: list[k].value, to: list[k + 1].value, count: 0.5, startIndex: list[k].index, turnIndex: list[k + 1].index });
   }
   return out;
 }
@@ -91,7 +91,7 @@ export function astmRepeating(points) {
       if (X < Y) break;
       const a = list[n - 3];
       const b = list[n - 2];
-      out.push({ from: a.value, to: b.value, count: 1, startIndex: a.index, endIndex: b.index });
+      out.push({ from: a.value, to: b.value, count: 1, startIndex: a.index, turnIndex: b.index });
       list.splice(n - 3, 2);
     }
   }

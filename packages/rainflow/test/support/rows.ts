@@ -7,9 +7,9 @@ export function rows(table: CycleTable | null): ReturnType<CycleTable['row']>[] 
   return Array.from({ length: table.length }, (_, i) => table.row(i));
 }
 
-/** A canonical, order-free key list of cycles: from, to, count, start and end index. */
-export function cycleKeys(cycles: Array<Pick<RefCycle, 'from' | 'to' | 'count' | 'startIndex' | 'endIndex'>>): string[] {
-  return cycles.map((c) => `${c.from}|${c.to}|${c.count}|${c.startIndex}|${c.endIndex}`).sort();
+/** A canonical, order-free key list of cycles: from, to, count, start and turn index. */
+export function cycleKeys(cycles: Array<Pick<RefCycle, 'from' | 'to' | 'count' | 'startIndex' | 'turnIndex'>>): string[] {
+  return cycles.map((c) => `${c.from}|${c.to}|${c.count}|${c.startIndex}|${c.turnIndex}`).sort();
 }
 
 /** Order-free list of (range, mean, count): what a repeating-history count is compared on. */
