@@ -11,7 +11,7 @@ import { rainflow, RainflowCounter } from '@loopwise/rainflow';
 // (tables through their columns()), and checks every other result is as it was. Rainflow's own
 // results are checked the same way in packages/rainflow/test/honestTables.test.ts.
 
-const material = handbookSteels.find((m) => m.name.startsWith('SAE 1045'))!;
+const material = handbookSteels.find((m) => m.name?.startsWith('SAE 1045'))!;
 const history = [0, 300, -200, 100, -150, 200, -100, 250, -240, 150, -50];
 
 type Columns = () => Record<string, ArrayLike<number>>;

@@ -1,8 +1,4 @@
-function show(value: unknown): string {
-  if (typeof value === 'number' && Object.is(value, -0)) return '-0';
-  if (typeof value === 'string') return JSON.stringify(value);
-  return String(value);
-}
+import { describeValue, LoopwiseError } from '@loopwise/base';
 
 /**
  * Thrown when an option or argument of a notch function is out of its domain (Kt < 1, a
@@ -13,21 +9,13 @@ function show(value: unknown): string {
  * try { trackNotch([1], { material, Kt: 0.5 }); } catch (e) { (e as NotchOptionError).field; }
  * // returns 'Kt'
  */
-export class NotchOptionError extends Error {
-  /** Stable machine-readable code. */
-  readonly code = 'invalid-option' as const;
-  /** Name of the option or argument, e.g. `"Kt"`. */
-  readonly field: string;
-  /** The value it got. */
-  readonly value: unknown;
+export class NotchOptionError extends LoopwiseError {
+  declare readonly code: 'invalid-option';
   /** The rule it broke. */
   readonly rule: string;
 
   constructor(field: string, value: unknown, rule: string) {
-    super(`invalid option: ${field} = ${show(value)} (${rule})`);
-    this.name = 'NotchOptionError';
-    this.field = field;
-    this.value = value;
+    super('invalid-option', field, value, `invalid option: ${field} = ${describeValue(value)} (${rule})`);
     this.rule = rule;
   }
 }

@@ -1,3 +1,5 @@
+import { LoopwiseError } from '@loopwise/base';
+
 /**
  * Thrown when a history sample is NaN or ±Infinity. Names the sample index (the index the
  * tracker gives the sample, counting from 0 across streamed chunks) and the value.
@@ -6,20 +8,16 @@
  * try { trackNotch([0, NaN], { material, Kt: 2 }); } catch (e) { (e as NotchSampleError).index; }
  * // returns 1
  */
-export class NotchSampleError extends Error {
-  /** Stable machine-readable code. */
-  readonly code = 'non-finite-sample' as const;
+export class NotchSampleError extends LoopwiseError {
+  declare readonly code: 'non-finite-sample';
   /** Always `"history"`. */
-  readonly field = 'history' as const;
+  declare readonly field: 'history';
   /** Sample index of the bad value. */
-  readonly index: number;
+  declare readonly index: number;
   /** The value (NaN, Infinity or -Infinity). */
-  readonly value: number;
+  declare readonly value: number;
 
   constructor(index: number, value: number) {
-    super(`history[${index}] = ${String(value)} (samples must be finite numbers)`);
-    this.name = 'NotchSampleError';
-    this.index = index;
-    this.value = value;
+    super('non-finite-sample', 'history', value, `history[${index}] = ${String(value)} (samples must be finite numbers)`, index);
   }
 }

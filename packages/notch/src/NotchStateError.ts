@@ -1,13 +1,11 @@
-/** Thrown by {@link NotchTracker.fromJSON} when a serialised state is malformed; names the field. */
-export class NotchStateError extends Error {
-  /** Stable machine-readable code. */
-  readonly code = 'invalid-state' as const;
-  /** The field of the state that is wrong. */
-  readonly field: string;
+import { LoopwiseError } from '@loopwise/base';
 
-  constructor(field: string, rule: string) {
-    super(`invalid tracker state: ${field} (${rule})`);
-    this.name = 'NotchStateError';
-    this.field = field;
+/** Thrown by {@link NotchTracker.fromJSON} when a serialised state is malformed; names the field. */
+export class NotchStateError extends LoopwiseError {
+  declare readonly code: 'invalid-state';
+
+  /** @param field the state field or method at fault; @param rule what it must be or why */
+  constructor(field: string, rule: string, value?: unknown) {
+    super('invalid-state', field, value, `invalid tracker state: ${field} (${rule})`);
   }
 }
