@@ -73,4 +73,17 @@ export interface DamageParameter<Name extends string = string> {
     flags?: Uint8Array,
     options?: ReversalsOptions,
   ): Float64Array;
+  /**
+   * The parameter's value for one loop (the left-hand side of its equation, the same number as
+   * `reversalsToFailure(material, loop).value`): εa for none, Morrow and modified Morrow; σmax·εa
+   * for SWT (0 when σmax ≤ 0); σmax^(1−γ)·(E·εa)^γ for Walker (0 when σmax ≤ 0 and γ < 1). Unit:
+   * `valueUnit`. Errors as `reversalsToFailure`.
+   */
+  parameterValue(material: Material, loop: Loop): number;
+  /**
+   * Typed-array kernel of {@link DamageParameter.parameterValue}: the value of every loop of
+   * `loops` into the caller-owned `out` (returned). Checks every loop before writing; errors
+   * name the loop index. No allocation.
+   */
+  parameterValueInto(material: Material, loops: LoopColumns, out: Float64Array): Float64Array;
 }

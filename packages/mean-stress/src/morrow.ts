@@ -1,28 +1,12 @@
-import {
-  assertMaterial,
-  DEFAULT_CUTOFF_REVERSALS,
-  DEFAULT_MAX_ITERATIONS,
-  solveTwoTermReversals,
-  type Material,
-  type ReversalsOptions,
-} from '@loopwise/material';
-import { checkColumns, checkLoop, flagNames } from './checkLoop';
-import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
-import type { Loop, LoopColumns } from './Loop';
+import type { Material } from '@loopwise/material';
+import type { DamageParameter } from './DamageParameter';
+import type { LoopColumns } from './Loop';
+import { OWN_LN_A, twoTermParameter, type TwoTermTerms } from './twoTermParameter';
 
-/** Internal: reversals by Morrow; 1 when σm ≥ σf' (flagged by the caller). */
-function morrowReversals(
-  material: Material, lnB: number, sMax: number, sMin: number, ea: number, cutoff: number, maxIt: number,
-): number {
-  const elastic = material.sigmaF - (sMax + sMin) / 2;
-  if (!(elastic > 0)) return 1;
-  return solveTwoTermReversals(Math.log(elastic / material.E), material.b, lnB, material.c, Math.log(ea), cutoff, maxIt);
-}
-
-function flagBits(material: Material, sMax: number, sMin: number, r: number): number {
-  if (r === Infinity) return 1;
-  if (r !== 1) return 0;
-  return material.sigmaF - (sMax + sMin) / 2 > 0 ? 2 : 8;
+/** The constants of Morrow's equation with the σf' and E that make each loop's ln A. */
+interface MorrowTerms extends TwoTermTerms {
+  readonly sigmaF: number;
+  readonly E: number;
 }
 
 /**
@@ -46,42 +30,34 @@ function flagBits(material: Material, sMax: number, sMin: number, r: number): nu
  * morrow.reversalsToFailure(aisi4340, { stressMax: 1000, stressMin: -600, strainMax: 0.007, strainMin: -0.003 })
  * // returns { reversals: 8677.64..., value: 0.005, flags: [] }   (σm = 200 MPa)
  */
-export const morrow: DamageParameter<'morrow'> = Object.freeze({
+export const morrow: DamageParameter<'morrow'> = twoTermParameter({
   name: 'morrow' as const,
   label: 'Morrow',
-  valueUnit: 'strain' as const,
+  valueUnit: 'strain',
+  varies: OWN_LN_A,
+  special: { reversals: 1, bit: 8 }, // mean-stress-at-or-above-sigmaF: σm ≥ σf'
 
-  reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
-    assertMaterial(material);
-    const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
-    checkLoop(sMax, sMin, eMax, eMin, undefined);
-    const ea = (eMax - eMin) / 2;
-    const r = morrowReversals(
-      material, Math.log(material.epsilonF), sMax, sMin, ea,
-      options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
-    );
-    return { reversals: r, value: ea, flags: flagNames(flagBits(material, sMax, sMin, r), DAMAGE_FLAG_BITS) };
+  // εa = (σf' − σm)/E·x^b + εf'·x^c: ln A = ln((σf' − σm)/E) is the loop's own
+  terms(m: Material): MorrowTerms {
+    return { lnA: Math.log(m.sigmaF / m.E), p: m.b, lnB: Math.log(m.epsilonF), q: m.c, sigmaF: m.sigmaF, E: m.E };
   },
 
-  reversalsToFailureInto(
-    material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
-  ): Float64Array {
-    assertMaterial(material);
-    const count = checkColumns(loops, out, flags);
-    const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
-    const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-    const lnB = Math.log(material.epsilonF);
+  targetsInto(t: MorrowTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array, lnA: Float64Array): void {
     const { stressMax, stressMin, strainMax, strainMin } = loops;
-    for (let i = 0; i < count; i++) {
-      const sMax = stressMax[i];
-      const sMin = stressMin[i];
-      const eMax = strainMax[i];
-      const eMin = strainMin[i];
-      checkLoop(sMax, sMin, eMax, eMin, i);
-      const r = morrowReversals(material, lnB, sMax, sMin, (eMax - eMin) / 2, cutoff, maxIt);
-      out[i] = r;
-      if (flags !== undefined) flags[i] = flagBits(material, sMax, sMin, r);
+    const { sigmaF, E } = t;
+    for (let i = from; i < to; i++) {
+      const elastic = sigmaF - (stressMax[i] + stressMin[i]) / 2;
+      const j = i - from;
+      if (elastic > 0) {
+        lnTarget[j] = Math.log((strainMax[i] - strainMin[i]) / 2);
+        lnA[j] = Math.log(elastic / E);
+      } else lnTarget[j] = NaN;
     }
-    return out;
+  },
+
+  // εa
+  valuesInto(_t: MorrowTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+    const { strainMax, strainMin } = loops;
+    for (let i = from; i < to; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
   },
 });

@@ -1,21 +1,7 @@
-import {
-  assertMaterial,
-  DEFAULT_CUTOFF_REVERSALS,
-  DEFAULT_MAX_ITERATIONS,
-  REVERSALS_TABLE_MIN_COUNT,
-  solveTwoTermReversals,
-  TwoTermReversalsTable,
-  type Material,
-  type ReversalsOptions,
-} from '@loopwise/material';
-import { checkColumns, checkLoop, flagNames } from './checkLoop';
-import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
-import type { Loop, LoopColumns } from './Loop';
-
-function flagBits(sMax: number, r: number): number {
-  if (!(sMax > 0)) return 4;
-  return r === Infinity ? 1 : r === 1 ? 2 : 0;
-}
+import type { Material } from '@loopwise/material';
+import type { DamageParameter } from './DamageParameter';
+import type { LoopColumns } from './Loop';
+import { TARGET_ONLY, twoTermParameter, type TwoTermTerms } from './twoTermParameter';
 
 /**
  * Smith-Watson-Topper damage parameter: the product of the peak stress and the strain amplitude
@@ -23,7 +9,8 @@ function flagBits(sMax: number, r: number): number {
  *
  *     σmax·εa = σf'²/E·(2Nf)^(2b) + σf'·εf'·(2Nf)^(b+c)
  *
- * Returns reversals 2Nf (cycles Nf = 2Nf/2). `value` is σmax·εa (stress unit × strain).
+ * Returns reversals 2Nf (cycles Nf = 2Nf/2). `value` is σmax·εa (stress unit × strain), 0 when
+ * σmax ≤ 0.
  * Special cases: σmax ≤ 0 → Infinity with `compressive-no-damage` (documented practice: a loop
  * that stays in compression is taken to do no damage); εa = 0 or beyond the cut-off → Infinity
  * (`below-cutoff`); a parameter at or above its one-reversal value → 1
@@ -40,74 +27,32 @@ function flagBits(sMax: number, r: number): number {
  * smithWatsonTopper.reversalsToFailure(aisi4340, { stressMax: 800, stressMin: -400, strainMax: 0.006, strainMin: -0.004 })
  * // returns { reversals: 8250.04..., value: 4, flags: [] }
  */
-export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = Object.freeze({
+export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = twoTermParameter({
   name: 'smithWatsonTopper' as const,
   label: 'Smith-Watson-Topper',
-  valueUnit: 'stress*strain' as const,
+  valueUnit: 'stress*strain',
+  varies: TARGET_ONLY,
+  special: { reversals: Infinity, bit: 4 }, // compressive-no-damage: σmax ≤ 0
 
-  reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
-    assertMaterial(material);
-    const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
-    checkLoop(sMax, sMin, eMax, eMin, undefined);
-    const ea = (eMax - eMin) / 2;
-    const { sigmaF, E, b, c, epsilonF } = material;
-    const r = sMax > 0
-      ? solveTwoTermReversals(
-          2 * Math.log(sigmaF) - Math.log(E), 2 * b, Math.log(sigmaF * epsilonF), b + c, Math.log(sMax * ea),
-          options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
-        )
-      : Infinity;
-    return { reversals: r, value: sMax * ea, flags: flagNames(flagBits(sMax, r), DAMAGE_FLAG_BITS) };
+  // σmax·εa = σf'²/E·x^(2b) + σf'·εf'·x^(b+c)
+  terms(m: Material): TwoTermTerms {
+    return { lnA: 2 * Math.log(m.sigmaF) - Math.log(m.E), p: 2 * m.b, lnB: Math.log(m.sigmaF * m.epsilonF), q: m.b + m.c };
   },
 
-  reversalsToFailureInto(
-    material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
-  ): Float64Array {
-    assertMaterial(material);
-    const count = checkColumns(loops, out, flags);
-    const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
-    const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-    const { sigmaF, E, b, c, epsilonF } = material;
-    const lnA = 2 * Math.log(sigmaF) - Math.log(E);
-    const p = 2 * b;
-    const lnB = Math.log(sigmaF * epsilonF);
-    const q = b + c;
-    const { stressMax, stressMin, strainMax, strainMin } = loops;
-    if (count < REVERSALS_TABLE_MIN_COUNT) {
-      for (let i = 0; i < count; i++) {
-        const sMax = stressMax[i];
-        const eMax = strainMax[i];
-        const eMin = strainMin[i];
-        checkLoop(sMax, stressMin[i], eMax, eMin, i);
-        const r = sMax > 0 ? solveTwoTermReversals(lnA, p, lnB, q, Math.log((sMax * (eMax - eMin)) / 2), cutoff, maxIt) : Infinity;
-        out[i] = r;
-        if (flags !== undefined) flags[i] = flagBits(sMax, r);
-      }
-      return out;
-    }
-    // Many loops: check them all and find the range of σmax·εa, then solve from a table start.
-    let yMin = Infinity;
-    let yMax = 0;
-    for (let i = 0; i < count; i++) {
+  targetsInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array): void {
+    const { stressMax, strainMax, strainMin } = loops;
+    for (let i = from; i < to; i++) {
       const sMax = stressMax[i];
-      const eMax = strainMax[i];
-      const eMin = strainMin[i];
-      checkLoop(sMax, stressMin[i], eMax, eMin, i);
-      if (sMax > 0) {
-        const y = (sMax * (eMax - eMin)) / 2;
-        if (y > 0 && y < yMin) yMin = y;
-        if (y > yMax) yMax = y;
-      }
+      lnTarget[i - from] = sMax > 0 ? Math.log((sMax * (strainMax[i] - strainMin[i])) / 2) : NaN;
     }
-    const table = new TwoTermReversalsTable(lnA, p, lnB, q, {
-      cutoffReversals: cutoff, maxIterations: maxIt, lnTargetMin: Math.log(yMin), lnTargetMax: Math.log(yMax),
-    });
-    for (let i = 0; i < count; i++) {
+  },
+
+  // σmax·εa, 0 when σmax ≤ 0
+  valuesInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+    const { stressMax, strainMax, strainMin } = loops;
+    for (let i = from; i < to; i++) {
       const sMax = stressMax[i];
-      const r = sMax > 0 ? table.solve(Math.log((sMax * (strainMax[i] - strainMin[i])) / 2)) : Infinity;
-      out[i] = r;
-      if (flags !== undefined) flags[i] = flagBits(sMax, r);
+      out[i] = sMax > 0 ? (sMax * (strainMax[i] - strainMin[i])) / 2 : 0;
     }
-    return out;
   },
 });

@@ -1,18 +1,9 @@
-import {
-  assertMaterial,
-  DEFAULT_CUTOFF_REVERSALS,
-  DEFAULT_MAX_ITERATIONS,
-  REVERSALS_TABLE_MIN_COUNT,
-  solveTwoTermReversals,
-  TwoTermReversalsTable,
-  type Material,
-  type ReversalsOptions,
-} from '@loopwise/material';
-import { checkColumns, checkLoop, flagNames } from './checkLoop';
-import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
+import type { Material } from '@loopwise/material';
+import type { DamageParameter } from './DamageParameter';
 import { estimateWalkerGamma } from './estimateWalkerGamma';
-import type { Loop, LoopColumns } from './Loop';
+import type { LoopColumns } from './Loop';
 import { MeanStressError } from './MeanStressError';
+import { TARGET_ONLY, twoTermParameter, type TwoTermTerms } from './twoTermParameter';
 
 /** Options of {@link createWalker}. */
 export interface WalkerOptions {
@@ -43,36 +34,11 @@ function checkGamma(gamma: unknown): void {
   }
 }
 
-/** Internal constants of one material and γ, in the log form of the Walker strain-life equation. */
-interface WalkerTerms {
-  k: number; // (1 − γ)/γ
-  lnA: number;
-  p: number;
-  lnB: number;
-  q: number;
-}
-
-function terms(material: Material, gamma: number): WalkerTerms {
-  const k = (1 - gamma) / gamma;
-  const lnSigmaF = Math.log(material.sigmaF);
-  return {
-    k,
-    lnA: lnSigmaF / gamma - Math.log(material.E),
-    p: material.b / gamma,
-    lnB: k * lnSigmaF + Math.log(material.epsilonF),
-    q: material.b * k + material.c,
-  };
-}
-
-function walkerReversals(t: WalkerTerms, sMax: number, ea: number, cutoff: number, maxIt: number): number {
-  if (t.k === 0) return solveTwoTermReversals(t.lnA, t.p, t.lnB, t.q, Math.log(ea), cutoff, maxIt);
-  if (!(sMax > 0)) return Infinity;
-  return solveTwoTermReversals(t.lnA, t.p, t.lnB, t.q, t.k * Math.log(sMax) + Math.log(ea), cutoff, maxIt);
-}
-
-function flagBits(t: WalkerTerms, sMax: number, r: number): number {
-  if (t.k !== 0 && !(sMax > 0)) return 4;
-  return r === Infinity ? 1 : r === 1 ? 2 : 0;
+/** The constants of one material and γ, in the log form of the Walker strain-life equation. */
+interface WalkerTerms extends TwoTermTerms {
+  readonly k: number; // (1 − γ)/γ
+  readonly gamma: number;
+  readonly E: number;
 }
 
 /**
@@ -103,80 +69,48 @@ function flagBits(t: WalkerTerms, sMax: number, r: number): number {
 export function createWalker(options: WalkerOptions): DamageParameter<'walker'> {
   const gammaOption = options.gamma;
   checkGamma(gammaOption);
-  return Object.freeze({
+  return twoTermParameter({
     name: 'walker' as const,
     label: gammaOption === 'steel-from-Su' ? 'Walker (gamma from Su, steel)' : `Walker (gamma = ${gammaOption})`,
-    valueUnit: 'stress' as const,
+    valueUnit: 'stress',
+    varies: TARGET_ONLY,
+    special: { reversals: Infinity, bit: 4 }, // compressive-no-damage: σmax ≤ 0 and γ < 1
 
-    reversalsToFailure(material: Material, loop: Loop, opts: ReversalsOptions = {}): DamageResult {
-      assertMaterial(material);
-      const { stressMax: sMax, stressMin: sMin, strainMax: eMax, strainMin: eMin } = loop;
-      checkLoop(sMax, sMin, eMax, eMin, undefined);
-      const gamma = resolveGamma(gammaOption, material);
-      const t = terms(material, gamma);
-      const ea = (eMax - eMin) / 2;
-      const r = walkerReversals(
-        t, sMax, ea, opts.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, opts.maxIterations ?? DEFAULT_MAX_ITERATIONS,
-      );
-      const value = t.k === 0 ? material.E * ea : sMax > 0 ? Math.pow(sMax, 1 - gamma) * Math.pow(material.E * ea, gamma) : 0;
-      return { reversals: r, value, flags: flagNames(flagBits(t, sMax, r), DAMAGE_FLAG_BITS) };
+    // σmax^k·εa = σf'^(1/γ)/E·x^(b/γ) + σf'^k·εf'·x^(b·k + c),  k = (1 − γ)/γ
+    terms(m: Material): WalkerTerms {
+      const gamma = resolveGamma(gammaOption, m);
+      const k = (1 - gamma) / gamma;
+      const lnSigmaF = Math.log(m.sigmaF);
+      return {
+        lnA: lnSigmaF / gamma - Math.log(m.E),
+        p: m.b / gamma,
+        lnB: k * lnSigmaF + Math.log(m.epsilonF),
+        q: m.b * k + m.c,
+        k,
+        gamma,
+        E: m.E,
+      };
     },
 
-    reversalsToFailureInto(
-      material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, opts: ReversalsOptions = {},
-    ): Float64Array {
-      assertMaterial(material);
-      const count = checkColumns(loops, out, flags);
-      const t = terms(material, resolveGamma(gammaOption, material));
-      const cutoff = opts.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
-      const maxIt = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-      const { stressMax, stressMin, strainMax, strainMin } = loops;
-      if (count < REVERSALS_TABLE_MIN_COUNT) {
-        for (let i = 0; i < count; i++) {
-          const sMax = stressMax[i];
-          const eMax = strainMax[i];
-          const eMin = strainMin[i];
-          checkLoop(sMax, stressMin[i], eMax, eMin, i);
-          const r = walkerReversals(t, sMax, (eMax - eMin) / 2, cutoff, maxIt);
-          out[i] = r;
-          if (flags !== undefined) flags[i] = flagBits(t, sMax, r);
-        }
-        return out;
-      }
-      // Many loops: check them all and bound ln Y = k·ln σmax + ln εa by the ranges of σmax and
-      // εa (k ≥ 0), then solve from a table start.
+    targetsInto(t: WalkerTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array): void {
+      const { stressMax, strainMax, strainMin } = loops;
       const k = t.k;
-      let sLo = Infinity;
-      let sHi = 0;
-      let eLo = Infinity;
-      let eHi = 0;
-      for (let i = 0; i < count; i++) {
+      for (let i = from; i < to; i++) {
+        const lnEa = Math.log((strainMax[i] - strainMin[i]) / 2);
         const sMax = stressMax[i];
-        const eMax = strainMax[i];
-        const eMin = strainMin[i];
-        checkLoop(sMax, stressMin[i], eMax, eMin, i);
-        if (k === 0 || sMax > 0) {
-          const ea = (eMax - eMin) / 2;
-          if (ea > 0 && ea < eLo) eLo = ea;
-          if (ea > eHi) eHi = ea;
-          if (sMax > 0 && sMax < sLo) sLo = sMax;
-          if (sMax > sHi) sHi = sMax;
-        }
+        lnTarget[i - from] = k === 0 ? lnEa : sMax > 0 ? k * Math.log(sMax) + lnEa : NaN;
       }
-      const table = new TwoTermReversalsTable(t.lnA, t.p, t.lnB, t.q, {
-        cutoffReversals: cutoff,
-        maxIterations: maxIt,
-        lnTargetMin: k === 0 ? Math.log(eLo) : k * Math.log(sLo) + Math.log(eLo),
-        lnTargetMax: k === 0 ? Math.log(eHi) : k * Math.log(sHi) + Math.log(eHi),
-      });
-      for (let i = 0; i < count; i++) {
-        const sMax = stressMax[i];
+    },
+
+    // σmax^(1−γ)·(E·εa)^γ; E·εa at γ = 1; 0 when σmax ≤ 0 and γ < 1
+    valuesInto(t: WalkerTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+      const { stressMax, strainMax, strainMin } = loops;
+      const { k, gamma, E } = t;
+      for (let i = from; i < to; i++) {
         const ea = (strainMax[i] - strainMin[i]) / 2;
-        const r = k === 0 ? table.solve(Math.log(ea)) : sMax > 0 ? table.solve(k * Math.log(sMax) + Math.log(ea)) : Infinity;
-        out[i] = r;
-        if (flags !== undefined) flags[i] = flagBits(t, sMax, r);
+        const sMax = stressMax[i];
+        out[i] = k === 0 ? E * ea : sMax > 0 ? Math.pow(sMax, 1 - gamma) * Math.pow(E * ea, gamma) : 0;
       }
-      return out;
     },
   });
 }
