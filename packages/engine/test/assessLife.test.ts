@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { assessLife, EngineError, LifeSession } from '@loopwise/engine';
 import { MaterialError } from '@loopwise/material';
+import { DEFAULT_TRACKER_TOLERANCE } from '@loopwise/notch';
 import { checkProperty } from '../../../test/property';
 import { aisi4340, bisectLog, neuberRangeByBisection, reversalsByBisection, sae1045 } from './support';
 
@@ -78,14 +79,14 @@ describe('assessLife(history, job)', () => {
     const elastic = { ...sae1045, K: 1e12, n: 0.2, warnings: undefined, name: 'elastic SAE 1045 (K′ made huge for the test)' };
     delete (elastic as { warnings?: unknown }).warnings;
     // Solve error may put two damages out of order by a little: each life is solved to 1e-10
-    // relative (docs/material.md, "Solving for reversals") from a local stress solved to the job's
-    // tolerance, 1e-12 relative by default (packages/engine/README.md). That stress error moves ε
-    // by at most 1/n' times as much, σmax·εa by (1 + 1/n') times, and a life by at most
-    // 1/min(|b|, |c|) times the relative error of its damage parameter.
+    // relative (docs/material.md, "Solving for reversals") from local σ and ε solved to the job's
+    // tolerance, by default the tracker's DEFAULT_TRACKER_TOLERANCE (1e-10 relative on each, see
+    // the tolerance option of LifeJob). Taking a loop's εa to be within it too, σmax·εa is within
+    // twice it, and a life moves by at most 1/min(|b|, |c|) times the relative error of its
+    // damage parameter.
     const LIFE_SOLVE_TOLERANCE = 1e-10;
-    const NOTCH_SOLVE_TOLERANCE = 1e-12;
-    const n = Math.min(sae1045.n, elastic.n);
-    const lifeError = LIFE_SOLVE_TOLERANCE + (NOTCH_SOLVE_TOLERANCE * (1 + 1 / n)) / Math.min(-sae1045.b, -sae1045.c);
+    const NOTCH_SOLVE_TOLERANCE = DEFAULT_TRACKER_TOLERANCE;
+    const lifeError = LIFE_SOLVE_TOLERANCE + (2 * NOTCH_SOLVE_TOLERANCE) / Math.min(-sae1045.b, -sae1045.c);
     const slack = (1 - lifeError) / (1 + lifeError);
     checkProperty(
       'monotone in scale',

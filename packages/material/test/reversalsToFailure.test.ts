@@ -56,13 +56,17 @@ describe('reversalsToFailure(material, strainAmplitude, options?)', () => {
     );
   });
 
-  it('is monotone: a larger amplitude never gives more reversals', () => {
+  it('is monotone: a larger amplitude never gives more reversals (to the solve tolerance)', () => {
+    // The solve converges to 1e-10 relative (README, docs/material.md "Solving for reversals"), so
+    // two lives in the true order can come out in the other order by up to (1 + tol) / (1 - tol).
+    const LIFE_SOLVE_TOLERANCE = 1e-10;
+    const slack = (1 + LIFE_SOLVE_TOLERANCE) / (1 - LIFE_SOLVE_TOLERANCE);
     checkProperty(
       'monotone in amplitude',
       fc.property(realisticMaterial, fc.double({ min: -5, max: 0, noNaN: true }), fc.double({ min: 1e-9, max: 1, noNaN: true }), (mat, lg, dlg) => {
         const lower = reversalsToFailure(mat, 10 ** lg).reversals;
         const higher = reversalsToFailure(mat, 10 ** (lg + dlg)).reversals;
-        expect(higher).toBeLessThanOrEqual(lower);
+        expect(higher).toBeLessThanOrEqual(lower * slack);
       }),
       { numRuns: 500 },
     );
