@@ -38,7 +38,7 @@ Model:
   --hardness <HB>          or from Brinell hardness (Roessle-Fatemi)
   --kt <x> | --kf <x>      stress concentration (nominal stress or load channels); default 1
   --rule <r>               neuber (default), glinka or linear
-  --correction <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
+  --mean-stress <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
   --gate <x>               gate range in the channel's unit; or --gate-fraction <f> [--full-scale <x>]
   --one-off                the history does not repeat (open loops count as half cycles)
   --scatter-factor <x>     design life = life / x (default 1)
@@ -55,7 +55,7 @@ Outputs (written atomically; an input file is never overwritten):
 
 Examples:
   loopwise assess fillet.csv --column strain_ue --quantity strain --unit microstrain --material "SAE 1045" --service "60 s"
-  loopwise assess loads.csv --column 2 --quantity load --mpa-per-unit 4.2 --kt 2.3 --material steel.json --correction all
+  loopwise assess loads.csv --column 2 --quantity load --mpa-per-unit 4.2 --kt 2.3 --material steel.json --mean-stress all
   loopwise assess --job axle-job.json --html-out axle.html`,
 
   count: `loopwise count: rainflow cycles of a channel

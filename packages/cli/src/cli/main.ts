@@ -59,7 +59,7 @@ const MODEL = {
   kt: { type: 'string' },
   kf: { type: 'string' },
   rule: { type: 'string' },
-  correction: { type: 'string' },
+  'mean-stress': { type: 'string' },
   'walker-gamma': { type: 'string' },
   'one-off': { type: 'boolean' },
   'scatter-factor': { type: 'string' },
@@ -204,10 +204,10 @@ function jobFromFlags(values: Record<string, unknown>, positionals: string[], co
       : su !== undefined
         ? { estimate: { method: 'uniform-material-law', SuMPa: su } }
         : { estimate: { method: 'hardness', hardnessHB: hb as number } };
-  const correction = oneOf(values, 'correction', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'] as const) ?? 'smithWatsonTopper';
+  const meanStress = oneOf(values, 'mean-stress', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'] as const) ?? 'smithWatsonTopper';
   const job: CliJob = {
     material: resolveMaterial(spec, process.cwd(), '--material'),
-    meanStress: correction,
+    meanStress,
     scatterFactor: num(values, 'scatter-factor') ?? 1,
     repeating: !values['one-off'],
     channels: channelsOf(values),
@@ -425,8 +425,8 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   if (values['matrix-out']) outs.push([values['matrix-out'] as string, JSON.stringify(matrix.toJSON()) + '\n']);
   if (table) {
     const c = table.columns();
-    const lines = ['range,mean,from,to,count,start_sample,end_sample,close_sample'];
-    for (let i = 0; i < c.range.length; i++) lines.push([c.range[i], c.mean[i], c.from[i], c.to[i], c.count[i], c.startIndex[i], c.endIndex[i], c.closeIndex[i]].join(','));
+    const lines = ['range,mean,from,to,count,start_sample,turn_sample,close_sample'];
+    for (let i = 0; i < c.range.length; i++) lines.push([c.range[i], c.mean[i], c.from[i], c.to[i], c.count[i], c.startIndex[i], c.turnIndex[i], c.closeIndex[i]].join(','));
     outs.push([values['cycles-out'] as string, lines.join('\n') + '\n']);
   }
   for (const [p, content] of outs) writeOutputAtomic(p, content, inputs);

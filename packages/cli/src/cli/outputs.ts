@@ -9,7 +9,7 @@ export const JSON_REPORT_VERSION = 1;
 /** One row of the results table: a channel under one correction. */
 export interface ResultRow {
   channel: string;
-  correction: string;
+  meanStress: string;
   damagePerRepeat: number;
   repeats: number;
   designRepeats: number;
@@ -22,11 +22,11 @@ export interface ResultRow {
 export function resultRows(results: ChannelResult[]): ResultRow[] {
   const rows: ResultRow[] = [];
   for (const r of results) {
-    const list = r.corrections ?? [{ correction: r.report.damage.meanStress, damagePerRepeat: r.report.damage.perRepeat, life: r.report.life }];
+    const list = r.corrections ?? [{ meanStress: r.report.damage.meanStress, damagePerRepeat: r.report.damage.perRepeat, life: r.report.life }];
     for (const c of list) {
       rows.push({
         channel: r.name,
-        correction: c.correction,
+        meanStress: c.meanStress,
         damagePerRepeat: c.damagePerRepeat,
         repeats: c.life.repeats,
         designRepeats: c.life.designRepeats,
@@ -132,7 +132,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
   for (const r of results) {
     const rep: LifeReport = r.report;
     const life = rep.life;
-    out.push(`channel ${r.name} (${r.unit}), correction ${rep.damage.meanStress}`);
+    out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
     out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.life as number)} ${life.unit}` : ''}`);
     if (life.scatterFactor > 1) {
@@ -157,7 +157,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     for (const w of rep.warnings) out.push(`  warning: ${w.message}`);
     if (r.corrections) {
       out.push('  all corrections');
-      for (const c of r.corrections) out.push(`    ${c.correction.padEnd(18)} ${formatNumber(c.life.repeats)} repeats`);
+      for (const c of r.corrections) out.push(`    ${c.meanStress.padEnd(18)} ${formatNumber(c.life.repeats)} repeats`);
     }
     out.push('');
   }

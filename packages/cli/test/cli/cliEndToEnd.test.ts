@@ -56,12 +56,12 @@ describe('loopwise (built binary)', () => {
     expect(Math.abs(c.results[0].damagePerRepeat / report.results[0].damagePerRepeat - 1)).toBeLessThan(1e-12);
   });
 
-  test('loopwise assess --correction all lists every correction in one results table, for two channels', () => {
-    const r = run(['assess', 'rig.csv', '--column', '2', '--column', '3', '--quantity', 'stress', '--kt', '1.8', '--material', 'SAE 1045', '--correction', 'all', '--json']);
+  test('loopwise assess --mean-stress all lists every correction in one results table, for two channels', () => {
+    const r = run(['assess', 'rig.csv', '--column', '2', '--column', '3', '--quantity', 'stress', '--kt', '1.8', '--material', 'SAE 1045', '--mean-stress', 'all', '--json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.stdout);
     expect(j.results.length).toBe(10);
-    expect(new Set(j.results.map((x: { correction: string }) => x.correction)).size).toBe(5);
+    expect(new Set(j.results.map((x: { meanStress: string }) => x.meanStress)).size).toBe(5);
   });
 
   test('loopwise count writes a matrix that sums to the cycle count', () => {
@@ -127,7 +127,7 @@ describe('loopwise bad input: exit 2, one line naming where, no partial output',
     ['a material failing validation', (d) => { writeFileSync(join(d, 'neg.json'), JSON.stringify({ E: -1, sigmaF: 900, b: -0.09, epsilonF: 0.3, c: -0.5, K: 1200, n: 0.2 })); return ['assess', 'rig.csv', '--column', '2', '--material', 'neg.json']; }, /E/],
     ['an unknown option', () => ['assess', 'rig.csv', '--colour', 'red'], /--colour/],
     ['an unknown command', () => ['asses', 'rig.csv'], /unknown command "asses"/],
-    ['an unknown correction', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--correction', 'goodman'], /--correction: one of none, morrow/],
+    ['an unknown correction', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--mean-stress', 'goodman'], /--mean-stress: one of none, morrow/],
     ['an unknown notch rule', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--kt', '2', '--rule', 'elastic'], /--rule: one of neuber, glinka, linear/],
   ];
   for (const [name, args, message] of cases) {
