@@ -71,7 +71,7 @@ export interface LifeJob {
   tolerance?: number;
 }
 
-/** A job after checking and defaulting (internal). */
+/** A job after checking and defaulting: what {@link resolveLifeJob} returns and every stage reads. */
 export interface ResolvedJob {
   material: Material;
   input: NotchInputKind;
@@ -116,7 +116,10 @@ function positive(field: string, v: unknown, fallback: number): number {
   return x;
 }
 
-/** Checks a job and fills in its defaults; every error names the job field (internal). */
+/**
+ * Checks a job and fills in its defaults; every error names the job field. Useful to validate a
+ * job (a job file, a form) before any history is read.
+ */
 export function resolveLifeJob(job: LifeJob): ResolvedJob {
   if (job === null || typeof job !== 'object') bad('job', job, 'must be an object');
   if (job.material === undefined || job.material === null) bad('material', job.material, 'is required');

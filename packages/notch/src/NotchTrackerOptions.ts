@@ -59,7 +59,7 @@ export interface NotchTrackerOptions {
   maxIterations?: number;
 }
 
-/** Options after checking and defaulting (internal). */
+/** Tracker options after checking and defaulting (what a tracker's `options` holds). */
 export interface ResolvedTrackerOptions {
   material: Material;
   input: NotchInputKind;

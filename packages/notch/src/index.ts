@@ -12,7 +12,13 @@ export { NotchStateError } from './NotchStateError';
 export { NotchValidityError } from './NotchValidityError';
 export { ReversalTable, type ReversalColumns, type ReversalRow } from './ReversalTable';
 export { LoopTable, type LoopColumns, type LoopRow } from './LoopTable';
-export { DEFAULT_TRACKER_TOLERANCE, type NotchInputKind, type NotchRuleName, type NotchTrackerOptions } from './NotchTrackerOptions';
+export {
+  DEFAULT_TRACKER_TOLERANCE,
+  type NotchInputKind,
+  type NotchRuleName,
+  type NotchTrackerOptions,
+  type ResolvedTrackerOptions,
+} from './NotchTrackerOptions';
 export { NotchTracker, type NotchTrackerState, type NotchTrackResult } from './NotchTracker';
 export { trackNotch } from './trackNotch';
 export { trackNotchRepeating, type NotchRepeatingResult } from './trackNotchRepeating';
