@@ -1,4 +1,5 @@
-import { CompensatedSum, checkCount, checkIndex, checkLength, checkLife, checkRange, recordDamage } from './checks';
+import { NeumaierAdder } from '@loopwise/base';
+import { checkCount, checkIndex, checkLength, checkLife, checkRange, recordDamage } from './checks';
 import { cutoffLimit, type CutoffPolicy } from './CutoffPolicy';
 import { lifeFromDamage, type LifeEstimate, type LifeOptions } from './lifeFromDamage';
 import { MinerError } from './MinerError';
@@ -87,7 +88,7 @@ export class MinerSum {
   readonly cutoffCycles: number;
   private cols: Float64Array[];
   private n = 0;
-  private total = new CompensatedSum();
+  private total = new NeumaierAdder();
   private missingRange = -1; // first row without a range, or -1
 
   constructor(options: MinerSumOptions = {}) {
@@ -204,7 +205,7 @@ export class MinerSum {
 
   /** Total damage D of the records (per repeat of the history they came from). 0 when empty. */
   damage(): number {
-    return this.total.value();
+    return this.total.valueOf();
   }
 
   /** The records as typed-array views, see {@link MinerColumns}. */
@@ -250,8 +251,8 @@ export class MinerSum {
     }
     const limit = this.cutoffCycles;
     const [count, life, damage] = this.cols;
-    const removed = new CompensatedSum();
-    const near = new CompensatedSum();
+    const removed = new NeumaierAdder();
+    const near = new NeumaierAdder();
     let removedCount = 0;
     const low = limit / nearFactor;
     for (let i = 0; i < this.n; i++) {
@@ -264,11 +265,11 @@ export class MinerSum {
       } else if (f >= low) near.add(damage[i]);
     }
     const total = this.damage();
-    const nearCutoffDamage = near.value();
+    const nearCutoffDamage = near.valueOf();
     return {
       cutoffCycles: limit,
       removedCount,
-      removedDamage: removed.value(),
+      removedDamage: removed.valueOf(),
       nearFactor,
       nearCutoffDamage,
       nearCutoffShare: total > 0 ? nearCutoffDamage / total : 0,
@@ -278,7 +279,7 @@ export class MinerSum {
   /** Removes every record. */
   clear(): void {
     this.n = 0;
-    this.total = new CompensatedSum();
+    this.total = new NeumaierAdder();
     this.missingRange = -1;
   }
 

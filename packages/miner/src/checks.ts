@@ -48,21 +48,6 @@ export function checkEdges(edges: ArrayLike<number>, field: string): Float64Arra
   return e;
 }
 
-/** Bin of v among strictly increasing edges: edges[i] <= v < edges[i+1], the last bin also its upper edge; -1 outside. */
-export function binIndex(edges: Float64Array, v: number): number {
-  const last = edges.length - 1;
-  if (!(v >= edges[0] && v <= edges[last])) return -1;
-  if (v === edges[last]) return last - 1;
-  let lo = 0;
-  let hi = last;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >>> 1;
-    if (edges[mid] <= v) lo = mid;
-    else hi = mid;
-  }
-  return lo;
-}
-
 /** Column lengths must agree. */
 export function checkLength(column: ArrayLike<number> | undefined, length: number, field: string): void {
   if (column === undefined || column === null || typeof column.length !== 'number') {
@@ -70,23 +55,5 @@ export function checkLength(column: ArrayLike<number> | undefined, length: numbe
   }
   if (column.length !== length) {
     throw new MinerError('invalid-argument', `${field}.length`, column.length, `must equal the other columns' length ${length}`);
-  }
-}
-
-/**
- * Neumaier's compensated sum (A. Neumaier, Z. Angew. Math. Mech. 54 (1974) 39-51): keeps the
- * rounding error of a long sum of small damages. Falls back to the plain sum if it overflows.
- */
-export class CompensatedSum {
-  private s = 0;
-  private c = 0;
-  add(x: number): void {
-    const t = this.s + x;
-    if (Math.abs(this.s) >= Math.abs(x)) this.c += this.s - t + x;
-    else this.c += x - t + this.s;
-    this.s = t;
-  }
-  value(): number {
-    return Number.isFinite(this.s) ? this.s + this.c : this.s;
   }
 }

@@ -1,4 +1,5 @@
-import { CompensatedSum, binIndex, checkEdges, checkLength, checkRange } from './checks';
+import { binIndex, NeumaierAdder } from '@loopwise/base';
+import { checkEdges, checkLength, checkRange } from './checks';
 import { checkDamage } from './LoopDamageColumns';
 import { MinerError } from './MinerError';
 import { MinerSum } from './MinerSum';
@@ -57,8 +58,8 @@ export function damageByRangeBin(
   const e = checkEdges(edges, 'edges');
   const bins = e.length - 1;
   const damage = new Float64Array(bins);
-  const outside = new CompensatedSum();
-  const total = new CompensatedSum();
+  const outside = new NeumaierAdder();
+  const total = new NeumaierAdder();
   for (let i = 0; i < n; i++) {
     const d = cols.damage[i];
     const r = cols.range[i];
@@ -69,9 +70,9 @@ export function damageByRangeBin(
     if (j < 0) outside.add(d);
     else damage[j] += d;
   }
-  const t = total.value();
+  const t = total.valueOf();
   const share = new Float64Array(bins);
   if (t > 0) for (let j = 0; j < bins; j++) share[j] = damage[j] / t;
-  const o = outside.value();
+  const o = outside.valueOf();
   return { edges: e, damage, share, outsideDamage: o, outsideShare: t > 0 ? o / t : 0, total: t };
 }

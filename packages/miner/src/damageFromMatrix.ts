@@ -1,4 +1,5 @@
-import { CompensatedSum, checkCount, checkEdges, checkLife, recordDamage } from './checks';
+import { NeumaierAdder } from '@loopwise/base';
+import { checkCount, checkEdges, checkLife, recordDamage } from './checks';
 import { cutoffLimit, type CutoffPolicy } from './CutoffPolicy';
 import { MinerError } from './MinerError';
 
@@ -113,7 +114,7 @@ export function damageFromMatrix(matrix: RangeMeanCounts, life: MatrixLife, opti
     throw new MinerError('invalid-argument', 'life', life, 'must be a function (range, mean) => cycles or { cyclesToFailureInto }');
   }
   const binDamage = new Float64Array(size);
-  const total = new CompensatedSum();
+  const total = new NeumaierAdder();
   for (let b = 0; b < size; b++) {
     const c = counts[b];
     checkCount(c, 'counts', b);
@@ -127,5 +128,5 @@ export function damageFromMatrix(matrix: RangeMeanCounts, life: MatrixLife, opti
     outsideCount = matrix.outside.count;
     checkCount(outsideCount, 'outside.count');
   }
-  return { damage: total.value(), binDamage, cyclesToFailure: nf, rangeCentres, meanCentres, outsideCount };
+  return { damage: total.valueOf(), binDamage, cyclesToFailure: nf, rangeCentres, meanCentres, outsideCount };
 }

@@ -1,3 +1,4 @@
+import { NeumaierAdder } from '@loopwise/base';
 import { checkCount, checkLength, checkRange } from './checks';
 import { MinerError } from './MinerError';
 import { MinerSum } from './MinerSum';
@@ -17,9 +18,12 @@ export interface EquivalentRangeOptions {
  *     ΔS_eq = (Σ n_i · ΔS_i^m / N_ref)^(1/m)
  *
  * in the unit of the ranges (C cancels). From a {@link MinerSum}'s own records (count and range;
- * every record needs a range) or from `{ count, range }` columns. The records' cycles to failure
+ * every record needs a range) or from `{ count, range }` columns, such as the `columns()` of a
+ * rainflow cycle table of `@loopwise/rainflow`. This is loopwise's one definition of the
+ * damage-equivalent range. The records' cycles to failure
  * and the sum's cut-off are not used: the equivalence is on the single-slope line, over all
- * cycles. Computed relative to the largest range so that large m or ranges do not overflow.
+ * cycles. Computed relative to the largest range so that large m or ranges do not overflow, and
+ * summed with Neumaier's compensation (`NeumaierAdder` of `@loopwise/base`).
  *
  * References: the equivalent constant-amplitude range of the Palmgren-Miner rule, e.g.
  * EN 1993-1-9:2005, annex A (ΔσE,2 at 2·10^6 cycles); M. A. Miner, J. Appl. Mech. 12 (1945)
@@ -63,7 +67,7 @@ export function equivalentRange(
     if (count[i] > 0 && range[i] > top) top = range[i];
   }
   if (top === 0) return 0;
-  let s = 0;
-  for (let i = 0; i < count.length; i++) if (count[i] > 0) s += count[i] * Math.pow(range[i] / top, slope);
-  return top * Math.pow(s / referenceCount, 1 / slope);
+  const s = new NeumaierAdder();
+  for (let i = 0; i < count.length; i++) if (count[i] > 0) s.add(count[i] * Math.pow(range[i] / top, slope));
+  return top * Math.pow(s.valueOf() / referenceCount, 1 / slope);
 }

@@ -1,4 +1,5 @@
-import { CompensatedSum, checkCount, checkLife, checkLength, recordDamage } from './checks';
+import { NeumaierAdder } from '@loopwise/base';
+import { checkCount, checkLife, checkLength, recordDamage } from './checks';
 import { cutoffLimit } from './CutoffPolicy';
 import type { DamageOptions } from './damageInto';
 
@@ -8,7 +9,8 @@ import type { DamageOptions } from './damageInto';
  *     D = Σ n_i / Nf_i          (terms with Nf_i above the cut-off life are 0)
  *
  * with `counts` in cycles (1 full, 0.5 half) and `cyclesToFailure` in cycles Nf (not reversals).
- * Summed with Neumaier's compensation so that millions of small terms keep their accuracy.
+ * Summed with Neumaier's compensation (`NeumaierAdder` of `@loopwise/base`, Neumaier 1974) so
+ * that millions of small terms keep their accuracy.
  *
  * References: A. Palmgren, Z. VDI 68 (1924) 339-341; M. A. Miner, J. Appl. Mech. 12 (1945)
  * A159-A164.
@@ -25,7 +27,7 @@ export function sumDamage(counts: ArrayLike<number>, cyclesToFailure: ArrayLike<
   const n = counts.length;
   checkLength(cyclesToFailure, n, 'cyclesToFailure');
   const limit = cutoffLimit(options.cutoff);
-  const s = new CompensatedSum();
+  const s = new NeumaierAdder();
   for (let i = 0; i < n; i++) {
     const c = counts[i];
     const f = cyclesToFailure[i];
@@ -33,5 +35,5 @@ export function sumDamage(counts: ArrayLike<number>, cyclesToFailure: ArrayLike<
     checkLife(f, 'cyclesToFailure', i);
     s.add(recordDamage(c, f, limit, i));
   }
-  return s.value();
+  return s.valueOf();
 }
