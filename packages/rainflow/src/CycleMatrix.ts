@@ -61,34 +61,51 @@ export class OutsideBinsError extends BinError {
  * Shared machinery of the range-mean and from-to matrices: a dense Float64Array of counts over
  * two binned coordinates, an explicit tally of cycles outside the bins, exact serialisation,
  * addition of matrices with identical bins and scaling by a repeat count.
+ *
+ * Honest views: the edges are the matrix's own (validated once) and are handed out as copies, so
+ * writing them cannot change how the matrix bins; `counts` is this matrix's own storage, shared
+ * with nothing (writing it changes this matrix only).
  */
 export abstract class CycleMatrix implements CycleSink {
   abstract readonly kind: CycleMatrixKind;
-  readonly rowEdges: Float64Array;
-  readonly columnEdges: Float64Array;
-  /** Row-major counts, rows × columns. */
+  /** Row-major counts, rows × columns: this matrix's own storage (no other matrix shares it). */
   readonly counts: Float64Array;
   readonly outsidePolicy: OutsidePolicy;
+  private readonly re: Float64Array;
+  private readonly ce: Float64Array;
+  private readonly nc: number;
   private readonly names: readonly [string, string];
   protected tally: OutsideTally = { count: 0, rowMin: Infinity, rowMax: -Infinity, columnMin: Infinity, columnMax: -Infinity };
 
   protected constructor(rows: BinSpec | Float64Array, columns: BinSpec | Float64Array, outside: OutsidePolicy, names: [string, string]) {
-    this.rowEdges = rows instanceof Float64Array ? rows : binEdges(rows, names[0]);
-    this.columnEdges = columns instanceof Float64Array ? columns : binEdges(columns, names[1]);
+    // edges given as an array are validated and copied like any other: the matrix owns its bins
+    this.re = binEdges(rows instanceof Float64Array ? { edges: rows } : rows, names[0]);
+    this.ce = binEdges(columns instanceof Float64Array ? { edges: columns } : columns, names[1]);
     if (outside !== 'tally' && outside !== 'error') throw new InvalidOptionError('outside', outside, "must be 'tally' or 'error'");
     this.outsidePolicy = outside;
     this.names = names;
-    this.counts = new Float64Array((this.rowEdges.length - 1) * (this.columnEdges.length - 1));
+    this.nc = this.ce.length - 1;
+    this.counts = new Float64Array((this.re.length - 1) * this.nc);
+  }
+
+  /** Edges of the row bins (range, or from): a copy, so read it once. */
+  get rowEdges(): Float64Array {
+    return this.re.slice();
+  }
+
+  /** Edges of the column bins (mean, or to): a copy, so read it once. */
+  get columnEdges(): Float64Array {
+    return this.ce.slice();
   }
 
   /** Number of row bins. */
   get rows(): number {
-    return this.rowEdges.length - 1;
+    return this.re.length - 1;
   }
 
   /** Number of column bins. */
   get columns(): number {
-    return this.columnEdges.length - 1;
+    return this.nc;
   }
 
   /** Cycles outside the bins (a copy). */
@@ -98,7 +115,7 @@ export abstract class CycleMatrix implements CycleSink {
 
   /** Count in bin (row, column). */
   at(row: number, column: number): number {
-    return this.counts[row * this.columns + column];
+    return this.counts[row * this.nc + column];
   }
 
   /** Sum of the counts inside the bins. */
@@ -121,8 +138,8 @@ export abstract class CycleMatrix implements CycleSink {
   addCycle(from: number, to: number, count: number, startIndex: number, _turnIndex = startIndex, _closeIndex = _turnIndex): void {
     const r = this.rowValue(from, to);
     const c = this.columnValue(from, to);
-    const i = binIndex(this.rowEdges, r);
-    const j = binIndex(this.columnEdges, c);
+    const i = binIndex(this.re, r);
+    const j = binIndex(this.ce, c);
     if (i < 0 || j < 0) {
       if (this.outsidePolicy === 'error') {
         throw i < 0 ? new OutsideBinsError(this.names[0], r, r, c, startIndex) : new OutsideBinsError(this.names[1], c, r, c, startIndex);
@@ -135,14 +152,14 @@ export abstract class CycleMatrix implements CycleSink {
       if (c > t.columnMax) t.columnMax = c;
       return;
     }
-    this.counts[i * this.columns + j] += count;
+    this.counts[i * this.nc + j] += count;
   }
 
   /** Adds another matrix of the same kind and identical bins (two recordings into one). */
   add(other: CycleMatrix): this {
     if (other.kind !== this.kind) throw new BinError('kind', other.kind, `cannot add a ${other.kind} matrix to a ${this.kind} matrix`);
-    sameEdges(this.rowEdges, other.rowEdges, 'rowEdges');
-    sameEdges(this.columnEdges, other.columnEdges, 'columnEdges');
+    sameEdges(this.re, other.re, 'rowEdges');
+    sameEdges(this.ce, other.ce, 'columnEdges');
     for (let i = 0; i < this.counts.length; i++) this.counts[i] += other.counts[i];
     const t = this.tally;
     const o = other.tally;
@@ -168,8 +185,8 @@ export abstract class CycleMatrix implements CycleSink {
       format: 'loopwise-cycle-matrix',
       version: 1,
       kind: this.kind,
-      rowEdges: encodeArray(this.rowEdges),
-      columnEdges: encodeArray(this.columnEdges),
+      rowEdges: encodeArray(this.re),
+      columnEdges: encodeArray(this.ce),
       counts: encodeArray(this.counts),
       outside: {
         count: encodeNumber(t.count),

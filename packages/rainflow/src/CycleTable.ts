@@ -1,4 +1,4 @@
-import { decodeArray, encodeArray, grownCapacity, widenColumn, type EncodedNumber } from '@loopwise/base';
+import { decodeArray, encodeArray, grownCapacity, RowShare, widenColumn, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
 import { CounterStateError, RangeOverflowError } from './errors';
 
@@ -39,6 +39,12 @@ const NAMES = ['range', 'mean', 'from', 'to', 'count', 'startIndex', 'turnIndex'
  * Growable struct-of-arrays table of cycles: one Float64Array per column, doubled when full, so
  * millions of cycles cost eight doubles each and no objects. Implements {@link CycleSink}.
  * Sample indices are stored as doubles (exact up to 2^53).
+ *
+ * Honest views: a table's columns are its own. {@link snapshot} makes a table of the rows so far
+ * without a copy; the two share storage (base's `RowShare`) until one of them hands out its
+ * columns or writes a row where the other can see it, and that one first moves its rows to
+ * storage of its own (the last one on the storage keeps it). Writing through one table's columns
+ * therefore never changes another table.
  */
 export class CycleTable implements CycleSink {
   // one field per column (not an array of columns) keeps every store monomorphic and direct
@@ -51,7 +57,11 @@ export class CycleTable implements CycleSink {
   private cTurn: Float64Array;
   private cClose: Float64Array;
   private n = 0;
+  // A snapshot's capacity is its row count, so its first add moves it off the shared storage;
+  // the table it was taken from keeps its capacity: it only ever adds rows beyond every
+  // snapshot's rows, which they do not see.
   private capacity: number;
+  private share: RowShare | null = null;
 
   constructor(initialCapacity = 1024) {
     const cap = Math.max(16, initialCapacity | 0);
@@ -95,9 +105,10 @@ export class CycleTable implements CycleSink {
     this.cClose[i] = closeIndex;
   }
 
-  /** Appends every row of another table, in its order. */
+  /** Appends every row of another table (or of this one), in its order. */
   appendTable(other: CycleTable): void {
-    for (let i = 0; i < other.n; i++) this.copyRow(other, i);
+    const m = other.n;
+    for (let i = 0; i < m; i++) this.copyRow(other, i);
   }
 
   /** Copies row `i` of `other` to the end of this table. */
@@ -114,13 +125,53 @@ export class CycleTable implements CycleSink {
     this.cClose[j] = other.cClose[i];
   }
 
-  /** Removes every row. */
+  /** Removes every row (a snapshot taken before keeps them). */
   clear(): void {
+    if (this.share !== null) {
+      // rows added after a clear would overwrite rows a snapshot still shows
+      if (this.share.leave()) this.capacity = 0;
+      this.share = null;
+    }
     this.n = 0;
   }
 
-  /** Views of the columns, trimmed to the row count (no copy; valid until the next add). */
+  /**
+   * A table of the rows so far, in O(1): it shares this table's storage until one of the two
+   * hands out its columns, clears or adds a row the other could see; that one then moves its
+   * rows to storage of its own first. Rows added to this table later are not in the snapshot.
+   *
+   * @example
+   * const t = new CycleTable();
+   * t.addCycle(0, 2, 0.5, 0, 1, 1);
+   * const s = t.snapshot();
+   * t.columns().range.fill(-1);
+   * s.row(0).range; // returns 2
+   */
+  snapshot(): CycleTable {
+    const t = new CycleTable(0);
+    t.cRange = this.cRange;
+    t.cMean = this.cMean;
+    t.cFrom = this.cFrom;
+    t.cTo = this.cTo;
+    t.cCount = this.cCount;
+    t.cStart = this.cStart;
+    t.cTurn = this.cTurn;
+    t.cClose = this.cClose;
+    t.n = this.n;
+    t.capacity = this.n;
+    if (this.share === null) this.share = new RowShare(1);
+    this.share.join();
+    t.share = this.share;
+    return t;
+  }
+
+  /**
+   * Views of the columns, trimmed to the row count (no copy; valid until the next add). They
+   * are this table's alone: writing them changes this table and no other (a table that shares
+   * its storage with a snapshot moves its rows to storage of its own first).
+   */
   columns(): CycleColumns {
+    if (this.share !== null) this.own();
     const n = this.n;
     return {
       range: this.cRange.subarray(0, n),
@@ -188,9 +239,24 @@ export class CycleTable implements CycleSink {
     return t;
   }
 
+  /** Leaves a shared storage, moving the rows to storage of its own when another table still uses it. */
+  private own(): void {
+    const share = this.share as RowShare;
+    this.share = null;
+    if (share.leave()) this.moveRows(Math.max(16, this.n));
+  }
+
   /** Moves the rows to columns with room for at least `needed` rows (doubling). */
   private grow(needed: number): void {
-    const cap = grownCapacity(this.capacity, needed);
+    if (this.share !== null) {
+      // the rows move to new storage anyway: this table leaves the shared one without a second copy
+      this.share.leave();
+      this.share = null;
+    }
+    this.moveRows(grownCapacity(this.capacity, needed));
+  }
+
+  private moveRows(cap: number): void {
     const n = this.n;
     this.cRange = widenColumn(this.cRange, n, cap);
     this.cMean = widenColumn(this.cMean, n, cap);

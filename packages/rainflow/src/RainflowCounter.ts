@@ -134,9 +134,15 @@ export class RainflowCounter {
     return this.filter.nextIndex;
   }
 
-  /** The counter's own cycle table (null when a sink was given). Rows so far, in closing order. */
+  /**
+   * The cycles counted so far, in closing order, as a snapshot of the counter's table (null when
+   * a sink was given): a table of its own, made without a copy (see {@link CycleTable.snapshot}),
+   * so writing it never changes the counter's later results, and later rows are not in it.
+   * After `finish()` the table belongs to the result and this throws `CounterStateError`.
+   */
   get cycles(): CycleTable | null {
-    return this.table;
+    this.assertOpen();
+    return this.table === null ? null : this.table.snapshot();
   }
 
   /** Number of turning points on the residue stack now (pending extreme excluded). */
@@ -161,8 +167,9 @@ export class RainflowCounter {
   }
 
   /**
-   * Ends the history: applies the residue policy, returns the result. The counter cannot be
-   * pushed afterwards (serialise it before finishing to resume later).
+   * Ends the history: applies the residue policy, returns the result. The counter's table is
+   * handed to the result (no copy); the counter cannot be used afterwards (serialise it before
+   * finishing to resume later).
    */
   finish(): RainflowResult {
     this.assertOpen();
