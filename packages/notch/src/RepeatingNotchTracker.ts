@@ -1,7 +1,7 @@
 import type { LoopTable } from './LoopTable';
 import { NotchStateError } from './NotchStateError';
 import type { NotchTrackerOptions, ResolvedTrackerOptions } from './NotchTrackerOptions';
-import type { ReversalTable } from './ReversalTable';
+import { ReversalTable } from './ReversalTable';
 import { TrackerCore, type LargestPoint, type TrackerSnapshot } from './TrackerCore';
 
 /** Points pushed before the tables are sized for the whole history (from the rate seen so far). */
@@ -66,7 +66,10 @@ export interface RepeatingTrackResult {
    * rows form one run, so `loopFrom` may be below `first.loopTo`.
    */
   stabilised: PassRows | null;
-  /** Sample index of the first point of largest |value| (after offset), or -1. */
+  /**
+   * Sample index of the first point of largest |value| (after offset); -1 when no point exceeds
+   * |initial| in magnitude (the tracker notes the largest point only above it) or nothing was pushed.
+   */
   largestIndex: number;
   /** True when the stabilised pass reused the first pass from the largest |value| on. */
   reusedFirstPass: boolean;
@@ -145,6 +148,7 @@ export class RepeatingNotchTracker {
   private whole = false;
   private reused = false;
   private secondPoints = 0;
+  private finished = false;
 
   constructor(options: RepeatingTrackerOptions) {
     const { expectedPoints, ...rest } = options ?? ({} as RepeatingTrackerOptions);
@@ -165,7 +169,7 @@ export class RepeatingNotchTracker {
    * ±Infinity throws NotchSampleError naming the sample index.
    */
   push(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, to = values.length, repeats = 1): this {
-    if (this.stage !== 'first') throw new NotchStateError('push', 'the first pass has ended; use pushAgain or finish');
+    if (this.stage !== 'first') throw new NotchStateError('push', this.finished ? 'the tracking has finished' : 'the first pass has ended; use pushAgain or finish');
     if (to <= from) return this;
     checkRepeats(repeats);
     if (this.firstIndex < 0) this.firstIndex = indices === null ? this.base : indices[from];
@@ -204,6 +208,7 @@ export class RepeatingNotchTracker {
    */
   pushAgain(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, to = values.length, repeats = 1): this {
     if (this.stage === 'first') throw new NotchStateError('pushAgain', 'call endFirstPass first');
+    if (this.finished) throw new NotchStateError('pushAgain', 'the tracking has finished');
     if (this.stage === 'done' || to <= from) return this;
     checkRepeats(repeats);
     this.secondMade = true;
@@ -262,6 +267,7 @@ export class RepeatingNotchTracker {
    * second pass was begun but did not reach the point it needs.
    */
   finish(): RepeatingTrackResult {
+    if (this.finished) throw new NotchStateError('finish', 'the tracking has finished: its tables were handed over');
     const c = this.core;
     if (this.stage === 'second' && !this.secondMade && this.lastIndex >= 0) {
       throw new NotchStateError('pushAgain', `the second pass needs the points up to sample ${this.endFirstPass().throughIndex}; none were pushed`);
@@ -277,7 +283,8 @@ export class RepeatingNotchTracker {
     if (this.stage === 'second' && (!this.whole || this.secondPoints < this.firstPoints)) {
       throw new NotchStateError('pushAgain', `the second pass needs the points up to sample ${this.endFirstPass().throughIndex}; it ended before`);
     }
-    const endResidue = this.reused ? (this.firstResidue as ReversalTable) : c.residue();
+    // the stabilised residue is its own table even when it equals the first pass's
+    const endResidue = this.reused ? copyOf(this.firstResidue as ReversalTable) : c.residue();
     const r = c.takeResult(16, 16);
     const offset = c.loopRows - r.loops.length;
     const first: PassRows = { loopFrom: 0, loopTo: this.firstLoopEnd, reversalFrom: 0, reversalTo: this.firstReversalEnd, residue: this.firstResidue as ReversalTable };
@@ -301,6 +308,7 @@ export class RepeatingNotchTracker {
     firstBeyondIndex: number,
   ): RepeatingTrackResult {
     this.stage = 'done';
+    this.finished = true;
     return { loops, loopRowOffset, reversals, first, stabilised, largestIndex, reusedFirstPass, points: this.firstPoints, beyondStrainLimit, firstBeyondIndex };
   }
 
@@ -354,6 +362,12 @@ export class RepeatingNotchTracker {
       this.base += to - from;
     } else this.core.pushIndexed(values, indices, from, to);
   }
+}
+
+function copyOf(t: ReversalTable): ReversalTable {
+  const out = new ReversalTable(t.length);
+  out.appendRange(t, 0, t.length);
+  return out;
 }
 
 function checkRepeats(repeats: number): void {

@@ -64,21 +64,14 @@ export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrac
     beyondStrainLimit: r.beyondStrainLimit,
     firstBeyondIndex: r.firstBeyondIndex,
   });
-  // the residue tables are the result's own too
-  const stabilisedResidue = s.residue === r.first.residue ? copyOf(s.residue) : s.residue;
   return {
     first: pass(firstReversals, firstLoops, r.first.residue),
-    stabilised: pass(stabilisedReversals, stabilisedLoops, stabilisedResidue),
+    stabilised: pass(stabilisedReversals, stabilisedLoops, s.residue),
     largestIndex: r.largestIndex >= 0 || n === 0 ? r.largestIndex : largestMagnitudeIndex(block, t.options.offset),
     reusedFirstPass: r.reusedFirstPass,
   };
 }
 
-function copyOf(t: ReversalTable): ReversalTable {
-  const out = new ReversalTable(t.length);
-  out.appendRange(t, 0, t.length);
-  return out;
-}
 
 /** Index of the first sample of largest |value + offset| (when no sample exceeds |initial|, the tracker notes none). */
 function largestMagnitudeIndex(block: ArrayLike<number>, offset: number): number {

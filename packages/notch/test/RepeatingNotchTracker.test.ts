@@ -631,3 +631,32 @@ describe('trackNotchRepeating(block, options): honest tables', () => {
     );
   });
 });
+
+describe('RepeatingNotchTracker: after finish()', () => {
+  it('finish() twice, push and pushAgain after finish() throw NotchStateError', () => {
+    const t = new RepeatingNotchTracker(opts);
+    t.push([300, -240, 360, -100]);
+    t.endFirstPass();
+    t.pushAgain([300, -240, 360, -100]);
+    t.finish();
+    expect(() => t.finish()).toThrow(NotchStateError);
+    expect(() => t.pushAgain([300])).toThrow(NotchStateError);
+    expect(() => t.push([300])).toThrow(NotchStateError);
+    const u = new RepeatingNotchTracker(opts).push([300, -240, 360, -100]);
+    u.finish();
+    expect(() => u.finish()).toThrow(NotchStateError);
+  });
+
+  it('finish(): the stabilised residue is a table of its own when the first pass was reused', () => {
+    const t = new RepeatingNotchTracker(opts);
+    t.push([300, -240, 360, -100]);
+    t.endFirstPass();
+    t.pushAgain([300, -240, 360, -100]);
+    const r = t.finish();
+    expect(r.reusedFirstPass).toBe(true);
+    const before = r.stabilised!.residue.toRows();
+    expect(r.first.residue.toRows()).toEqual(before);
+    for (const c of Object.values(r.first.residue.columns())) c.fill(-1);
+    expect(r.stabilised!.residue.toRows()).toEqual(before);
+  });
+});
