@@ -14,6 +14,7 @@ export type MinerErrorCode =
   | 'invalid-cutoff'
   | 'invalid-bins'
   | 'invalid-events'
+  | 'invalid-residue'
   | 'invalid-argument';
 
 /**
@@ -31,7 +32,8 @@ export type MinerErrorCode =
  * non-finite amount of the user's unit per repeat), `invalid-repeats` (zero, negative or
  * non-finite repeats), `invalid-cutoff` (a bad cut-off policy), `invalid-bins` (edges that are
  * not finite and strictly increasing, or a matrix whose counts do not fit its edges),
- * `invalid-events` (bad event starts or ids), `invalid-argument` (anything else, e.g. columns of
+ * `invalid-events` (bad event starts or ids), `invalid-residue` (a residue point's stress or
+ * strain NaN or ±Infinity), `invalid-argument` (anything else, e.g. columns of
  * different lengths or a bad `n`).
  *
  * @example

@@ -1,6 +1,7 @@
 import { NeumaierAdder } from '@loopwise/base';
 import { checkCount, checkIndex, checkLength, checkLife, checkRange, recordDamage } from './checks';
 import { cutoffLimit, type CutoffPolicy } from './CutoffPolicy';
+import { CutoffTally, type CutoffReport } from './CutoffTally';
 import { lifeFromDamage, type LifeEstimate, type LifeOptions } from './lifeFromDamage';
 import { MinerError } from './MinerError';
 
@@ -38,22 +39,6 @@ export interface CycleRecordColumns {
   startIndex: ArrayLike<number>;
   turnIndex: ArrayLike<number>;
   range?: ArrayLike<number>;
-}
-
-/** What the cut-off did, from {@link MinerSum.cutoffReport}. */
-export interface CutoffReport {
-  /** The cut-off life in cycles (Infinity for the `'none'` policy). */
-  readonly cutoffCycles: number;
-  /** Cycles whose finite life lies above the cut-off (they did no damage). */
-  readonly removedCount: number;
-  /** The damage those cycles would have done without the cut-off, Σ count / Nf. */
-  readonly removedDamage: number;
-  /** The factor that defines "near": lives in [cutoffCycles / nearFactor, cutoffCycles]. */
-  readonly nearFactor: number;
-  /** Damage of the cycles whose life is near the cut-off (they damage, but barely survive the cut). */
-  readonly nearCutoffDamage: number;
-  /** nearCutoffDamage / total damage (0 when the total is 0). */
-  readonly nearCutoffShare: number;
 }
 
 const COLS = 6; // count, cyclesToFailure, damage, startIndex, turnIndex, range
@@ -237,7 +222,8 @@ export class MinerSum {
    * above the cut-off (their count and the damage they would have done), and the damage of
    * cycles whose life lies in [cutoffCycles / nearFactor, cutoffCycles] with its share of the
    * total. A large share near the cut-off means the result depends strongly on where the cut-off
-   * is put. For the `'none'` policy everything is 0.
+   * is put. For the `'none'` policy everything is 0. The same count as a {@link CutoffTally} over
+   * this sum's records (the one definition; use the tally for loops that are not kept).
    *
    * @param nearFactor finite number > 1; default 2 (our choice, common practice, no source).
    * @example
@@ -246,34 +232,8 @@ export class MinerSum {
    * sum.cutoffReport().removedDamage; // returns 5e-7
    */
   cutoffReport(nearFactor = 2): CutoffReport {
-    if (!(nearFactor > 1 && nearFactor < Infinity)) {
-      throw new MinerError('invalid-argument', 'nearFactor', nearFactor, 'must be a finite number > 1');
-    }
-    const limit = this.cutoffCycles;
-    const [count, life, damage] = this.cols;
-    const removed = new NeumaierAdder();
-    const near = new NeumaierAdder();
-    let removedCount = 0;
-    const low = limit / nearFactor;
-    for (let i = 0; i < this.n; i++) {
-      const f = life[i];
-      if (f > limit) {
-        if (f < Infinity) {
-          removedCount += count[i];
-          removed.add(count[i] / f);
-        }
-      } else if (f >= low) near.add(damage[i]);
-    }
-    const total = this.damage();
-    const nearCutoffDamage = near.valueOf();
-    return {
-      cutoffCycles: limit,
-      removedCount,
-      removedDamage: removed.valueOf(),
-      nearFactor,
-      nearCutoffDamage,
-      nearCutoffShare: total > 0 ? nearCutoffDamage / total : 0,
-    };
+    const policy: CutoffPolicy = this.cutoffCycles === Infinity ? 'none' : { cycles: this.cutoffCycles };
+    return new CutoffTally(policy, { nearFactor }).addColumns(this.columns()).value();
   }
 
   /** Removes every record. */

@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { LoopwiseError } from '@loopwise/base';
 import {
+  CutoffTally,
   MinerError,
   MinerSum,
   damageByEvent,
@@ -10,6 +11,7 @@ import {
   equivalentRange,
   lifeFromDamage,
   mostDamagingLoops,
+  residueHalfCycles,
   sumDamage,
 } from '@loopwise/miner';
 
@@ -54,6 +56,12 @@ const cases: [string, () => unknown, string, string, unknown][] = [
   ['range bins NaN range', () => damageByRangeBin({ damage: [1], range: [NaN] }, [0, 1]), 'invalid-range', 'range', NaN],
   ['matrix NaN edge', () => damageFromMatrix({ rowEdges: [0, NaN], columnEdges: [0, 1], counts: [1] }, () => 1), 'invalid-bins', 'rowEdges', NaN],
   ['matrix negative count', () => damageFromMatrix({ rowEdges: [0, 1], columnEdges: [0, 1], counts: [-1] }, () => 1), 'invalid-count', 'counts', -1],
+  ['cut-off tally NaN count', () => new CutoffTally({ cycles: 1e6 }).add(NaN, 10), 'invalid-count', 'count', NaN],
+  ['cut-off tally zero life', () => new CutoffTally('none').add(1, 0), 'invalid-life', 'cyclesToFailure', 0],
+  ['cut-off tally near factor 1', () => new CutoffTally('none', { nearFactor: 1 }), 'invalid-argument', 'nearFactor', 1],
+  ['residue NaN stress', () => residueHalfCycles({ index: [0, 1], stress: [0, NaN], strain: [0, 0] }), 'invalid-residue', 'stress', NaN],
+  ['residue Infinity strain', () => residueHalfCycles({ index: [0, 1], stress: [0, 1], strain: [0, Infinity] }), 'invalid-residue', 'strain', Infinity],
+  ['residue fractional index', () => residueHalfCycles({ index: [0.5], stress: [0], strain: [0] }), 'invalid-index', 'index', 0.5],
   ['equivalent range NaN slope', () => equivalentRange({ count: [], range: [] }, { slope: NaN, referenceCount: 1 }), 'invalid-argument', 'slope', NaN],
 ];
 
