@@ -1,32 +1,32 @@
+import { describeValue, LoopwiseError } from '@loopwise/base';
+
 /**
  * Thrown when an argument other than the material is out of its domain: a NaN or infinite
- * stress, a negative strain amplitude, fewer than one reversal, a bad estimation input. Names
- * the argument, the value it got, the rule, and for array inputs the index of the element.
+ * stress, a negative strain amplitude, fewer than one reversal, a bad estimation input. A
+ * {@link LoopwiseError} of `@loopwise/base` with code `'invalid-argument'`: `field` names the
+ * argument or option field, `value` is what it got, `rule` the rule it broke, and for array
+ * inputs `index` is the element.
  *
  * @example
  * try { strainAmplitudeAtReversals(material, 0.5); }
- * catch (e) { (e as ArgumentError).argument; }
- * // returns 'reversals'
+ * catch (e) { [(e as ArgumentError).code, (e as ArgumentError).field]; }
+ * // returns ['invalid-argument', 'reversals']
  */
-export class ArgumentError extends Error {
-  /** Stable machine-readable code. */
-  readonly code = 'invalid-argument' as const;
-  /** Name of the argument or option field, e.g. `"strainAmplitude"`. */
-  readonly argument: string;
-  /** The value it got. */
-  readonly value: unknown;
-  /** The rule it broke. */
+export class ArgumentError extends LoopwiseError {
+  declare readonly code: 'invalid-argument';
+  /** The rule it broke, e.g. `"must be a finite number >= 0"`. */
   readonly rule: string;
-  /** Index of the element for array inputs, otherwise `undefined`. */
-  readonly index: number | undefined;
 
-  constructor(argument: string, value: unknown, rule: string, index?: number) {
-    const where = index === undefined ? argument : `${argument}[${index}]`;
-    super(`invalid argument: ${where} = ${Object.is(value, -0) ? '-0' : String(value)} (${rule})`);
+  /**
+   * @param field the argument or option field, e.g. `"strainAmplitude"`
+   * @param value the value it got
+   * @param rule the rule it broke
+   * @param index the element, for array inputs
+   */
+  constructor(field: string, value: unknown, rule: string, index?: number) {
+    const where = index === undefined ? field : `${field}[${index}]`;
+    super('invalid-argument', field, value, `invalid argument: ${where} = ${describeValue(value)} (${rule})`, index);
     this.name = 'ArgumentError';
-    this.argument = argument;
-    this.value = value;
     this.rule = rule;
-    this.index = index;
   }
 }

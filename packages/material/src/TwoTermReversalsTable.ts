@@ -129,9 +129,9 @@ export class TwoTermReversalsTable {
     if (!(cutoff >= 1)) throw new ArgumentError('cutoffReversals', cutoff, 'must be a number >= 1');
     const minShift = options.minShift ?? 0;
     const maxShift = options.maxShift ?? 0;
-    if (!(Number.isFinite(minShift) && Number.isFinite(maxShift) && minShift <= maxShift)) {
-      throw new ArgumentError('minShift, maxShift', `${minShift}, ${maxShift}`, 'must be finite with minShift <= maxShift');
-    }
+    if (!Number.isFinite(minShift)) throw new ArgumentError('minShift', minShift, 'must be a finite number');
+    if (!Number.isFinite(maxShift)) throw new ArgumentError('maxShift', maxShift, 'must be a finite number');
+    if (!(minShift <= maxShift)) throw new ArgumentError('maxShift', maxShift, `must be >= minShift (${minShift})`);
     this.lnA = lnA;
     this.p = p;
     this.lnB = lnB;
@@ -154,9 +154,8 @@ export class TwoTermReversalsTable {
     let uLast = wLo;
     const yMin = options.lnTargetMin ?? -Infinity;
     const yMax = options.lnTargetMax ?? Infinity;
-    if (yMin !== yMin || yMax !== yMax) {
-      throw new ArgumentError('lnTargetMin, lnTargetMax', `${yMin}, ${yMax}`, 'must not be NaN');
-    }
+    if (yMin !== yMin) throw new ArgumentError('lnTargetMin', yMin, 'must not be NaN');
+    if (yMax !== yMax) throw new ArgumentError('lnTargetMax', yMax, 'must not be NaN');
     if (yMin > tLo && yMin < tHi) {
       tLo = yMin;
       uFirst = nodeRoot(lnA, p, lnB, q, c, yMin, bracketLow(lnA, p, lnB, q, yMin));

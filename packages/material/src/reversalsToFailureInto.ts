@@ -44,9 +44,9 @@ export function reversalsToFailureInto(
 ): Float64Array {
   assertMaterial(material);
   const count = strainAmplitudes.length;
-  if (out.length < count) throw new ArgumentError('out', out.length, `length must be >= ${count}`);
+  if (out.length < count) throw new ArgumentError('out.length', out.length, `length must be >= ${count}`);
   if (flags !== undefined && flags.length < count) {
-    throw new ArgumentError('flags', flags.length, `length must be >= ${count}`);
+    throw new ArgumentError('flags.length', flags.length, `length must be >= ${count}`);
   }
   const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
   const maxIterations = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;

@@ -80,7 +80,13 @@ export function solveTwoTermReversals(
   const ub = -b / q;
   const lo = ua > ub ? ua : ub;
   if (lo !== lo) {
-    throw new ArgumentError('lnA, lnB, lnTarget', `${lnA}, ${lnB}, ${lnTarget}`, 'must not be NaN');
+    // one of the logs is NaN, or lnTarget is an infinity that another equal infinity cancels
+    const field = lnA !== lnA ? 'lnA' : lnB !== lnB ? 'lnB' : 'lnTarget';
+    throw new ArgumentError(
+      field,
+      field === 'lnA' ? lnA : field === 'lnB' ? lnB : lnTarget,
+      'must not be NaN, and lnA − lnTarget and lnB − lnTarget must be numbers',
+    );
   }
   if (lo >= lnCutoff) return Infinity;
   const ha = ua - Math.LN2 / p;
