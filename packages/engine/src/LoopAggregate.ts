@@ -1,3 +1,4 @@
+import { NeumaierAdder } from '@loopwise/base';
 import type { LoopColumns } from '@loopwise/notch';
 import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
@@ -11,8 +12,7 @@ import type { WorstLoop } from './LifeReport';
  * Memory is O(bins + worst loops), whatever the number of loops.
  */
 export class LoopAggregate {
-  damage = 0;
-  private comp = 0;
+  private readonly sum = new NeumaierAdder();
   loops = 0;
   firstReversal = 0;
   removedCount = 0;
@@ -46,9 +46,7 @@ export class LoopAggregate {
         if (nf < Infinity) this.removedDamage += d;
         d = 0;
       } else if (nf * 2 > limit) this.nearDamage += d;
-      const t = this.damage + d;
-      this.comp += Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage;
-      this.damage = t;
+      this.sum.add(d);
       const start = cols.startIndex[i] < 0 ? 0 : cols.startIndex[i];
       const turn = cols.turnIndex[i] < 0 ? 0 : cols.turnIndex[i];
       this.bin(start, d / 2);
@@ -59,15 +57,12 @@ export class LoopAggregate {
 
   /** The compensated damage total. */
   total(): number {
-    return this.damage + this.comp;
+    return this.sum.valueOf();
   }
 
   /** Adds another aggregate (a later part of the same pass). */
   merge(other: LoopAggregate): void {
-    const d = other.total();
-    const t = this.damage + d;
-    this.comp += Math.abs(this.damage) >= Math.abs(d) ? this.damage - t + d : d - t + this.damage;
-    this.damage = t;
+    this.sum.add(other.total());
     this.loops += other.loops;
     this.firstReversal += other.firstReversal;
     this.removedCount += other.removedCount;
