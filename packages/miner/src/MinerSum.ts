@@ -66,7 +66,7 @@ const COLS = 6; // count, cyclesToFailure, damage, startIndex, turnIndex, range
  * sum.addCycles(1, 1000, 10, 20);       // a full cycle of life 1000 cycles, reversals at samples 10 and 20
  * sum.addReversals(0.5, 2000, 20, 35);  // a half cycle of life 2000 reversals (1000 cycles)
  * sum.damage();                          // returns 0.0015
- * sum.life({ unit: { label: 'h', perRepeat: 2 } }).life; // returns 1333.33... (hours)
+ * sum.life({ unit: { label: 'h', perRepeat: 2 } }).service; // returns 1333.33... (hours)
  */
 export class MinerSum {
   /** The cut-off life in cycles; Infinity for the `'none'` policy. */

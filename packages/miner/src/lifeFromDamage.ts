@@ -17,11 +17,15 @@ export interface LifeOptions {
   criticalDamage?: number;
   /** Scatter factor j ≥ 1 on life: design life = mean life / j. Default 1 (no factor). */
   scatterFactor?: number;
-  /** Unit of service per repeat; when given, the result also has life in that unit. Default none. */
+  /** Unit of service per repeat; when given, the result also has `service` and `designService` in it. Default none. */
   unit?: ServiceUnit;
 }
 
-/** Result of {@link lifeFromDamage}. */
+/**
+ * Result of {@link lifeFromDamage}: life in repeats of the history (mean and design), and with a
+ * service unit also in that unit (`service`, `designService`), so that a report reads
+ * `report.life.repeats` and `report.life.service` (in `report.life.unit`).
+ */
 export interface LifeEstimate {
   /** Damage per repeat D (input echoed). */
   readonly damagePerRepeat: number;
@@ -33,14 +37,14 @@ export interface LifeEstimate {
   readonly repeats: number;
   /** Design life in repeats, repeats / scatterFactor. */
   readonly designRepeats: number;
-  /** Unit label, when a unit was given. */
+  /** Mean life in the service unit, repeats · perRepeat (e.g. hours), when a unit was given. */
+  readonly service?: number;
+  /** Design life in the service unit, designRepeats · perRepeat, when a unit was given. */
+  readonly designService?: number;
+  /** Label of the service unit (e.g. `'h'`), when a unit was given. */
   readonly unit?: string;
-  /** Amount of the unit per repeat, when a unit was given. */
+  /** Amount of the service unit one repeat stands for, when a unit was given. */
   readonly perRepeat?: number;
-  /** Mean life in the unit, repeats · perRepeat. */
-  readonly life?: number;
-  /** Design life in the unit, designRepeats · perRepeat. */
-  readonly designLife?: number;
 }
 
 /**
@@ -68,7 +72,7 @@ export interface LifeEstimate {
  * 6th ed., VDMA, 2012; A. Fatemi and L. Yang, "Cumulative fatigue damage and life prediction
  * theories", Int. J. Fatigue 20 (1998) 9-34, doi:10.1016/S0142-1123(97)00081-9.
  *
- * Special cases: D = 0 gives Infinity repeats (and Infinity life); never NaN.
+ * Special cases: D = 0 gives Infinity repeats (and Infinity service); never NaN.
  *
  * @throws {MinerError} `invalid-argument` for D NaN, ±Infinity or negative; `invalid-critical-damage`
  *   for Dcrit ≤ 0 or not finite; `invalid-scatter-factor` for j < 1 or not finite;
@@ -76,7 +80,7 @@ export interface LifeEstimate {
  * @example
  * lifeFromDamage(0.002, { criticalDamage: 0.5, scatterFactor: 2, unit: { label: 'h', perRepeat: 0.25 } });
  * // returns { damagePerRepeat: 0.002, criticalDamage: 0.5, scatterFactor: 2, repeats: 250,
- * //           designRepeats: 125, unit: 'h', perRepeat: 0.25, life: 62.5, designLife: 31.25 }
+ * //           designRepeats: 125, service: 62.5, designService: 31.25, unit: 'h', perRepeat: 0.25 }
  */
 export function lifeFromDamage(damagePerRepeat: number, options: LifeOptions = {}): LifeEstimate {
   if (!(damagePerRepeat >= 0 && damagePerRepeat < Infinity)) {
@@ -103,5 +107,5 @@ export function lifeFromDamage(damagePerRepeat: number, options: LifeOptions = {
   if (!(perRepeat > 0 && perRepeat < Infinity)) {
     throw new MinerError('invalid-amount', 'unit.perRepeat', perRepeat, 'must be a finite number > 0 (the duration of one repeat)');
   }
-  return { ...base, unit: unit.label, perRepeat, life: repeats * perRepeat, designLife: designRepeats * perRepeat };
+  return { ...base, service: repeats * perRepeat, designService: designRepeats * perRepeat, unit: unit.label, perRepeat };
 }

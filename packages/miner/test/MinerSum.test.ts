@@ -43,13 +43,13 @@ describe('new MinerSum() constant amplitude', () => {
     sum.addCycles(1, 1000, 10, 20);
     sum.addReversals(0.5, 2000, 20, 35);
     expect(sum.damage()).toBeCloseTo(0.0015, 15);
-    expect(sum.life({ unit: { label: 'h', perRepeat: 2 } }).life).toBeCloseTo(4000 / 3, 9);
+    expect(sum.life({ unit: { label: 'h', perRepeat: 2 } }).service).toBeCloseTo(4000 / 3, 9);
     expect(sum.length).toBe(2);
   });
 
   test('an empty sum has damage 0 and infinite life, never NaN', () => {
     const life = new MinerSum().life({ scatterFactor: 3, unit: { label: 'km', perRepeat: 12 } });
-    expect(life).toMatchObject({ damagePerRepeat: 0, repeats: Infinity, designRepeats: Infinity, life: Infinity, designLife: Infinity });
+    expect(life).toMatchObject({ damagePerRepeat: 0, repeats: Infinity, designRepeats: Infinity, service: Infinity, designService: Infinity });
   });
 });
 
@@ -162,7 +162,7 @@ describe('MinerSum.life(options)', () => {
     expect(life.repeats).toBeCloseTo(1500, 10);
     expect(life.designRepeats).toBeCloseTo(375, 10);
     expect(life.unit).toBe('laps');
-    expect(life.designLife).toBeCloseTo(375, 10);
+    expect(life.designService).toBeCloseTo(375, 10);
     expect(sum.life({ scatterFactor: 4 }).designRepeats).toBeCloseTo(1250, 10);
   });
 

@@ -9,10 +9,10 @@ describe('lifeFromDamage(damagePerRepeat, {criticalDamage?, scatterFactor?, unit
       scatterFactor: 2,
       repeats: 250,
       designRepeats: 125,
+      service: 62.5,
+      designService: 31.25,
       unit: 'h',
       perRepeat: 0.25,
-      life: 62.5,
-      designLife: 31.25,
     });
   });
 
@@ -29,7 +29,7 @@ describe('lifeFromDamage(damagePerRepeat, {criticalDamage?, scatterFactor?, unit
   });
 
   test('D = 0 gives infinite life and a tiny D a finite or infinite one, never NaN', () => {
-    expect(lifeFromDamage(0, { scatterFactor: 3, unit: { label: 'flights', perRepeat: 1 } })).toMatchObject({ repeats: Infinity, designLife: Infinity });
+    expect(lifeFromDamage(0, { scatterFactor: 3, unit: { label: 'flights', perRepeat: 1 } })).toMatchObject({ repeats: Infinity, service: Infinity, designService: Infinity });
     expect(lifeFromDamage(5e-324).repeats).toBe(Infinity);
     expect(Object.values(lifeFromDamage(5e-324, { unit: { label: 'km', perRepeat: 1e-300 } })).some((v) => Number.isNaN(v))).toBe(false);
   });

@@ -31,8 +31,9 @@ describe('README example', () => {
     };
     // values computed by the code itself when the example was written (regression, not external)
     expect(life.repeats).toBeCloseTo(14535.6, 1);
-    expect(life.life).toBeCloseTo(121.1, 1);
-    expect(life.designLife).toBeCloseTo(40.4, 1);
+    expect(life.service).toBeCloseTo(121.1, 1);
+    expect(life.designService).toBeCloseTo(40.4, 1);
+    expect(life.unit).toBe('h');
     expect(timeline.length).toBe(3);
     expect(timeline.reduce((a, b) => a + b, 0)).toBeCloseTo(sum.damage(), 18);
     expect(Array.from(worst)).toEqual([4, 3]);
