@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { cyclicStrain, cyclicStress, handbookSteels, reversalsToFailure } from '@loopwise/material';
 
-// The README example, executed so the documentation cannot drift from the code.
+// The README example's values at full precision (the README's js block itself is executed by the
+// workspace's test/readme-examples.test.ts, which checks its rounded values).
 describe('README example', () => {
   it('SAE 1045 at epsilon_a = 0.004 gives 43494.70... reversals and a consistent cyclic stress', () => {
     const sae1045 = handbookSteels.find((m) => m.name === 'SAE 1045 (hot rolled and normalized)')!;
