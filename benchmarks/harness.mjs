@@ -52,6 +52,38 @@ export function powCalls(bases, exponent) {
   return s;
 }
 
+/** Calls of the compute-bound baseline. Pinned. */
+export const EXP_CALLS = 1e7;
+
+/**
+ * PINNED ARGUMENTS of the compute-bound baseline: a Weyl sequence u_i = frac(u_(i−1) + g),
+ * g = (√5 − 1)/2, mapped to [−2, 2). Equidistributed, so the mean of exp over them is
+ * (e² − e⁻²)/4 to about 2e-7 at 10^7 calls (the check in {@link expSeconds}); benchmarks/native
+ * builds the same doubles by the same operations.
+ */
+export function expArguments(n = EXP_CALLS) {
+  const g = 0.6180339887498949;
+  const x = new Float64Array(n);
+  let u = 0;
+  for (let i = 0; i < n; i++) {
+    u += g;
+    if (u >= 1) u -= 1;
+    x[i] = 4 * u - 2;
+  }
+  return x;
+}
+
+/**
+ * PINNED BASELINE (compute-bound): Math.exp of every argument, summed. Beside the min/max scan,
+ * which costs what touching memory costs, this costs what arithmetic costs: a stage bound by its
+ * solves (the notch tracker, the pipeline) is compared with it as well.
+ */
+export function expCalls(x) {
+  let s = 0;
+  for (let i = 0; i < x.length; i++) s += Math.exp(x[i]);
+  return s;
+}
+
 /** Seconds for the min/max scan of x, measured now with the pinned warm-up. */
 export function scanSeconds(x) {
   return measure(() => minMaxScan(x));
@@ -60,6 +92,18 @@ export function scanSeconds(x) {
 /** Seconds for bases.length Math.pow calls, measured now with the pinned warm-up. */
 export function powSeconds(bases) {
   return measure(() => powCalls(bases, -0.087));
+}
+
+/**
+ * Seconds for x.length Math.exp calls (x from {@link expArguments}), measured now with the
+ * pinned warm-up; the sum is checked against the mean of exp over [−2, 2) so that the calls
+ * cannot be skipped.
+ */
+export function expSeconds(x) {
+  const seconds = measure(() => expCalls(x));
+  const mean = expCalls(x) / x.length;
+  check(Math.abs(mean / ((Math.E ** 2 - Math.E ** -2) / 4) - 1) < 1e-5, `exp baseline sum is off: mean ${mean}`);
+  return seconds;
 }
 
 /** Throws when a benchmarked result disagrees with its reference: fast and wrong is not fast. */
