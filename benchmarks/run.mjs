@@ -9,7 +9,7 @@ import { fileURLToPath } from 'node:url';
 import * as harness from './harness.mjs';
 
 /** Suites in run order; each is ./suites/<name>.mjs exporting `run(harness)` → rows. */
-const SUITES = ['rainflow', 'mean-stress', 'notch', 'engine', 'ingest', 'cli'];
+const SUITES = ['rainflow', 'mean-stress', 'notch', 'engine', 'native', 'ingest', 'cli'];
 
 const only = process.argv.slice(2);
 const rows = [];
@@ -20,7 +20,8 @@ for (const name of SUITES) {
   const got = await suite.run(harness);
     // a ratio is a cost (lower is better) unless the row says it is a speed-up (higherIsBetter)
   for (const r of got) {
-    const pass = r.target == null ? null : r.higherIsBetter ? r.ratio >= r.target : r.ratio <= r.target;
+    // a figure without a ratio (skipped, with a note) neither passes nor fails
+    const pass = r.target == null || r.ratio == null ? null : r.higherIsBetter ? r.ratio >= r.target : r.ratio <= r.target;
     rows.push({ suite: name, ...r, pass });
   }
   console.error(`suite ${name}: ${got.length} figures in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
@@ -41,6 +42,7 @@ for (const r of rows) {
 }
 const widths = table[0].map((_, c) => Math.max(...table.map((row) => String(row[c]).length)));
 for (const row of table) console.log(row.map((cell, c) => String(cell).padEnd(widths[c])).join('  '));
+for (const r of rows) if (r.note) console.log(`note: ${r.figure}: ${r.note}`);
 
 const out = {
   format: 'loopwise-benchmark-results',
