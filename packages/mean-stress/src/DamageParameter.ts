@@ -52,12 +52,11 @@ export interface DamageParameter<Name extends string = string> {
   /**
    * Typed-array kernel: reversals to failure 2Nf of every loop of `loops` into the caller-owned
    * `out` (returned); optional `flags` gets {@link DAMAGE_FLAG_BITS} per loop. No allocation per
-   * loop. Errors name the loop index.
+   * loop. Every loop is checked before anything is written; errors name the loop index.
    *
    * Method: below `REVERSALS_TABLE_MIN_COUNT` (256) loops, each loop is solved by
    * `solveTwoTermReversals` as in `reversalsToFailure`, with identical results. From 256 loops
-   * on, none, SWT, Walker and modified Morrow first check every loop (a bad loop throws before
-   * anything is written) and find the range of their targets, then build one
+   * on, none, SWT, Walker and modified Morrow find the range of their targets, then build one
    * `TwoTermReversalsTable` of the material's equation (cubic Hermite table of ln 2Nf against the
    * log of the target) and start each loop's Newton iteration from it: the same stopping rule
    * and cap certify the result, which agrees with the scalar function to the solver's

@@ -4,6 +4,28 @@ import { MeanStressError } from './MeanStressError';
 /** Internal: throws MeanStressError('invalid-loop') unless the loop's extremes are finite and ordered. */
 export function checkLoop(sMax: number, sMin: number, eMax: number, eMin: number, index: number | undefined): void {
   if (sMax >= sMin && eMax >= eMin && sMax < Infinity && sMin > -Infinity && eMax < Infinity && eMin > -Infinity) return;
+  throwBadLoop(sMax, sMin, eMax, eMin, index);
+}
+
+/**
+ * Internal: checks loops 0 … count − 1 of columns, naming the index of a bad one. The test is
+ * written out in the loop, and the error built apart, so the loop stays small and inlined.
+ */
+export function checkLoopRows(loops: LoopColumns, count: number): void {
+  const { stressMax, stressMin, strainMax, strainMin } = loops;
+  for (let i = 0; i < count; i++) {
+    const sMax = stressMax[i];
+    const sMin = stressMin[i];
+    const eMax = strainMax[i];
+    const eMin = strainMin[i];
+    if (!(sMax >= sMin && eMax >= eMin && sMax < Infinity && sMin > -Infinity && eMax < Infinity && eMin > -Infinity)) {
+      throwBadLoop(sMax, sMin, eMax, eMin, i);
+    }
+  }
+}
+
+/** The error of a loop that failed the check: the first non-finite field, else the order. */
+function throwBadLoop(sMax: number, sMin: number, eMax: number, eMin: number, index: number | undefined): never {
   const fields = [
     ['stressMax', sMax],
     ['stressMin', sMin],

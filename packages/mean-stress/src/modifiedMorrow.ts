@@ -42,22 +42,21 @@ export const modifiedMorrow: DamageParameter<'modifiedMorrow'> = twoTermParamete
     return { lnA: Math.log(m.sigmaF / m.E), p: m.b, lnB: Math.log(m.epsilonF), q: m.c, sigmaF: m.sigmaF, b: m.b };
   },
 
-  targetsInto(t: ModifiedMorrowTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array, shift: Float64Array): void {
+  targetsInto(t: ModifiedMorrowTerms, loops: LoopColumns, count: number, lnTarget: Float64Array, shift: Float64Array): void {
     const { stressMax, stressMin, strainMax, strainMin } = loops;
     const { sigmaF, b } = t;
-    for (let i = from; i < to; i++) {
+    for (let i = 0; i < count; i++) {
       const elastic = sigmaF - (stressMax[i] + stressMin[i]) / 2;
-      const j = i - from;
       if (elastic > 0) {
-        lnTarget[j] = Math.log((strainMax[i] - strainMin[i]) / 2);
-        shift[j] = Math.log(elastic / sigmaF) / b;
-      } else lnTarget[j] = NaN;
+        lnTarget[i] = Math.log((strainMax[i] - strainMin[i]) / 2);
+        shift[i] = Math.log(elastic / sigmaF) / b;
+      } else lnTarget[i] = NaN;
     }
   },
 
   // εa
-  valuesInto(_t: ModifiedMorrowTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+  valuesInto(_t: ModifiedMorrowTerms, loops: LoopColumns, count: number, out: Float64Array): void {
     const { strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
+    for (let i = 0; i < count; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
   },
 });

@@ -42,22 +42,21 @@ export const morrow: DamageParameter<'morrow'> = twoTermParameter({
     return { lnA: Math.log(m.sigmaF / m.E), p: m.b, lnB: Math.log(m.epsilonF), q: m.c, sigmaF: m.sigmaF, E: m.E };
   },
 
-  targetsInto(t: MorrowTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array, lnA: Float64Array): void {
+  targetsInto(t: MorrowTerms, loops: LoopColumns, count: number, lnTarget: Float64Array, lnA: Float64Array): void {
     const { stressMax, stressMin, strainMax, strainMin } = loops;
     const { sigmaF, E } = t;
-    for (let i = from; i < to; i++) {
+    for (let i = 0; i < count; i++) {
       const elastic = sigmaF - (stressMax[i] + stressMin[i]) / 2;
-      const j = i - from;
       if (elastic > 0) {
-        lnTarget[j] = Math.log((strainMax[i] - strainMin[i]) / 2);
-        lnA[j] = Math.log(elastic / E);
-      } else lnTarget[j] = NaN;
+        lnTarget[i] = Math.log((strainMax[i] - strainMin[i]) / 2);
+        lnA[i] = Math.log(elastic / E);
+      } else lnTarget[i] = NaN;
     }
   },
 
   // εa
-  valuesInto(_t: MorrowTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+  valuesInto(_t: MorrowTerms, loops: LoopColumns, count: number, out: Float64Array): void {
     const { strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
+    for (let i = 0; i < count; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
   },
 });

@@ -32,14 +32,14 @@ export const none: DamageParameter<'none'> = twoTermParameter({
     return { lnA: Math.log(m.sigmaF / m.E), p: m.b, lnB: Math.log(m.epsilonF), q: m.c };
   },
 
-  targetsInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array): void {
+  targetsInto(_t: TwoTermTerms, loops: LoopColumns, count: number, lnTarget: Float64Array): void {
     const { strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) lnTarget[i - from] = Math.log((strainMax[i] - strainMin[i]) / 2);
+    for (let i = 0; i < count; i++) lnTarget[i] = Math.log((strainMax[i] - strainMin[i]) / 2);
   },
 
   // εa
-  valuesInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+  valuesInto(_t: TwoTermTerms, loops: LoopColumns, count: number, out: Float64Array): void {
     const { strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
+    for (let i = 0; i < count; i++) out[i] = (strainMax[i] - strainMin[i]) / 2;
   },
 });

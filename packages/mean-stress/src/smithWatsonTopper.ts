@@ -39,18 +39,18 @@ export const smithWatsonTopper: DamageParameter<'smithWatsonTopper'> = twoTermPa
     return { lnA: 2 * Math.log(m.sigmaF) - Math.log(m.E), p: 2 * m.b, lnB: Math.log(m.sigmaF * m.epsilonF), q: m.b + m.c };
   },
 
-  targetsInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array): void {
+  targetsInto(_t: TwoTermTerms, loops: LoopColumns, count: number, lnTarget: Float64Array): void {
     const { stressMax, strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) {
+    for (let i = 0; i < count; i++) {
       const sMax = stressMax[i];
-      lnTarget[i - from] = sMax > 0 ? Math.log((sMax * (strainMax[i] - strainMin[i])) / 2) : NaN;
+      lnTarget[i] = sMax > 0 ? Math.log((sMax * (strainMax[i] - strainMin[i])) / 2) : NaN;
     }
   },
 
   // σmax·εa, 0 when σmax ≤ 0
-  valuesInto(_t: TwoTermTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+  valuesInto(_t: TwoTermTerms, loops: LoopColumns, count: number, out: Float64Array): void {
     const { stressMax, strainMax, strainMin } = loops;
-    for (let i = from; i < to; i++) {
+    for (let i = 0; i < count; i++) {
       const sMax = stressMax[i];
       out[i] = sMax > 0 ? (sMax * (strainMax[i] - strainMin[i])) / 2 : 0;
     }

@@ -8,7 +8,7 @@ import {
   type Material,
   type ReversalsOptions,
 } from '@loopwise/material';
-import { checkColumns, checkLoop, flagNames } from './checkLoop';
+import { checkColumns, checkLoop, checkLoopRows, flagNames } from './checkLoop';
 import { DAMAGE_FLAG_BITS, type DamageParameter, type DamageResult } from './DamageParameter';
 import type { Loop, LoopColumns } from './Loop';
 import { MeanStressError } from './MeanStressError';
@@ -53,44 +53,35 @@ export interface TwoTermCorrection<Name extends string, T extends TwoTermTerms> 
   /** The constants of the equation for `material` (checked); may throw for a missing property. */
   terms(material: Material): T;
   /**
-   * Writes, for the checked loops `from` … `to − 1`, ln Y into `lnTarget[i − from]` (NaN for the
-   * special case) and, unless `varies` is TARGET_ONLY, the shift or ln A into `aux[i − from]`.
+   * Writes, for the checked loops 0 … count − 1, ln Y into `lnTarget[i]` (NaN for the special
+   * case) and, unless `varies` is TARGET_ONLY, the shift or ln A into `aux[i]`. One loop of the
+   * correction's own over all rows: it stays monomorphic, and nothing is allocated per loop.
    */
-  targetsInto(t: T, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array, aux: Float64Array): void;
-  /** Writes the parameter's value of the checked loops `from` … `to − 1` into `out[from … to − 1]`. */
-  valuesInto(t: T, loops: LoopColumns, from: number, to: number, out: Float64Array): void;
+  targetsInto(t: T, loops: LoopColumns, count: number, lnTarget: Float64Array, aux: Float64Array): void;
+  /** Writes the parameter's value of the checked loops 0 … count − 1 into `out[i]`. */
+  valuesInto(t: T, loops: LoopColumns, count: number, out: Float64Array): void;
 }
 
-/**
- * Loops per block of the kernels: the correction's own code computes the targets of a block into
- * a small scratch (in cache), the shared code solves them. The correction is called once per
- * block, not per loop, so its loop stays monomorphic and nothing is allocated per loop.
- */
-const BLOCK = 512;
+const NO_AUX = new Float64Array(0);
 
 function ordinaryBits(r: number): number {
   return r === Infinity ? 1 : r === 1 ? 2 : 0;
 }
 
-function checkRows(loops: LoopColumns, from: number, to: number, indexed: boolean): void {
-  const { stressMax, stressMin, strainMax, strainMin } = loops;
-  for (let i = from; i < to; i++) checkLoop(stressMax[i], stressMin[i], strainMax[i], strainMin[i], indexed ? i : undefined);
-}
-
 /**
- * Solves the loops `from` … `to − 1` (checked, targets in `lnTarget`, `aux`) loop by loop from the
- * bracket (`solveTwoTermReversals`), writing reversals and flag bits.
+ * Solves the loops 0 … count − 1 (checked, targets in `lnTarget`, `aux`) loop by loop from the
+ * bracket (`solveTwoTermReversals`), writing reversals (`out` may be `lnTarget`) and flag bits.
  */
 function solvePlain<T extends TwoTermTerms>(
-  c: TwoTermCorrection<string, T>, t: T, lnTarget: Float64Array, aux: Float64Array, from: number, to: number,
+  c: TwoTermCorrection<string, T>, t: T, lnTarget: Float64Array, aux: Float64Array, count: number,
   out: Float64Array, flags: Uint8Array | undefined, cutoff: number, maxIt: number,
 ): void {
   const { lnA, p, lnB, q } = t;
   const varies = c.varies;
   const special = c.special.reversals;
   const specialBit = c.special.bit;
-  for (let i = from, j = 0; i < to; i++, j++) {
-    const y = lnTarget[j];
+  for (let i = 0; i < count; i++) {
+    const y = lnTarget[i];
     let r: number;
     let bits: number;
     if (y !== y) {
@@ -98,8 +89,8 @@ function solvePlain<T extends TwoTermTerms>(
       bits = specialBit;
     } else {
       if (varies === TARGET_ONLY) r = solveTwoTermReversals(lnA, p, lnB, q, y, cutoff, maxIt);
-      else if (varies === SHIFT) r = solveTwoTermReversals(lnA + p * aux[j], p, lnB + q * aux[j], q, y, cutoff, maxIt);
-      else r = solveTwoTermReversals(aux[j], p, lnB, q, y, cutoff, maxIt);
+      else if (varies === SHIFT) r = solveTwoTermReversals(lnA + p * aux[i], p, lnB + q * aux[i], q, y, cutoff, maxIt);
+      else r = solveTwoTermReversals(aux[i], p, lnB, q, y, cutoff, maxIt);
       bits = ordinaryBits(r);
     }
     out[i] = r;
@@ -114,13 +105,12 @@ function solvePlain<T extends TwoTermTerms>(
  * A·x^p + B·x^q = Y by `solveTwoTermReversals`, flags. It runs the kernel's code on a one-loop
  * column, so the scalar result equals the kernel's below the table size exactly.
  *
- * Kernel: check the material and the columns; then block by block, check the loops, let the
- * correction write the targets into a scratch block, and solve. Below
- * `REVERSALS_TABLE_MIN_COUNT` loops (and always for `OWN_LN_A`), each loop is solved from the
- * bracket. From there on, a first pass checks every loop (a bad loop throws before anything is
- * written) and finds the range of the targets (and shifts), then one `TwoTermReversalsTable`
- * gives each loop's Newton iteration its start; the targets are computed again block by block
- * (cheaper than keeping them: no column per call).
+ * Kernel: check the material, the columns and every loop (a bad loop throws before anything is
+ * written); the correction writes each loop's target into `out` itself, and the solves overwrite
+ * the targets in place. Below `REVERSALS_TABLE_MIN_COUNT` loops (and always for `OWN_LN_A`), each
+ * loop is solved from the bracket. From there on, the range of the targets (and shifts) sizes one
+ * `TwoTermReversalsTable`, which gives each loop's Newton iteration its start. The only column
+ * of our own is the shift or ln A of `SHIFT` and `OWN_LN_A` (one per call, not per loop).
  */
 export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c: TwoTermCorrection<Name, T>): DamageParameter<Name> {
   function reversalsToFailureInto(
@@ -131,39 +121,31 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
     const t = c.terms(material);
     const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
     const maxIt = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-    const size = count < BLOCK ? count : BLOCK;
-    const lnTarget = new Float64Array(size);
-    const aux = new Float64Array(c.varies === TARGET_ONLY ? 0 : size);
+    // Every loop is checked before anything is written; then the correction writes the targets
+    // into `out` itself (no column of our own), and the solves overwrite them in place.
+    checkLoopRows(loops, count);
+    const aux = c.varies === TARGET_ONLY ? NO_AUX : new Float64Array(count);
+    c.targetsInto(t, loops, count, out, aux);
     if (count < REVERSALS_TABLE_MIN_COUNT || c.varies === OWN_LN_A) {
-      for (let from = 0; from < count; from += BLOCK) {
-        const to = from + BLOCK < count ? from + BLOCK : count;
-        checkRows(loops, from, to, true);
-        c.targetsInto(t, loops, from, to, lnTarget, aux);
-        solvePlain(c, t, lnTarget, aux, from, to, out, flags, cutoff, maxIt);
-      }
+      solvePlain(c, t, out, aux, count, out, flags, cutoff, maxIt);
       return out;
     }
-    // Many loops: check them all and find the range of the targets (ln Y > −∞ for the lower end)
-    // and of the shifts, then solve from a table start.
+    // Many loops: the range of the targets (ln Y > −∞ for the lower end) and of the shifts, then
+    // one table start for every loop.
     const shifted = c.varies === SHIFT;
     let yLo = Infinity;
     let yHi = -Infinity;
     let sLo = Infinity;
     let sHi = -Infinity;
-    for (let from = 0; from < count; from += BLOCK) {
-      const to = from + BLOCK < count ? from + BLOCK : count;
-      checkRows(loops, from, to, true);
-      c.targetsInto(t, loops, from, to, lnTarget, aux);
-      for (let j = 0, m = to - from; j < m; j++) {
-        const y = lnTarget[j];
-        if (y !== y) continue;
-        if (y > -Infinity && y < yLo) yLo = y;
-        if (y > yHi) yHi = y;
-        if (shifted) {
-          const s = aux[j];
-          if (s < sLo) sLo = s;
-          if (s > sHi) sHi = s;
-        }
+    for (let i = 0; i < count; i++) {
+      const y = out[i];
+      if (y !== y) continue;
+      if (y > -Infinity && y < yLo) yLo = y;
+      if (y > yHi) yHi = y;
+      if (shifted) {
+        const s = aux[i];
+        if (s < sLo) sLo = s;
+        if (s > sHi) sHi = s;
       }
     }
     const ranged = shifted && sLo <= sHi;
@@ -177,23 +159,19 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
     });
     const special = c.special.reversals;
     const specialBit = c.special.bit;
-    for (let from = 0; from < count; from += BLOCK) {
-      const to = from + BLOCK < count ? from + BLOCK : count;
-      c.targetsInto(t, loops, from, to, lnTarget, aux);
-      for (let i = from, j = 0; i < to; i++, j++) {
-        const y = lnTarget[j];
-        let r: number;
-        let bits: number;
-        if (y !== y) {
-          r = special;
-          bits = specialBit;
-        } else {
-          r = shifted ? table.solve(y, aux[j]) : table.solve(y);
-          bits = ordinaryBits(r);
-        }
-        out[i] = r;
-        if (flags !== undefined) flags[i] = bits;
+    for (let i = 0; i < count; i++) {
+      const y = out[i];
+      let r: number;
+      let bits: number;
+      if (y !== y) {
+        r = special;
+        bits = specialBit;
+      } else {
+        r = shifted ? table.solve(y, aux[i]) : table.solve(y);
+        bits = ordinaryBits(r);
       }
+      out[i] = r;
+      if (flags !== undefined) flags[i] = bits;
     }
     return out;
   }
@@ -202,8 +180,8 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
     assertMaterial(material);
     const count = checkColumns(loops, out, undefined);
     const t = c.terms(material);
-    checkRows(loops, 0, count, true);
-    c.valuesInto(t, loops, 0, count, out);
+    checkLoopRows(loops, count);
+    c.valuesInto(t, loops, count, out);
     return out;
   }
 
@@ -226,17 +204,16 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
       assertMaterial(material);
       const row = oneRow(loop);
       const t = c.terms(material);
-      const lnTarget = new Float64Array(1);
-      const aux = new Float64Array(1);
       const reversals = new Float64Array(1);
+      const aux = new Float64Array(1);
       const value = new Float64Array(1);
       const bits = new Uint8Array(1);
-      c.targetsInto(t, row, 0, 1, lnTarget, aux);
+      c.targetsInto(t, row, 1, reversals, aux);
       solvePlain(
-        c, t, lnTarget, aux, 0, 1, reversals, bits,
+        c, t, reversals, aux, 1, reversals, bits,
         options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS, options.maxIterations ?? DEFAULT_MAX_ITERATIONS,
       );
-      c.valuesInto(t, row, 0, 1, value);
+      c.valuesInto(t, row, 1, value);
       return { reversals: reversals[0], value: value[0], flags: flagNames(bits[0], DAMAGE_FLAG_BITS) };
     },
 
@@ -246,7 +223,7 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
       assertMaterial(material);
       const row = oneRow(loop);
       const out = new Float64Array(1);
-      c.valuesInto(c.terms(material), row, 0, 1, out);
+      c.valuesInto(c.terms(material), row, 1, out);
       return out[0];
     },
 

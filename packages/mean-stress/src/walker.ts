@@ -92,21 +92,21 @@ export function createWalker(options: WalkerOptions): DamageParameter<'walker'> 
       };
     },
 
-    targetsInto(t: WalkerTerms, loops: LoopColumns, from: number, to: number, lnTarget: Float64Array): void {
+    targetsInto(t: WalkerTerms, loops: LoopColumns, count: number, lnTarget: Float64Array): void {
       const { stressMax, strainMax, strainMin } = loops;
       const k = t.k;
-      for (let i = from; i < to; i++) {
+      for (let i = 0; i < count; i++) {
         const lnEa = Math.log((strainMax[i] - strainMin[i]) / 2);
         const sMax = stressMax[i];
-        lnTarget[i - from] = k === 0 ? lnEa : sMax > 0 ? k * Math.log(sMax) + lnEa : NaN;
+        lnTarget[i] = k === 0 ? lnEa : sMax > 0 ? k * Math.log(sMax) + lnEa : NaN;
       }
     },
 
     // σmax^(1−γ)·(E·εa)^γ; E·εa at γ = 1; 0 when σmax ≤ 0 and γ < 1
-    valuesInto(t: WalkerTerms, loops: LoopColumns, from: number, to: number, out: Float64Array): void {
+    valuesInto(t: WalkerTerms, loops: LoopColumns, count: number, out: Float64Array): void {
       const { stressMax, strainMax, strainMin } = loops;
       const { k, gamma, E } = t;
-      for (let i = from; i < to; i++) {
+      for (let i = 0; i < count; i++) {
         const ea = (strainMax[i] - strainMin[i]) / 2;
         const sMax = stressMax[i];
         out[i] = k === 0 ? E * ea : sMax > 0 ? Math.pow(sMax, 1 - gamma) * Math.pow(E * ea, gamma) : 0;

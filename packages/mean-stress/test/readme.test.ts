@@ -13,5 +13,6 @@ describe('README example', () => {
     expect(swt.value).toBeCloseTo(4, 12);
     expect(swt.flags).toEqual([]);
     expect(damageParameters.walker.reversalsToFailure(aisi4340, loop).reversals).toBeCloseTo(9209.21746607676, 5);
+    expect(damageParameters.smithWatsonTopper.parameterValue(aisi4340, loop)).toBe(4);
   });
 });
