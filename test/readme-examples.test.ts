@@ -1,6 +1,7 @@
 import { readFileSync, readdirSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
+import * as base from '@loopwise/base';
 import * as rainflow from '@loopwise/rainflow';
 import * as material from '@loopwise/material';
 import * as meanStress from '@loopwise/mean-stress';
@@ -13,6 +14,7 @@ import * as notch from '@loopwise/notch';
 // equals the value (typed arrays compared as arrays). A README therefore cannot drift from code.
 
 const modules: Record<string, unknown> = {
+  '@loopwise/base': base,
   '@loopwise/rainflow': rainflow,
   '@loopwise/material': material,
   '@loopwise/mean-stress': meanStress,

@@ -88,7 +88,7 @@ describe('assessDutyCycle(events, job)', () => {
       { material: sae1045, notch: { Kt: 2 }, unit: { label: 'h' } },
     );
     expect(r.life.perRepeat).toBe(3);
-    expect(r.life.life).toBeCloseTo(3 * r.life.repeats, 9);
+    expect(r.life.service).toBeCloseTo(3 * r.life.repeats, 9);
     expect(r.events.map((e) => e.name)).toEqual(['cobbles', 'yard']);
   });
 

@@ -215,8 +215,8 @@ describe('assessLife(history, job)', () => {
   test('life in service units, with and without the scatter factor', () => {
     const r = assessLife([200, -200], { material: sae1045, notch: { Kt: 2 }, unit: { label: 'km', perRepeat: 0.5 }, scatterFactor: 4 });
     expect(r.life.unit).toBe('km');
-    expect(r.life.life).toBeCloseTo(r.life.repeats * 0.5, 6);
-    expect(r.life.designLife).toBeCloseTo(r.life.repeats * 0.5 / 4, 6);
+    expect(r.life.service).toBeCloseTo(r.life.repeats * 0.5, 6);
+    expect(r.life.designService).toBeCloseTo(r.life.repeats * 0.5 / 4, 6);
   });
 
   test('the report states its assumptions and the safety caution, and is deterministic', () => {

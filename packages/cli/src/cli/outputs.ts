@@ -14,8 +14,8 @@ export interface ResultRow {
   repeats: number;
   designRepeats: number;
   unit: string | null;
-  life: number | null;
-  designLife: number | null;
+  service: number | null;
+  designService: number | null;
 }
 
 /** The results table of all channels (and all corrections when compared). */
@@ -31,8 +31,8 @@ export function resultRows(results: ChannelResult[]): ResultRow[] {
         repeats: c.life.repeats,
         designRepeats: c.life.designRepeats,
         unit: c.life.unit ?? null,
-        life: c.life.life ?? null,
-        designLife: c.life.designLife ?? null,
+        service: c.life.service ?? null,
+        designService: c.life.designService ?? null,
       });
     }
   }
@@ -134,9 +134,9 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const life = rep.life;
     out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
-    out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.life as number)} ${life.unit}` : ''}`);
+    out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.service as number)} ${life.unit}` : ''}`);
     if (life.scatterFactor > 1) {
-      out.push(`  ${`design life (÷${life.scatterFactor})`.padEnd(22)} ${formatNumber(life.designRepeats)} repeats${life.unit ? ` = ${formatNumber(life.designLife as number)} ${life.unit}` : ''}`);
+      out.push(`  ${`design life (÷${life.scatterFactor})`.padEnd(22)} ${formatNumber(life.designRepeats)} repeats${life.unit ? ` = ${formatNumber(life.designService as number)} ${life.unit}` : ''}`);
     }
     const events = [...rep.events].sort((a, b) => b.damage - a.damage).slice(0, 5);
     if (rep.events.length > 1) {
