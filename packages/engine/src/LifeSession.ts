@@ -1,3 +1,4 @@
+import { residueHalfCycles } from '@loopwise/miner';
 import { NotchSampleError, RepeatingNotchTracker } from '@loopwise/notch';
 import { NonFiniteSampleError, ReversalFilter } from '@loopwise/rainflow';
 import { EngineError } from './EngineError';
@@ -265,27 +266,8 @@ export class LifeSession {
       if (result.reusedFirstPass) stab.merge(this.current!);
     } else {
       // a one-off history: the first pass, and its open loops as half cycles
-      const residue = result.firstResidue.columns();
-      const m = residue.index.length - 1;
-      if (m > 0) {
-        const half = {
-          stressMax: new Float64Array(m),
-          stressMin: new Float64Array(m),
-          strainMax: new Float64Array(m),
-          strainMin: new Float64Array(m),
-          startIndex: residue.index.slice(0, m),
-          turnIndex: residue.index.slice(1),
-          closeIndex: residue.index.slice(1),
-          count: new Float64Array(m).fill(0.5),
-        };
-        for (let i = 0; i < m; i++) {
-          half.stressMax[i] = Math.max(residue.stress[i], residue.stress[i + 1]);
-          half.stressMin[i] = Math.min(residue.stress[i], residue.stress[i + 1]);
-          half.strainMax[i] = Math.max(residue.strain[i], residue.strain[i + 1]);
-          half.strainMin[i] = Math.min(residue.strain[i], residue.strain[i + 1]);
-        }
-        firstPass.add(half, job.material, job.meanStress, job.walkerGamma);
-      }
+      const half = residueHalfCycles(result.firstResidue.columns());
+      if (half.count.length > 0) firstPass.add(half, job.material, job.meanStress, job.walkerGamma);
       stab.merge(firstPass);
     }
     const damage = stab.total();
@@ -306,10 +288,7 @@ export class LifeSession {
         gate: this.gate,
         removed: this.removed,
         gateBound: this.removed > 0 ? gateBoundAt(job, largest, this.gate, this.removed) : 0,
-        cutoff:
-          job.cutoffCycles === undefined
-            ? null
-            : { removedCount: stab.removedCount, removedDamage: stab.removedDamage, nearFactor: 2, nearCutoffShare: damage > 0 ? stab.nearDamage / damage : 0 },
+        cutoff: job.cutoffCycles === undefined ? null : stab.cutoff.value(),
         beyondStrainLimit: result.beyondStrainLimit,
         firstBeyondIndex: result.firstBeyondIndex,
         firstReversal: stab.firstReversal,

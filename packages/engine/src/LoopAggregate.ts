@@ -1,4 +1,5 @@
 import { NeumaierAdder } from '@loopwise/base';
+import { CutoffTally } from '@loopwise/miner';
 import type { LoopColumns } from '@loopwise/notch';
 import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
@@ -7,7 +8,7 @@ import type { WorstLoop } from './LifeReport';
 
 /**
  * Running totals of a stream of closed loops, for a life session that does not keep its loops
- * (internal): compensated damage sum, the damage timeline in bins of a fixed number of samples,
+ * (internal): compensated damage sum, miner's cut-off tally, the damage timeline in bins of a fixed number of samples,
  * the most damaging loops, the cut-off and first-reversal counts and the highest local stress.
  * Memory is O(bins + worst loops), whatever the number of loops.
  */
@@ -15,9 +16,8 @@ export class LoopAggregate {
   private readonly sum = new NeumaierAdder();
   loops = 0;
   firstReversal = 0;
-  removedCount = 0;
-  removedDamage = 0;
-  nearDamage = 0;
+  /** What the cut-off removed and the damage near it (miner's tally). */
+  readonly cutoff: CutoffTally;
   timeline: Float64Array;
   readonly worst: WorstLoop[] = [];
 
@@ -27,6 +27,7 @@ export class LoopAggregate {
     private readonly cutoffCycles: number,
   ) {
     this.timeline = new Float64Array(64);
+    this.cutoff = new CutoffTally(cutoffCycles === Infinity ? 'none' : { cycles: cutoffCycles });
   }
 
   /** Evaluates and adds the loops of a drained table. */
@@ -34,18 +35,14 @@ export class LoopAggregate {
     const n = cols.stressMax.length;
     if (n === 0) return;
     const lives = evaluateLoops(cols, material, correction, walkerGamma);
+    this.cutoff.addColumns({ count: cols.count, cyclesToFailure: lives.cyclesToFailure });
     const limit = this.cutoffCycles;
     for (let i = 0; i < n; i++) {
       const nf = lives.cyclesToFailure[i];
       const count = cols.count[i];
       this.loops++;
       if (lives.reversalsToFailure[i] <= 1) this.firstReversal++;
-      let d = count / nf;
-      if (nf > limit) {
-        this.removedCount += count;
-        if (nf < Infinity) this.removedDamage += d;
-        d = 0;
-      } else if (nf * 2 > limit) this.nearDamage += d;
+      const d = nf > limit ? 0 : count / nf;
       this.sum.add(d);
       const start = cols.startIndex[i] < 0 ? 0 : cols.startIndex[i];
       const turn = cols.turnIndex[i] < 0 ? 0 : cols.turnIndex[i];
@@ -65,9 +62,7 @@ export class LoopAggregate {
     this.sum.add(other.total());
     this.loops += other.loops;
     this.firstReversal += other.firstReversal;
-    this.removedCount += other.removedCount;
-    this.removedDamage += other.removedDamage;
-    this.nearDamage += other.nearDamage;
+    this.cutoff.merge(other.cutoff);
     this.ensureBins(other.timeline.length);
     for (let k = 0; k < other.timeline.length; k++) this.timeline[k] += other.timeline[k];
     for (const w of other.worst) this.insertWorst(w);

@@ -1,5 +1,5 @@
 import type { Material } from '@loopwise/material';
-import { createWalker, damageParameters, estimateWalkerGamma, type DamageParameter, type DamageParameterName } from '@loopwise/mean-stress';
+import { createWalker, damageParameters, type DamageParameter, type DamageParameterName } from '@loopwise/mean-stress';
 
 /** Local loop columns as the tracker gives them. */
 export interface LocalLoopColumns {
@@ -27,16 +27,10 @@ export function damageParameterFor(name: DamageParameterName, walkerGamma: numbe
   return damageParameters[name] as DamageParameter;
 }
 
-/** The γ a Walker parameter uses for this material (for the parameter value column). */
-function walkerGammaOf(material: Material, walkerGamma: number | undefined): number {
-  return walkerGamma ?? estimateWalkerGamma({ SuMPa: material.Su });
-}
-
 /**
  * Solves reversals to failure of every loop once with the damage parameter's typed-array kernel
- * and fills the parameter's value: εa for none, Morrow and modified Morrow; σmax·εa for SWT;
- * σmax^(1−γ)·(E·εa)^γ for Walker (0 when σmax <= 0 and γ < 1). Equations and references: the
- * mean-stress package.
+ * and the parameter's value with its kernel too (εa, σmax·εa, or the Walker stress). Equations,
+ * special cases and references: the mean-stress package.
  */
 export function evaluateLoops(
   cols: LocalLoopColumns,
@@ -51,14 +45,7 @@ export function evaluateLoops(
   const flags = new Uint8Array(n);
   const p = damageParameterFor(name, walkerGamma);
   p.reversalsToFailureInto(material, cols, reversalsToFailure, flags);
-  const gamma = name === 'walker' ? walkerGammaOf(material, walkerGamma) : 0;
-  for (let i = 0; i < n; i++) {
-    cyclesToFailure[i] = reversalsToFailure[i] / 2;
-    const ea = (cols.strainMax[i] - cols.strainMin[i]) / 2;
-    const smax = cols.stressMax[i];
-    if (name === 'smithWatsonTopper') parameter[i] = smax > 0 ? smax * ea : 0;
-    else if (name === 'walker') parameter[i] = smax > 0 ? Math.pow(smax, 1 - gamma) * Math.pow(material.E * ea, gamma) : 0;
-    else parameter[i] = ea;
-  }
+  p.parameterValueInto(material, cols, parameter);
+  for (let i = 0; i < n; i++) cyclesToFailure[i] = reversalsToFailure[i] / 2;
   return { parameter, reversalsToFailure, cyclesToFailure, flags };
 }

@@ -111,7 +111,7 @@ function assemble(job: ResolvedJob, events: readonly ReportEvent[], tracked: Tra
     gate,
     removed,
     gateBound: removed > 0 ? gateBoundAt(job, largestKept, gate, removed) : 0,
-    cutoff: job.cutoffCycles === undefined ? null : cutoffReport(loops, job.cutoffCycles, damage),
+    cutoff: job.cutoffCycles === undefined ? null : cutoffReport(loops, job.cutoffCycles),
     beyondStrainLimit: tracked.beyondStrainLimit,
     firstBeyondIndex: tracked.firstBeyondIndex,
     firstReversal,

@@ -1,3 +1,4 @@
+import { residueHalfCycles } from '@loopwise/miner';
 import type { LoopColumns, ReversalTable } from '@loopwise/notch';
 import { evaluateLoops, type LoopLives } from './evaluateLoops';
 import type { ResolvedJob } from './LifeJob';
@@ -64,23 +65,13 @@ function eventsInto(index: Float64Array, out: Float64Array, starts: readonly num
 
 /**
  * The residue of a one-off history as half cycles between consecutive open reversal points
- * (ASTM E1049-85 5.4.4 counts the residue so), evaluated, appended to `c` (new columns).
+ * (miner's residueHalfCycles, ASTM E1049-85 5.4.4), evaluated, appended to `c` (new columns).
  */
 export function withResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: ResolvedJob, starts: readonly number[]): LifeLoopColumns {
-  const r = residue.columns();
-  const m = Math.max(0, r.index.length - 1);
+  const half = residueHalfCycles(residue.columns());
+  const m = half.count.length;
   if (m === 0) return c;
-  const h = emptyColumns(m);
-  for (let i = 0; i < m; i++) {
-    h.stressMax[i] = Math.max(r.stress[i], r.stress[i + 1]);
-    h.stressMin[i] = Math.min(r.stress[i], r.stress[i + 1]);
-    h.strainMax[i] = Math.max(r.strain[i], r.strain[i + 1]);
-    h.strainMin[i] = Math.min(r.strain[i], r.strain[i + 1]);
-    h.startIndex[i] = r.index[i];
-    h.turnIndex[i] = r.index[i + 1];
-    h.closeIndex[i] = r.index[i + 1];
-    h.count[i] = 0.5;
-  }
+  const h = emptyColumns(m, { ...half });
   eventsInto(h.startIndex, h.startEvent, starts);
   eventsInto(h.turnIndex, h.turnEvent, starts);
   const lives = evaluateLoops(h, job.material, job.meanStress, job.walkerGamma);

@@ -1,3 +1,4 @@
+import { CutoffTally, type CutoffReport } from '@loopwise/miner';
 import { branchResponse } from '@loopwise/notch';
 import { evaluateLoops } from './evaluateLoops';
 import type { ResolvedJob } from './LifeJob';
@@ -11,7 +12,7 @@ export interface WarningFacts {
   removed: number;
   /** Upper bound of the damage the gate removed. */
   gateBound: number;
-  cutoff: { removedCount: number; removedDamage: number; nearFactor: number; nearCutoffShare: number } | null;
+  cutoff: CutoffReport | null;
   beyondStrainLimit: boolean;
   firstBeyondIndex: number;
   firstReversal: number;
@@ -91,19 +92,7 @@ export function gateBoundAt(job: ResolvedJob, largest: number, gate: number, rem
 }
 
 
-/** What the cut-off removed, and the share of damage within a factor 2 below it. */
-export function cutoffReport(l: LifeLoopColumns, cutoffCycles: number, damage: number) {
-  const nearFactor = 2;
-  let removedCount = 0;
-  let removedDamage = 0;
-  let near = 0;
-  for (let i = 0; i < l.count.length; i++) {
-    const nf = l.cyclesToFailure[i];
-    if (nf > cutoffCycles) {
-      removedCount += l.count[i];
-      if (nf < Infinity) removedDamage += l.count[i] / nf;
-    } else if (nf * nearFactor > cutoffCycles) near += l.damage[i];
-  }
-  return { removedCount, removedDamage, nearFactor, nearCutoffShare: damage > 0 ? near / damage : 0 };
+/** What the cut-off removed from the report's loops, and the share of damage near it (miner's tally). */
+export function cutoffReport(l: LifeLoopColumns, cutoffCycles: number): CutoffReport {
+  return new CutoffTally({ cycles: cutoffCycles }).addColumns(l).value();
 }
-
