@@ -18,7 +18,6 @@ export { binEdges, type BinSpec } from './binEdges';
  * @deprecated The bin lookup is `binIndex` of `@loopwise/base` (this name re-exports it, the one
  * definition, while packages move over); import it from there.
  */
-export { binIndex as binOf } from '@loopwise/base';
 export {
   CycleMatrix,
   OutsideBinsError,

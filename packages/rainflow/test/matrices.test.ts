@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { binIndex } from '@loopwise/base';
-import { BinError, FromToMatrix, InvalidOptionError, OutsideBinsError, RangeMeanMatrix, binEdges, binOf, rainflow } from '@loopwise/rainflow';
+import { BinError, FromToMatrix, InvalidOptionError, OutsideBinsError, RangeMeanMatrix, binEdges, rainflow } from '@loopwise/rainflow';
 import { checkProperty } from '../../../test/property';
 import { tiedHistory } from './support/arbitraries';
 
@@ -13,10 +13,9 @@ describe('binEdges(spec, field)', () => {
     expect(binEdges({ count: 3, min: 0, max: 0.3 }, 'x')[3]).toBe(0.3);
   });
 
-  test('the bins of binEdges are looked up with binIndex of @loopwise/base (binOf is the same function, deprecated)', () => {
+  test('the bins of binEdges are looked up with binIndex of @loopwise/base', () => {
     const e = binEdges({ edges: [0, 1, 2, 3] }, 'x');
     expect([0, 0.5, 1, 2.999, 3].map((v) => binIndex(e, v))).toEqual([0, 0, 1, 2, 2]);
-    expect(binOf).toBe(binIndex);
   });
 
   test('binEdges rejects edges that do not increase, are not finite or are too few', () => {

@@ -398,9 +398,10 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   // exceedance spectrum from the matrix rows: cycles with a range in this bin or above
   const spectrum: { rangeFrom: number; exceedances: number }[] = [];
   let acc = 0;
+  const rowEdges = matrix.rowEdges; // a copy: read once
   for (let i = matrix.rows - 1; i >= 0; i--) {
     for (let j = 0; j < matrix.columns; j++) acc += matrix.at(i, j);
-    spectrum.unshift({ rangeFrom: matrix.rowEdges[i], exceedances: acc });
+    spectrum.unshift({ rangeFrom: rowEdges[i], exceedances: acc });
   }
   const inputs = [file];
   const summary = {

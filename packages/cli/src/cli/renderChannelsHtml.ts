@@ -1,4 +1,5 @@
-import { binEdges, binOf } from '@loopwise/rainflow';
+import { binIndex } from '@loopwise/base';
+import { binEdges } from '@loopwise/rainflow';
 import { renderHtmlReport, type HtmlChannel } from '../report';
 import type { ChannelResult } from './runAssessment';
 
@@ -43,8 +44,8 @@ function loopMatrix(r: ChannelResult): HtmlChannel['matrix'] {
   const counts = new Float64Array(BINS * BINS);
   for (let i = 0; i < n; i++) {
     // every loop lies within the edges (they are its own extremes), so none is lost
-    const row = binOf(rowEdges, l.strainMax[i] - l.strainMin[i]);
-    const column = binOf(columnEdges, (l.stressMax[i] + l.stressMin[i]) / 2);
+    const row = binIndex(rowEdges, l.strainMax[i] - l.strainMin[i]);
+    const column = binIndex(columnEdges, (l.stressMax[i] + l.stressMin[i]) / 2);
     counts[row * BINS + column] += l.count[i];
   }
   return { rowEdges, columnEdges, counts, rowLabel: 'local strain range', columnLabel: 'local mean stress (MPa)' };
