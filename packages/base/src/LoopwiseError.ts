@@ -82,3 +82,16 @@ function exactReplacer(_key: string, v: unknown): unknown {
   }
   return v;
 }
+
+/**
+ * The place and the broken rule as an error message reads them: `field[index] = value (rule)`
+ * (the index only when there is one; the value written by {@link describeValue}).
+ *
+ * @example
+ * brokenRule('repeats', 0, 'must be an integer >= 1', 2)
+ * // returns 'repeats[2] = 0 (must be an integer >= 1)'
+ */
+export function brokenRule(field: string, value: unknown, rule: string, index?: number): string {
+  const where = index === undefined ? field : `${field}[${index}]`;
+  return `${where} = ${describeValue(value)} (${rule})`;
+}

@@ -1,5 +1,5 @@
 export { encodeNumber, decodeNumber, encodeArray, decodeArray, type EncodedNumber } from './numberCodec';
 export { NeumaierAdder, neumaierSum } from './NeumaierAdder';
-export { LoopwiseError, describeValue } from './LoopwiseError';
+export { LoopwiseError, brokenRule, describeValue } from './LoopwiseError';
 export { binIndex } from './binIndex';
 export { widenColumn, grownCapacity, RowShare } from './columnTables';

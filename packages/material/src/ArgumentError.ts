@@ -1,4 +1,4 @@
-import { describeValue, LoopwiseError } from '@loopwise/base';
+import { brokenRule, LoopwiseError } from '@loopwise/base';
 
 /**
  * Thrown when an argument other than the material is out of its domain: a NaN or infinite
@@ -24,8 +24,7 @@ export class ArgumentError extends LoopwiseError {
    * @param index the element, for array inputs
    */
   constructor(field: string, value: unknown, rule: string, index?: number) {
-    const where = index === undefined ? field : `${field}[${index}]`;
-    super('invalid-argument', field, value, `invalid argument: ${where} = ${describeValue(value)} (${rule})`, index);
+    super('invalid-argument', field, value, `invalid argument: ${brokenRule(field, value, rule, index)}`, index);
     this.name = 'ArgumentError';
     this.rule = rule;
   }

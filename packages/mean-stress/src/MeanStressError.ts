@@ -1,4 +1,4 @@
-import { describeValue, LoopwiseError } from '@loopwise/base';
+import { brokenRule, LoopwiseError } from '@loopwise/base';
 
 /** Stable codes of {@link MeanStressError}. */
 export type MeanStressErrorCode =
@@ -34,8 +34,7 @@ export class MeanStressError extends LoopwiseError {
    * @param index loop index for column input
    */
   constructor(code: MeanStressErrorCode, field: string, value: unknown, rule: string, index?: number) {
-    const where = index === undefined ? field : `${field}[${index}]`;
-    super(code, field, value, `${code}: ${where} = ${describeValue(value)} (${rule})`, index);
+    super(code, field, value, `${code}: ${brokenRule(field, value, rule, index)}`, index);
     this.name = 'MeanStressError';
   }
 }

@@ -1,4 +1,4 @@
-import { describeValue, LoopwiseError } from '@loopwise/base';
+import { brokenRule, LoopwiseError } from '@loopwise/base';
 
 /** Stable codes of {@link MinerError}. */
 export type MinerErrorCode =
@@ -53,8 +53,7 @@ export class MinerError extends LoopwiseError {
    * @param index row index for column input (loop, bin, event)
    */
   constructor(code: MinerErrorCode, field: string, value: unknown, rule: string, index?: number) {
-    const where = index === undefined ? field : `${field}[${index}]`;
-    super(code, field, value, `${code}: ${where} = ${describeValue(value)} (${rule})`, index);
+    super(code, field, value, `${code}: ${brokenRule(field, value, rule, index)}`, index);
     this.name = 'MinerError';
   }
 }

@@ -1,4 +1,4 @@
-import { describeValue, LoopwiseError } from '@loopwise/base';
+import { brokenRule, LoopwiseError } from '@loopwise/base';
 
 /**
  * Thrown when an option or argument of a notch function is out of its domain (Kt < 1, a
@@ -15,7 +15,7 @@ export class NotchOptionError extends LoopwiseError {
   readonly rule: string;
 
   constructor(field: string, value: unknown, rule: string) {
-    super('invalid-option', field, value, `invalid option: ${field} = ${describeValue(value)} (${rule})`);
+    super('invalid-option', field, value, `invalid option: ${brokenRule(field, value, rule)}`);
     this.rule = rule;
   }
 }
