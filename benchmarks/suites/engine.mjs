@@ -27,10 +27,12 @@ function slowDamage(history, units = {}) {
   const loops = r.stabilised.loops.toRows();
   let d = 0;
   for (const l of loops) {
-    const { reversals } = smithWatsonTopper.reversalsToFailure(
-      { sigmaMax: l.stressMax, sigmaMin: l.stressMin, epsilonMax: l.strainMax, epsilonMin: l.strainMin },
-      material,
-    );
+    const { reversals } = smithWatsonTopper.reversalsToFailure(material, {
+      stressMax: l.stressMax,
+      stressMin: l.stressMin,
+      strainMax: l.strainMax,
+      strainMin: l.strainMin,
+    });
     d += l.count / (reversals / 2);
   }
   return d;

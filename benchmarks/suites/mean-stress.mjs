@@ -18,21 +18,21 @@ const TARGETS = { none: null, morrow: 12, modifiedMorrow: null, smithWatsonToppe
  */
 function prepare() {
   const rnd = mulberry32(20261201); // seeded, so every run times the same loops
-  const sigmaMax = new Float64Array(LOOPS);
-  const sigmaMin = new Float64Array(LOOPS);
-  const epsilonMax = new Float64Array(LOOPS);
-  const epsilonMin = new Float64Array(LOOPS);
+  const stressMax = new Float64Array(LOOPS);
+  const stressMin = new Float64Array(LOOPS);
+  const strainMax = new Float64Array(LOOPS);
+  const strainMin = new Float64Array(LOOPS);
   for (let i = 0; i < LOOPS; i++) {
     const ea = 2e-4 * Math.pow(100, rnd());
     const sm = (rnd() * 2 - 1) * 300;
     const sa = Math.min(202000 * ea, 400 + 20000 * ea);
     const em = (rnd() * 2 - 1) * 0.002;
-    sigmaMax[i] = sm + sa;
-    sigmaMin[i] = sm - sa;
-    epsilonMax[i] = em + ea;
-    epsilonMin[i] = em - ea;
+    stressMax[i] = sm + sa;
+    stressMin[i] = sm - sa;
+    strainMax[i] = em + ea;
+    strainMin[i] = em - ea;
   }
-  return { sigmaMax, sigmaMin, epsilonMax, epsilonMin };
+  return { stressMax, stressMin, strainMax, strainMin };
 }
 
 /** Slow reference: bisection in ln 2Nf on the parameter's equation written out directly. */
@@ -84,13 +84,13 @@ export async function run(h) {
   for (const name of Object.keys(TARGETS)) {
     const parameter = damageParameters[name];
     const seconds = h.measure(() => {
-      parameter.reversalsToFailureInto(loops, material, out);
+      parameter.reversalsToFailureInto(material, loops, out);
       return out[LOOPS - 1];
     });
     for (let j = 0; j < CHECKED; j++) {
       const i = Math.floor((j * LOOPS) / CHECKED);
       const expected = referenceReversals(
-        name, material, gamma, loops.sigmaMax[i], loops.sigmaMin[i], loops.epsilonMax[i], loops.epsilonMin[i],
+        name, material, gamma, loops.stressMax[i], loops.stressMin[i], loops.strainMax[i], loops.strainMin[i],
       );
       const got = out[i];
       const ok = got === expected || Math.abs(got / expected - 1) < 1e-9;

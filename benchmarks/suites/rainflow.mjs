@@ -15,7 +15,7 @@ const CHUNK = 65536;
 const SUBSET = 20000;
 
 function key(c) {
-  return `${c.from}|${c.to}|${c.count}|${c.startIndex}|${c.endIndex}`;
+  return `${c.from}|${c.to}|${c.count}|${c.startIndex}|${c.turnIndex}`;
 }
 
 /** The fast count of the first SUBSET samples equals the standard's literal procedure. */

@@ -17,7 +17,7 @@ import { writeOutputAtomic } from './writeOutputAtomic';
 import { renderChannelsHtml } from './renderChannelsHtml';
 
 /** Version printed by --version and written into reports. */
-export const VERSION = '0.1.0';
+export const VERSION = '0.2.0';
 const TOOL = `loopwise ${VERSION}`;
 
 /** Where the command writes (injectable for tests). */

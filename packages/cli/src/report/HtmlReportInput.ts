@@ -43,7 +43,7 @@ export interface HtmlChannel {
 export interface HtmlReportInput {
   /** Title of the report, e.g. `'Trailer axle, shoulder fillet (invented demo data)'`. */
   title: string;
-  /** Program and version, e.g. `'loopwise 0.1.0'`. No dates: the output is deterministic. */
+  /** Program and version, e.g. `'loopwise 0.2.0'`. No dates: the output is deterministic. */
   generatedBy: string;
   /** One or more channels: one section each, and one row each in the results table. */
   channels: HtmlChannel[];

@@ -38,7 +38,7 @@ function unique(lists: readonly (readonly string[])[]): string[] {
  * const report = assessLife(strain, { material, input: 'local-strain' });
  * const html = renderHtmlReport({
  *   title: 'Trailer axle, shoulder fillet (invented demo data)',
- *   generatedBy: 'loopwise 0.1.0',
+ *   generatedBy: 'loopwise 0.2.0',
  *   channels: [{ name: 'fillet', unit: 'µε', report, history: displayHistory(microstrain, 2000), matrix: null }],
  * });
  * // returns '<!DOCTYPE html>\n<html lang="en">…'
