@@ -8,7 +8,7 @@ import { RainflowCounter, RangeMeanMatrix, CycleTable } from '@loopwise/rainflow
 import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
 import { readJobFile, type CliChannel, type CliJob } from './CliJob';
-import { formatNumber } from './formatNumber';
+import { formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
 import { cyclesCsv, jsonReport, stableJson, summaryText } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';

@@ -1,7 +1,7 @@
 import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
 import type { ChannelResult } from './runAssessment';
-import { formatNumber } from './formatNumber';
+import { formatNumber } from '../report/formatNumber.js';
 
 /** Version of the JSON report format written by `--json` (documented in the CLI README). */
 export const JSON_REPORT_VERSION = 1;
