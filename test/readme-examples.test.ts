@@ -8,6 +8,7 @@ import * as meanStress from '@loopwise/mean-stress';
 import * as miner from '@loopwise/miner';
 import * as engine from '@loopwise/engine';
 import * as notch from '@loopwise/notch';
+import * as stressLife from '@loopwise/stress-life';
 
 // Runs every ```js block of the package READMEs: imports of @loopwise packages are bound to the
 // sources, and each line `expression; // returns value` becomes an assertion that the expression
@@ -21,6 +22,7 @@ const modules: Record<string, unknown> = {
   '@loopwise/miner': miner,
   '@loopwise/engine': engine,
   '@loopwise/notch': notch,
+  '@loopwise/stress-life': stressLife,
 };
 
 const root = new URL('..', import.meta.url).pathname;
