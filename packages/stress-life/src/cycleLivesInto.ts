@@ -1,6 +1,6 @@
 import type { AmplitudeCorrection } from './AmplitudeCorrection';
 import { checkColumn } from './checks';
-import { cyclesAt } from './cyclesToFailure';
+import { checkedLife, cyclesAt } from './cyclesToFailure';
 import { checkCycles, resolveCorrection, writeEquivalent } from './equivalentAmplitudeInto';
 import type { SnCurve } from './SnCurve';
 import { StressLifeError } from './StressLifeError';
@@ -68,6 +68,10 @@ export function cycleLivesInto(
   checkCycles(c, ranges, means, scale, 'ranges');
   writeEquivalent(c, ranges, means, 0.5, scale, out);
   const k = curve.measure === 'range' ? 2 : 1;
-  for (let i = 0; i < n; i++) out[i] = cyclesAt(curve, k * out[i]);
+  for (let i = 0; i < n; i++) {
+    const life = cyclesAt(curve, k * out[i]);
+    if (!(life > 0)) checkedLife(life, ranges[i], 'ranges', i);
+    out[i] = life;
+  }
   return out;
 }

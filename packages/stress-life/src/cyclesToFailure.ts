@@ -1,5 +1,6 @@
 import { checkStress } from './checks';
 import type { SnCurve } from './SnCurve';
+import { StressLifeError } from './StressLifeError';
 
 /**
  * Cycles to failure Nf (cycles, not reversals) of one stress on an S-N curve, in the curve's
@@ -11,7 +12,8 @@ import type { SnCurve } from './SnCurve';
  *
  * Reference: O. H. Basquin, Proc. ASTM 10 (1910) 625-630.
  *
- * @throws {StressLifeError} `invalid-stress` for a stress NaN, ±Infinity or negative.
+ * @throws {StressLifeError} `invalid-stress` for a stress NaN, ±Infinity or negative, or so
+ *   large that the life underflows to 0.
  * @example
  * const c = defineSnCurve({ stress: 100, cycles: 2e6, slope: 3 });
  * cyclesToFailure(c, 50);
@@ -19,7 +21,13 @@ import type { SnCurve } from './SnCurve';
  */
 export function cyclesToFailure(curve: SnCurve, stress: number): number {
   checkStress(stress, 'stress');
-  return cyclesAt(curve, stress);
+  return checkedLife(cyclesAt(curve, stress), stress, 'stress');
+}
+
+/** A life of 0 cycles (an absurd stress whose life underflows) is an error, not a result. Internal. */
+export function checkedLife(n: number, stress: number, field: string, index?: number): number {
+  if (!(n > 0)) throw new StressLifeError('invalid-stress', field, stress, 'so large that the life underflows to 0 cycles', index);
+  return n;
 }
 
 /** Nf of a checked stress. Internal: the one recipe of the curve lookup, used by every kernel. */

@@ -1,5 +1,5 @@
 import { checkColumn, checkStress } from './checks';
-import { cyclesAt } from './cyclesToFailure';
+import { checkedLife, cyclesAt } from './cyclesToFailure';
 import type { SnCurve } from './SnCurve';
 
 /**
@@ -18,6 +18,10 @@ export function cyclesToFailureInto(curve: SnCurve, stresses: ArrayLike<number>,
   checkColumn(stresses, 'stresses');
   checkColumn(out, 'out', stresses.length, false);
   for (let i = 0; i < stresses.length; i++) checkStress(stresses[i], 'stresses', i);
-  for (let i = 0; i < stresses.length; i++) out[i] = cyclesAt(curve, stresses[i]);
+  for (let i = 0; i < stresses.length; i++) {
+    const n = cyclesAt(curve, stresses[i]);
+    if (!(n > 0)) checkedLife(n, stresses[i], 'stresses', i);
+    out[i] = n;
+  }
   return out;
 }
