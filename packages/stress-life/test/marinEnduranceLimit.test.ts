@@ -20,9 +20,9 @@ const KPSI = 6.894757; // MPa per kpsi
 
 describe('Marin factors and the steel S-N estimate (Shigley 9th ed.)', () => {
   test('the tables are the book\'s Table 6-2 and Table 6-5', () => {
-    const t62 = byName('Table 6-2').expected as Record<string, number[]>;
+    const t62 = byName("Table 6-2").expected as unknown as Record<string, number[]>;
     for (const [k, [a, b]] of Object.entries(t62)) expect(MARIN_SURFACE_FINISHES[k as keyof typeof MARIN_SURFACE_FINISHES]).toEqual({ a, b });
-    const t65 = byName('Table 6-5').expected as Record<string, number>;
+    const t65 = byName("Table 6-5").expected as unknown as Record<string, number>;
     for (const [r, ke] of Object.entries(t65)) expect(marinReliabilityFactor(Number(r))).toBe(ke);
     for (const row of MARIN_RELIABILITY_FACTORS) expect(Math.abs(1 - 0.08 * row.za - row.ke)).toBeLessThan(5e-4);
   });

@@ -125,7 +125,7 @@ describe('stressLifeDamage properties', () => {
 
   test('the route on a rainflow count: a repeating history on the EN 1993-1-9 curve, life with the IIW damage sum', () => {
     const history = Float64Array.from([0, 120, -40, 80, -100, 60, 0]);
-    const cycles = rainflow(history, { residue: 'repeat' }).cycles.columns();
+    const cycles = rainflow(history, { residue: 'repeat' }).cycles!.columns();
     const en = stressLifeDamage(en1993DetailCurve(71, { gammaMf: 1 }), cycles);
     const manual = Array.from(cycles.range).reduce((d, r, i) => d + cycles.count[i] / cyclesToFailure(en1993DetailCurve(71, { gammaMf: 1 }), r), 0);
     expect(en.damage).toBeCloseTo(manual, 18);
