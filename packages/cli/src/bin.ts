@@ -1,5 +1,9 @@
 #!/usr/bin/env node
 import { main } from './cli/main';
+import { installCleanup } from './cli/temporaries';
+
+// temporaries (outputs being written, a copy of standard input) go at exit and on SIGINT/SIGTERM
+installCleanup((t) => process.stderr.write(t));
 
 main(process.argv.slice(2)).then(
   (code) => {

@@ -1,8 +1,13 @@
 export * from './ingest/index';
 export * from './report/index';
 export { main, VERSION, type Io } from './cli/main';
-export { runAssessment, lifeJobOf, type ChannelResult, type Progress } from './cli/runAssessment';
+export { runAssessment, lifeJobOf, type AssessmentSettings, type ChannelResult, type Progress } from './cli/runAssessment';
 export { readJobFile, type CliChannel, type CliEvent, type CliJob, type JobFile } from './cli/CliJob';
 export { resolveMaterial, type EstimateSpec, type MaterialSpec } from './cli/resolveMaterial';
-export { writeOutputAtomic } from './cli/writeOutputAtomic';
+export { OutputSet, type OutputContent, type OutputSink, type StdoutWrite } from './cli/OutputSet';
+export { InputFiles, type InputFile } from './cli/InputFiles';
+export { FileAccess, OUTSIDE_OPTION } from './cli/FileAccess';
+export { FileError } from './cli/FileError';
+export { MemoryGuard, MemoryLimitError, DEFAULT_MEMORY_LIMIT_MB } from './cli/MemoryGuard';
+export { JobFieldError } from './cli/checkJobFields';
 export { UsageError } from './cli/CliError';

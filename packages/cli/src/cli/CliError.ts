@@ -25,6 +25,9 @@ const INPUT_ERRORS = new Set([
   'InvalidOptionError',
   'NonFiniteSampleError',
   'BinError',
+  'FileError',
+  'MemoryLimitError',
+  'JobFieldError',
 ]);
 
 /** Exit code for an error: 2 for usage and input errors, 1 for everything else. */

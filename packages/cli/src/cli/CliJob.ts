@@ -1,10 +1,11 @@
-import { readFileSync } from 'node:fs';
-import { dirname, resolve } from 'node:path';
 import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
 import type { ChannelSelection, TimeSource } from '../ingest';
 import { UsageError } from './CliError';
+import { checkJobFields, JobFieldError } from './checkJobFields';
+import { FileAccess, parseJsonText } from './FileAccess';
+import { InputFiles } from './InputFiles';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
 
 /** A channel of a job: which column, what it holds, and how it enters the notch model. */
@@ -24,6 +25,8 @@ export interface CliEvent {
   repeats: number;
   /** Service per repeat of the event, in `service.unit`. */
   duration?: number;
+  /** The file's name in messages and reports (as the job names it). Default: `file`. */
+  shown?: string;
 }
 
 /** A complete assessment request, from flags or from a job file. */
@@ -44,6 +47,10 @@ export interface CliJob {
   /** One measured file, or a duty cycle of events. */
   file: string | null;
   events: CliEvent[] | null;
+  /** The file's name in messages and reports (as typed, or as the job names it). Default: `file`. */
+  fileShown?: string | null;
+  /** The job file, when the request came from one (messages name it). */
+  jobShown?: string;
   time?: TimeSource;
   initial?: number;
   offset?: number;
@@ -73,64 +80,51 @@ export interface JobFile {
   offset?: number;
 }
 
-const KNOWN = new Set([
-  'format', 'version', 'material', 'notch', 'meanStress', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'scatterFactor',
-  'cutoffCycles', 'criticalDamage', 'repeating', 'service', 'channels', 'file', 'events', 'time', 'initial', 'offset', 'description',
-]);
-
-/** Reads and checks a job file; every error names the file and the field. */
-export function readJobFile(path: string): CliJob {
-  let text: string;
+/**
+ * Reads and checks a job file strictly: every field known (an unknown one is an error that
+ * suggests the nearest known name) and of its type, each message naming the job file and the
+ * field path (`job.json: channels[0].colum: …`). The files it names (data, events, material)
+ * resolve relative to its folder and must lie inside it unless `anywhere` (the command's
+ * `--job-may-read-anywhere`); each is noted in `inputs`.
+ *
+ * @param path - the job file, as typed (messages show it so)
+ */
+export function readJobFile(path: string, inputs: InputFiles = new InputFiles(), anywhere = false): CliJob {
+  const access = FileAccess.forJob(inputs, path, anywhere);
+  const own = new FileAccess(inputs, null, true);
+  const { text } = own.readText(path, '--job');
+  const json = parseJsonText(text, path, 'job file') as JobFile;
   try {
-    text = readFileSync(path, 'utf8');
-  } catch {
-    throw new UsageError(`${path}: cannot read the job file`);
-  }
-  let json: JobFile;
-  try {
-    json = JSON.parse(text);
+    checkJobFields(json);
   } catch (error) {
-    throw new UsageError(`${path}: invalid JSON: ${(error as Error).message}`);
-  }
-  const at = (field: string) => `${path}: ${field}`;
-  if (json === null || typeof json !== 'object' || Array.isArray(json)) throw new UsageError(`${path}: a job file holds one JSON object`);
-  if (json.format !== 'loopwise-job') throw new UsageError(at(`format must be "loopwise-job", got ${JSON.stringify(json.format)}`));
-  if (json.version !== 1) throw new UsageError(at(`version must be 1, got ${JSON.stringify(json.version)}`));
-  for (const key of Object.keys(json)) if (!KNOWN.has(key)) throw new UsageError(at(`unknown field "${key}"`));
-  const base = dirname(resolve(path));
-  let material: Material;
-  try {
-    material = resolveMaterial(json.material, base);
-  } catch (error) {
-    if (error instanceof Error) error.message = `${path}: material: ${error.message}`;
+    if (error instanceof JobFieldError) throw new UsageError(`${path}: ${error.message}`);
     throw error;
   }
-  if (!Array.isArray(json.channels) || json.channels.length === 0) throw new UsageError(at('channels must list at least one channel'));
-  if ((json.file === undefined) === (json.events === undefined)) throw new UsageError(at('give either "file" or "events"'));
+  let material: Material;
+  try {
+    material = resolveMaterial(json.material, access);
+  } catch (error) {
+    if (error instanceof Error && (error.name === 'MaterialError' || error.name === 'ArgumentError')) error.message = `${path}: material: ${error.message}`;
+    throw error;
+  }
+  const file = json.file === undefined ? null : access.resolve(json.file, 'file');
   const events = json.events?.map((e, k) => {
-    if (e === null || typeof e !== 'object' || typeof e.file !== 'string' || typeof e.name !== 'string') {
-      throw new UsageError(at(`events[${k}] must be { name, file, repeats, duration? }`));
-    }
-    return { ...e, file: resolve(base, e.file) };
+    const f = access.resolve(e.file, `events[${k}].file`);
+    return { ...e, file: f.path, shown: f.shown };
   });
-  return {
+  const job: CliJob = {
     material,
-    notch: json.notch,
     meanStress: json.meanStress ?? 'smithWatsonTopper',
-    walkerGamma: json.walkerGamma,
-    gate: json.gate,
-    gateFraction: json.gateFraction,
-    fullScale: json.fullScale,
     scatterFactor: json.scatterFactor ?? 1,
-    cutoffCycles: json.cutoffCycles,
-    criticalDamage: json.criticalDamage,
     repeating: json.repeating ?? true,
-    service: json.service,
     channels: json.channels,
-    file: json.file === undefined ? null : resolve(base, json.file),
+    file: file?.path ?? null,
+    fileShown: file?.shown ?? null,
     events: events ?? null,
-    time: json.time,
-    initial: json.initial,
-    offset: json.offset,
+    jobShown: path,
   };
+  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'initial', 'offset'] as const) {
+    if (json[k] !== undefined) (job as unknown as Record<string, unknown>)[k] = json[k];
+  }
+  return job;
 }

@@ -1,19 +1,24 @@
 import { closeSync, existsSync, openSync, readSync, statSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
+import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { findLoadMargin, type DutyEvent } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
-import { RainflowCounter, RangeMeanMatrix, CycleTable } from '@loopwise/rainflow';
+import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
 import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
 import { readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { FileAccess, OUTSIDE_OPTION } from './FileAccess';
+import { InputFiles } from './InputFiles';
+import { DEFAULT_MEMORY_LIMIT_MB, MemoryGuard, MemoryLimitError } from './MemoryGuard';
+import { OutputSet, type StdoutWrite } from './OutputSet';
+import { spoolStdin } from './spoolStdin';
+import { SpoolFile } from './SpoolFile';
 import { formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
-import { cyclesCsv, jsonReport, stableJson, summaryText } from './outputs';
+import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
 import { lifeJobOf, runAssessment, type ChannelResult } from './runAssessment';
-import { writeOutputAtomic } from './writeOutputAtomic';
 import { renderChannelsHtml } from './renderChannelsHtml';
 
 /** Version printed by --version and written into reports. */
@@ -26,12 +31,18 @@ export interface Io {
   stderr: (text: string) => void;
   /** True when stderr is a terminal (progress is shown only then). */
   stderrIsTerminal: boolean;
+  /** Writes an output given as `-` to standard output, waiting while it is full; default: `stdout`. */
+  stdoutWrite?: StdoutWrite;
 }
 
 const processIo: Io = {
   stdout: (t) => process.stdout.write(t),
   stderr: (t) => process.stderr.write(t),
   stderrIsTerminal: Boolean(process.stderr.isTTY),
+  stdoutWrite: (t) =>
+    new Promise<void>((resolve, reject) => {
+      process.stdout.write(t, (error) => (error ? reject(error) : resolve()));
+    }),
 };
 
 const COMMON = {
@@ -72,7 +83,12 @@ const MODEL = {
   'cycles-out': { type: 'string' },
   'html-out': { type: 'string' },
   quiet: { type: 'boolean' },
+  'job-may-read-anywhere': { type: 'boolean' },
+  'memory-limit': { type: 'string' },
 } as const;
+
+/** Options that may be given with --job (outputs and how the run reads and writes). */
+const WITH_JOB = ['job', 'json', 'json-out', 'cycles-out', 'html-out', 'quiet', 'job-may-read-anywhere', 'memory-limit'];
 
 /**
  * Runs the `loopwise` command with the given arguments and returns its exit code: 0 success,
@@ -99,16 +115,24 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
       case 'count':
         return await countCommand(rest, io);
       case 'material':
-        return materialCommand(rest, io);
+        return await materialCommand(rest, io);
       case 'demo':
         return await demoCommand(rest, io);
       default:
         throw new UsageError(`unknown command "${command}"; commands: ${commands().join(', ')} (loopwise --help)`);
     }
-  } catch (error) {
+  } catch (caught) {
+    const error = outOfMemory(caught);
     io.stderr(`loopwise ${command ?? ''}: ${oneLine(error)}\n`.replace('loopwise : ', 'loopwise: '));
     return exitCodeOf(error);
   }
+}
+
+/** An allocation that failed (typed array, string) as a coded error instead of a raw RangeError. */
+function outOfMemory(error: unknown): unknown {
+  if (error instanceof RangeError && /allocation failed|Invalid (typed )?array length|Invalid string length/i.test(error.message))
+    return new MemoryLimitError(`out of memory (${error.message}); the input is too large for this route on this machine`);
+  return error;
 }
 
 function commands(): string[] {
@@ -182,18 +206,20 @@ function serviceOf(values: Record<string, unknown>): CliJob['service'] | undefin
   return { unit: m[2], perRepeat: x };
 }
 
-function jobFromFlags(values: Record<string, unknown>, positionals: string[], command: string): CliJob {
+async function jobFromFlags(values: Record<string, unknown>, positionals: string[], command: string, inputs: InputFiles): Promise<CliJob> {
   if (values.job !== undefined) {
     if (positionals.length > 0) throw new UsageError(`${command}: give a file or --job, not both`);
     for (const k of Object.keys(values)) {
-      if (k in MODEL && !['job', 'json', 'json-out', 'cycles-out', 'html-out', 'quiet'].includes(k)) {
+      if (k in MODEL && !WITH_JOB.includes(k)) {
         throw new UsageError(`--${k}: the job file sets the model; only outputs may be given with --job`);
       }
     }
-    return readJobFile(values.job as string);
+    return readJobFile(values.job as string, inputs, Boolean(values['job-may-read-anywhere']));
   }
+  if (values['job-may-read-anywhere']) throw new UsageError(`${OUTSIDE_OPTION}: only with --job (files named on the command line are read as given)`);
   if (positionals.length !== 1) throw new UsageError(`${command}: give one measured file (or --job <file>); loopwise help ${command}`);
-  const file = resolve(positionals[0]);
+  const access = new FileAccess(inputs, null, true);
+  const data = await dataFile(positionals[0], inputs, access);
   const su = num(values, 'su');
   const hb = num(values, 'hardness');
   const given = [values.material !== undefined, su !== undefined, hb !== undefined].filter(Boolean).length;
@@ -206,12 +232,13 @@ function jobFromFlags(values: Record<string, unknown>, positionals: string[], co
         : { estimate: { method: 'hardness', hardnessHB: hb as number } };
   const meanStress = oneOf(values, 'mean-stress', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'] as const) ?? 'smithWatsonTopper';
   const job: CliJob = {
-    material: resolveMaterial(spec, process.cwd(), '--material'),
+    material: resolveMaterial(spec, access, '--material'),
     meanStress,
     scatterFactor: num(values, 'scatter-factor') ?? 1,
     repeating: !values['one-off'],
     channels: channelsOf(values),
-    file,
+    file: data.path,
+    fileShown: data.shown,
     events: null,
   };
   const kt = num(values, 'kt');
@@ -240,9 +267,19 @@ function jobFromFlags(values: Record<string, unknown>, positionals: string[], co
   return job;
 }
 
-function inputsOf(job: CliJob): string[] {
-  const files = job.file ? [job.file] : (job.events ?? []).map((e) => e.file);
-  return files;
+/** A data file named on the command line: as typed, or `-` for standard input (copied to a private temporary file). */
+async function dataFile(path: string, inputs: InputFiles, access: FileAccess): Promise<{ path: string; shown: string }> {
+  if (path === '-') {
+    inputs.addStdin();
+    return { path: await spoolStdin(), shown: 'standard input' };
+  }
+  return access.resolve(path, 'file');
+}
+
+function guardOf(values: Record<string, unknown>): MemoryGuard {
+  const mb = num(values, 'memory-limit') ?? DEFAULT_MEMORY_LIMIT_MB;
+  if (!(mb >= 1)) throw new UsageError(`--memory-limit: a number of MB >= 1, got ${mb}`);
+  return new MemoryGuard(mb);
 }
 
 /**
@@ -284,30 +321,40 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
     io.stdout(HELP[command] + '\n');
     return 0;
   }
-  const job = jobFromFlags(values, positionals, command);
-  const inputs = inputsOf(job);
-  if (margin) return marginOf(job, values, io);
+  const inputs = new InputFiles();
+  const guard = guardOf(values);
+  const job = await jobFromFlags(values, positionals, command, inputs);
+  if (margin) return marginOf(job, values, io, guard);
+  // every output is checked before the work starts, and written all or nothing after it
+  const box: { results: ChannelResult[] } = { results: [] };
+  const outputs = planOutputs(values, inputs, io, command, null, box);
   const progress = progressOf(io, Boolean(values.quiet), job.file);
   // the loop table is kept only when it is written (--cycles-out); otherwise memory stays flat
-  const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined });
+  const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined, guard });
+  box.results = results;
   if (progress) io.stderr('\r\x1b[K');
-  writeOutputs(values, results, inputs, command, null);
-  io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));
+  await outputs.commit();
+  if (!outputs.usesStdout) io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));
   return 0;
 }
 
-function writeOutputs(values: Record<string, unknown>, results: ChannelResult[], inputs: string[], command: string, title: string | null): void {
-  const outs = ['json-out', 'cycles-out', 'html-out'].map((k) => values[k] as string | undefined).filter((p): p is string => p !== undefined);
-  if (new Set(outs.map((p) => resolve(p))).size !== outs.length) throw new UsageError('--json-out, --cycles-out, --html-out: each output needs its own file');
-  // build everything first, write after: a failure leaves no output
-  const files: [string, string][] = [];
-  if (values['json-out']) files.push([values['json-out'] as string, jsonReport(command, TOOL, results)]);
-  if (values['cycles-out']) files.push([values['cycles-out'] as string, cyclesCsv(results)]);
-  if (values['html-out']) files.push([values['html-out'] as string, renderChannelsHtml(results, title ?? `loopwise ${command}: ${results.map((r) => r.name).join(', ')}`, TOOL)]);
-  for (const [path, content] of files) writeOutputAtomic(path, content, inputs);
+/** The outputs of assess and demo, checked now and written by `commit()` from `box.results`. */
+function planOutputs(values: Record<string, unknown>, inputs: InputFiles, io: Io, command: string, title: string | null, box: { results: ChannelResult[] }): OutputSet {
+  const outputs = new OutputSet(inputs, io.stdoutWrite ?? (async (t) => io.stdout(t)));
+  if (values['json-out'] !== undefined) outputs.add('--json-out', values['json-out'] as string, (sink) => sink.write(jsonReport(command, TOOL, box.results)));
+  if (values['cycles-out'] !== undefined) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => writeCyclesCsv(box.results, sink));
+  if (values['html-out'] !== undefined)
+    outputs.add('--html-out', values['html-out'] as string, (sink) =>
+      sink.write(renderChannelsHtml(box.results, title ?? `loopwise ${command}: ${box.results.map((r) => r.name).join(', ')}`, TOOL)),
+    );
+  if (outputs.usesStdout && values.json) throw new UsageError('--json: the report cannot go to standard output when an output file is "-"');
+  return outputs;
 }
 
-async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io): Promise<number> {
+async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, guard: MemoryGuard): Promise<number> {
+  for (const k of ['json-out', 'cycles-out', 'html-out']) if (values[k] !== undefined) throw new UsageError(`--${k}: margin writes no files; use --json`);
+  const files = job.events ? job.events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })) : [{ path: job.file as string, shown: job.fileShown ?? (job.file as string) }];
+  guard.checkInMemory(files, job.channels.length, 'the margin search');
   let target = num(values, 'target-repeats');
   const targetLife = num(values, 'target-life');
   if ((target === undefined) === (targetLife === undefined)) throw new UsageError('--target-repeats or --target-life: give exactly one');
@@ -339,21 +386,21 @@ async function eventsOf(job: CliJob, channel: CliChannel): Promise<DutyEvent[]> 
   if (job.events) {
     const out: DutyEvent[] = [];
     for (const e of job.events) {
-      const { channels } = await readDelimitedColumns(e.file, opts);
+      const { channels } = await readDelimitedColumns(e.file, { ...opts, name: e.shown ?? e.file });
       const d: DutyEvent = { name: e.name, history: channels[0], repeats: e.repeats };
       if (e.duration !== undefined) d.duration = e.duration;
       out.push(d);
     }
     return out;
   }
-  const { channels } = await readDelimitedColumns(job.file as string, opts);
+  const { channels } = await readDelimitedColumns(job.file as string, { ...opts, name: job.fileShown ?? (job.file as string) });
   return [{ name: 'history', history: channels[0], repeats: 1 }];
 }
 
 async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parse(
     args,
-    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' } },
+    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, 'memory-limit': { type: 'string' } },
     'count',
   );
   if (values.help) {
@@ -361,7 +408,10 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     return 0;
   }
   if (positionals.length !== 1) throw new UsageError('count: give one measured file; loopwise help count');
-  const file = resolve(positionals[0]);
+  const inputs = new InputFiles();
+  const guard = guardOf(values);
+  const data = await dataFile(positionals[0], inputs, new FileAccess(inputs, null, true));
+  const file = data.path;
   const channels = channelsOf(values);
   if (channels.length !== 1) throw new UsageError('--column: count takes one column');
   const residue = (values.residue as string | undefined) ?? 'half';
@@ -372,7 +422,14 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     if (!Number.isInteger(v) || v < 1 || v > 4096) throw new UsageError(`--${k}: an integer from 1 to 4096, got ${v}`);
   }
   const time = timeOf(values);
-  const opts = { channels, ...(time ? { time } : {}) };
+  const opts = { channels, name: data.shown, ...(time ? { time } : {}) };
+  const outputs = new OutputSet(inputs, io.stdoutWrite ?? (async (t) => io.stdout(t)));
+  const box: { matrix: RangeMeanMatrix | null } = { matrix: null };
+  if (values['matrix-out'] !== undefined) outputs.add('--matrix-out', values['matrix-out'] as string, (sink) => sink.write(JSON.stringify((box.matrix as RangeMeanMatrix).toJSON()) + '\n'));
+  // every cycle goes to a spool on disk as it closes (memory stays flat), copied out at the end
+  const spool = values['cycles-out'] !== undefined ? new SpoolFile('the cycles') : null;
+  if (spool) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => spool.copyTo(sink));
+  if (outputs.usesStdout && values.json) throw new UsageError('--json: the summary cannot go to standard output when an output file is "-"');
   // first read: the range, for the bins and a gate fraction (memory does not grow with the file)
   let lo = Infinity;
   let hi = -Infinity;
@@ -384,17 +441,37 @@ async function countCommand(args: string[], io: Io): Promise<number> {
         if (v[i] < lo) lo = v[i];
         if (v[i] > hi) hi = v[i];
       }
+      guard.check(() => `while reading ${data.shown}`);
     },
   });
   const fraction = num(values, 'gate-fraction');
   const gate = num(values, 'gate') ?? (fraction !== undefined ? fraction * (num(values, 'full-scale') ?? hi - lo) : 0);
   const span = hi > lo ? hi - lo : 1;
   const matrix = new RangeMeanMatrix({ range: { count: rangeBins, min: 0, max: span }, mean: { count: meanBins, min: lo, max: hi > lo ? hi : lo + 1 } });
-  const table = values['cycles-out'] ? new CycleTable() : null;
-  const both = table ? { addCycle: (a: number, b: number, c: number, d: number, e: number, f: number) => { matrix.addCycle(a, b, c, d, e, f); table.addCycle(a, b, c, d, e, f); } } : matrix;
+  box.matrix = matrix;
+  if (spool) spool.append('range,mean,from,to,count,start_sample,turn_sample,close_sample\n');
+  // the cycles pass through a small table (its range and mean), written to the spool in batches
+  let batch = new CycleTable();
+  const flushBatch = () => {
+    const c = batch.columns();
+    const lines: string[] = [];
+    for (let i = 0; i < c.range.length; i++) lines.push(`${c.range[i]},${c.mean[i]},${c.from[i]},${c.to[i]},${c.count[i]},${c.startIndex[i]},${c.turnIndex[i]},${c.closeIndex[i]}\n`);
+    spool?.append(lines.join(''));
+    batch = new CycleTable();
+  };
+  const both = spool
+    ? {
+        addCycle: (from: number, to: number, count: number, startIndex: number, turnIndex: number, closeIndex: number) => {
+          matrix.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
+          batch.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
+          if (batch.length >= 8192) flushBatch();
+        },
+      }
+    : matrix;
   const counter = new RainflowCounter({ residue: residue as 'half', gate, sink: both });
-  await readDelimited(file, { ...opts, checks: false, onChunk: (c) => counter.push(c.channels[0]) });
+  await readDelimited(file, { ...opts, checks: false, onChunk: (c) => { counter.push(c.channels[0]); guard.check(() => `while counting ${data.shown}`); } });
   const result = counter.finish();
+  if (spool) flushBatch();
   // exceedance spectrum from the matrix rows: cycles with a range in this bin or above
   const spectrum: { rangeFrom: number; exceedances: number }[] = [];
   let acc = 0;
@@ -403,7 +480,6 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     for (let j = 0; j < matrix.columns; j++) acc += matrix.at(i, j);
     spectrum.unshift({ rangeFrom: rowEdges[i], exceedances: acc });
   }
-  const inputs = [file];
   const summary = {
     format: 'loopwise-cli-count',
     version: 1,
@@ -422,15 +498,12 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     spectrum,
     warnings: source.warnings.map((w) => w.message),
   };
-  const outs: [string, string][] = [];
-  if (values['matrix-out']) outs.push([values['matrix-out'] as string, JSON.stringify(matrix.toJSON()) + '\n']);
-  if (table) {
-    const c = table.columns();
-    const lines = ['range,mean,from,to,count,start_sample,turn_sample,close_sample'];
-    for (let i = 0; i < c.range.length; i++) lines.push([c.range[i], c.mean[i], c.from[i], c.to[i], c.count[i], c.startIndex[i], c.turnIndex[i], c.closeIndex[i]].join(','));
-    outs.push([values['cycles-out'] as string, lines.join('\n') + '\n']);
+  try {
+    await outputs.commit();
+  } finally {
+    spool?.remove();
   }
-  for (const [p, content] of outs) writeOutputAtomic(p, content, inputs);
+  if (outputs.usesStdout) return 0;
   if (values.json) io.stdout(stableJson(summary) + '\n');
   else {
     const u = summary.unit;
@@ -447,7 +520,7 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   return 0;
 }
 
-function materialCommand(args: string[], io: Io): number {
+async function materialCommand(args: string[], io: Io): Promise<number> {
   const { values } = parse(
     args,
     {
@@ -486,10 +559,12 @@ function materialCommand(args: string[], io: Io): number {
     if (ra === undefined) throw new UsageError('--reduction-of-area: modified universal slopes need the reduction of area (0 … 1)');
     spec = { estimate: { method, SuMPa: su as number, reductionOfArea: ra, ...withE } };
   } else spec = { estimate: { method, SuMPa: su as number, metal, ...withE } };
-  const m = resolveMaterial(spec, process.cwd(), '--su');
+  const m = resolveMaterial(spec, new FileAccess(new InputFiles(), null, true), '--su');
   const text = stableJson({ ...m, warnings: m.warnings }) + '\n';
-  if (values.out) writeOutputAtomic(values.out as string, text, []);
-  io.stdout(text);
+  const outputs = new OutputSet(new InputFiles(), io.stdoutWrite ?? (async (t) => io.stdout(t)));
+  if (values.out !== undefined) outputs.add('--out', values.out as string, (sink) => sink.write(text));
+  await outputs.commit();
+  if (!outputs.usesStdout) io.stdout(text);
   return 0;
 }
 
@@ -506,10 +581,14 @@ async function demoCommand(args: string[], io: Io): Promise<number> {
     io.stdout(HELP.demo + '\n');
     return 0;
   }
-  const job = readJobFile(join(demoFolder(), 'demo-job.json'));
-  const results = await runAssessment(job);
+  const inputs = new InputFiles();
+  const job = readJobFile(join(demoFolder(), 'demo-job.json'), inputs);
   const title = 'Demo (INVENTED data): utility-trailer axle, shoulder fillet, rough farm track';
-  writeOutputs(values, results, inputsOf(job), 'demo', title);
-  io.stdout(values.json ? jsonReport('demo', TOOL, results) : summaryText(results, `${title}\nThis demo uses invented data, not a measurement.`));
+  const box: { results: ChannelResult[] } = { results: [] };
+  const outputs = planOutputs(values, inputs, io, 'demo', title, box);
+  const results = await runAssessment(job, undefined, { keepLoops: false });
+  box.results = results;
+  await outputs.commit();
+  if (!outputs.usesStdout) io.stdout(values.json ? jsonReport('demo', TOOL, results) : summaryText(results, `${title}\nThis demo uses invented data, not a measurement.`));
   return 0;
 }

@@ -2,6 +2,7 @@ import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
+import type { OutputSink } from './OutputSet';
 
 /** Version of the JSON report format written by `--json` (documented in the CLI README). */
 export const JSON_REPORT_VERSION = 1;
@@ -86,39 +87,38 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
   );
 }
 
-/** The cycles CSV: one row per counted loop of every channel, with its local values and damage. */
-export function cyclesCsv(results: ChannelResult[]): string {
-  const head = [
-    'channel', 'start_sample', 'turn_sample', 'close_sample', 'start_event', 'turn_event', 'count', 'stress_max', 'stress_min',
-    'strain_max', 'strain_min', 'damage_parameter', 'cycles_to_failure', 'damage_per_repeat',
-  ];
-  const lines = [head.join(',')];
+/** The header of the cycles CSV. */
+export const CYCLES_CSV_HEADER = [
+  'channel', 'start_sample', 'turn_sample', 'close_sample', 'start_event', 'turn_event', 'count', 'stress_max', 'stress_min',
+  'strain_max', 'strain_min', 'damage_parameter', 'cycles_to_failure', 'damage_per_repeat',
+].join(',');
+
+/** Rows of the cycles CSV per piece handed to the sink (bounded memory whatever the table). */
+const CSV_ROWS_PER_PIECE = 8192;
+
+/**
+ * Writes the cycles CSV: one row per counted loop of every channel (its loop table, kept for
+ * this output), with its local values and damage, a piece of rows at a time.
+ */
+export async function writeCyclesCsv(results: ChannelResult[], sink: OutputSink): Promise<void> {
+  await sink.write(CYCLES_CSV_HEADER + '\n');
   for (const r of results) {
-    const l = r.report.loops;
-    const events = (r.report.inputs.events as { name: string }[]).map((e) => e.name);
+    const l = r.loops;
+    if (l === null) continue;
+    const events = (r.report.inputs.events as { name: string }[]).map((e) => csvText(e.name));
     const name = csvText(r.name);
-    for (let i = 0; i < l.count.length; i++) {
-      lines.push(
-        [
-          name,
-          l.startIndex[i],
-          l.turnIndex[i],
-          l.closeIndex[i],
-          csvText(l.startEvent[i] >= 0 ? events[l.startEvent[i]] : ''),
-          csvText(l.turnEvent[i] >= 0 ? events[l.turnEvent[i]] : ''),
-          l.count[i],
-          l.stressMax[i],
-          l.stressMin[i],
-          l.strainMax[i],
-          l.strainMin[i],
-          l.parameter[i],
-          l.cyclesToFailure[i] === Infinity ? 'inf' : l.cyclesToFailure[i],
-          l.damage[i],
-        ].join(','),
-      );
+    const n = l.count.length;
+    for (let from = 0; from < n; from += CSV_ROWS_PER_PIECE) {
+      const lines: string[] = [];
+      for (let i = from; i < Math.min(n, from + CSV_ROWS_PER_PIECE); i++) {
+        lines.push(
+          `${name},${l.startIndex[i]},${l.turnIndex[i]},${l.closeIndex[i]},${l.startEvent[i] >= 0 ? events[l.startEvent[i]] : ''},${l.turnEvent[i] >= 0 ? events[l.turnEvent[i]] : ''},` +
+            `${l.count[i]},${l.stressMax[i]},${l.stressMin[i]},${l.strainMax[i]},${l.strainMin[i]},${l.parameter[i]},${l.cyclesToFailure[i] === Infinity ? 'inf' : l.cyclesToFailure[i]},${l.damage[i]}`,
+        );
+      }
+      await sink.write(lines.join('\n') + '\n');
     }
   }
-  return lines.join('\n') + '\n';
 }
 
 function csvText(s: string): string {

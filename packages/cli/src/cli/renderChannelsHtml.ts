@@ -14,7 +14,8 @@ export function renderChannelsHtml(results: ChannelResult[], title: string, gene
   const channels: HtmlChannel[] = results.map((r) => ({
     name: r.name,
     unit: r.unit,
-    report: r.report,
+    // the loop table, when it was kept, for the loop count and the matrix
+    report: r.loops ? { ...r.report, loops: r.loops } : r.report,
     history: r.history,
     matrix: loopMatrix(r),
   }));
@@ -22,7 +23,8 @@ export function renderChannelsHtml(results: ChannelResult[], title: string, gene
 }
 
 function loopMatrix(r: ChannelResult): HtmlChannel['matrix'] {
-  const l = r.report.loops;
+  const l = r.loops;
+  if (l === null) return null;
   const n = l.count.length;
   if (n === 0) return null;
   let rangeMax = 0;

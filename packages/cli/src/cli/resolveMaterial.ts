@@ -1,5 +1,3 @@
-import { readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
 import {
   defineMaterial,
   estimateModifiedUniversalSlopes,
@@ -10,6 +8,9 @@ import {
   type MaterialInput,
 } from '@loopwise/material';
 import { UsageError } from './CliError';
+import { JobFieldError, materialConstants } from './checkJobFields';
+import type { FileAccess } from './FileAccess';
+import { parseJsonText } from './FileAccess';
 
 /** How a job names its material: a handbook row, a JSON file, inline constants, or an estimate. */
 export type MaterialSpec =
@@ -30,15 +31,16 @@ export const DEFAULT_STEEL_E_MPA = 207000;
 
 /**
  * Resolves a material spec. A string is a handbook row name (exact, or a unique case-insensitive
- * prefix such as "SAE 1045") or, when it ends in .json, a file of material constants. Relative
- * files are read from `baseDir`.
+ * prefix such as "SAE 1045") or, when it ends in .json, a file of material constants, read
+ * through `access` (relative to the job's folder for a job, as typed on the command line).
+ * A material file holds the constants only; unknown fields are errors.
  */
-export function resolveMaterial(spec: MaterialSpec | undefined, baseDir: string, field = 'material'): Material {
+export function resolveMaterial(spec: MaterialSpec | undefined, access: FileAccess, field = 'material'): Material {
   if (spec === undefined || spec === null) throw new UsageError(`${field}: a material is required (a handbook name, a .json file, or constants)`);
-  if (typeof spec === 'string') return spec.toLowerCase().endsWith('.json') ? fromFile(spec, baseDir, field) : handbook(spec, field);
+  if (typeof spec === 'string') return spec.toLowerCase().endsWith('.json') ? fromFile(spec, access, field) : handbook(spec, field);
   if (typeof spec !== 'object') throw new UsageError(`${field}: must be a name, a file or an object, got ${JSON.stringify(spec)}`);
   if ('handbook' in spec) return handbook(spec.handbook, `${field}.handbook`);
-  if ('file' in spec) return fromFile(spec.file, baseDir, `${field}.file`);
+  if ('file' in spec) return fromFile(spec.file, access, `${field}.file`);
   if ('estimate' in spec) return estimate(spec.estimate, `${field}.estimate`);
   return defineMaterial(spec);
 }
@@ -58,21 +60,16 @@ function handbook(name: string, field: string): Material {
   );
 }
 
-function fromFile(path: string, baseDir: string, field: string): Material {
-  const full = resolve(baseDir, path);
-  let text: string;
+function fromFile(path: string, access: FileAccess, field: string): Material {
+  const { text, shown } = access.readText(path, field);
+  const json = parseJsonText(text, shown, 'material file');
   try {
-    text = readFileSync(full, 'utf8');
-  } catch {
-    throw new UsageError(`${field}: cannot read material file ${path}`);
-  }
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
+    if (json === null || typeof json !== 'object' || Array.isArray(json)) throw new JobFieldError('', 'a material file holds one JSON object of constants');
+    materialConstants(json, '');
   } catch (error) {
-    throw new UsageError(`${path}: invalid material JSON: ${(error as Error).message}`);
+    if (error instanceof JobFieldError) throw new UsageError(`${shown}: ${error.message}`);
+    throw error;
   }
-  if (json === null || typeof json !== 'object' || Array.isArray(json)) throw new UsageError(`${path}: a material file holds one JSON object of constants`);
   return defineMaterial(json as MaterialInput);
 }
 

@@ -5,6 +5,7 @@ import {
   type CorrectionResult,
   type DutyEvent,
   type LifeJob,
+  type LifeLoopColumns,
   type LifeReport,
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
@@ -12,6 +13,7 @@ import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
+import { MemoryGuard } from './MemoryGuard';
 
 /** The result of one channel. */
 export interface ChannelResult {
@@ -23,6 +25,8 @@ export interface ChannelResult {
   /** What was read: one ingestion report per file (one, or one per event). */
   sources: IngestReport[];
   history: { index: Float64Array; value: Float64Array } | null;
+  /** The loop table of the stabilised pass (main correction), when it was kept; null otherwise. */
+  loops: LifeLoopColumns | null;
 }
 
 /** Called with the number of samples read so far, for a progress display. */
@@ -57,37 +61,104 @@ function unitLabel(c: CliChannel): string {
   return c.quantity === 'strain' ? 'strain' : 'MPa';
 }
 
+/** Settings of {@link runAssessment}. */
+export interface AssessmentSettings {
+  /** Keep the loop table of each channel (for `--cycles-out` and the HTML matrix); default true. */
+  keepLoops?: boolean;
+  /** The memory limit to keep; default: {@link MemoryGuard}'s default. */
+  guard?: MemoryGuard;
+}
+
+/** The corrections of `--mean-stress all` for a job (Walker needs γ or Su). */
+function correctionsOf(job: CliJob): DamageParameterName[] {
+  const all: DamageParameterName[] = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker'];
+  return all.filter((c) => c !== 'walker' || job.walkerGamma !== undefined || job.material.Su !== undefined);
+}
+
+/** The report without its loop table (the loops go to the loop table of the result). */
+function withoutLoops(report: LifeReport): LifeReport {
+  const empty = Object.fromEntries(Object.entries(report.loops).map(([k, v]) => [k, (v as Float64Array).subarray(0, 0).slice()])) as unknown as LifeLoopColumns;
+  return { ...report, loops: empty };
+}
+
+function correctionOf(report: LifeReport): CorrectionResult {
+  return {
+    meanStress: report.damage.meanStress as DamageParameterName,
+    damagePerRepeat: report.damage.perRepeat,
+    firstPassDamage: report.damage.firstPass,
+    life: report.life,
+    warnings: report.warnings.map((w) => w.code),
+  };
+}
+
 /**
- * Runs a job: one file streamed through one life session per channel (two reads of the file
- * for a repeating history; with `keepLoops: false` memory does not grow with the file, and the
- * reports list the worst loops but no loop table), or a duty cycle of event files
- * (each event read whole). With `meanStress: 'all'` the histories are held in memory and every
- * correction is assessed side by side.
+ * Runs a job. One file is streamed (twice for a repeating history: the second read goes up to
+ * the largest |value|; three times with a gate fraction and no declared full scale, the first
+ * read finding the range): each channel's loops are folded into running totals as they close
+ * (one life session per channel and correction, `--mean-stress all` included), so the report's
+ * damage does not depend on whether the loop table is kept, and memory does not grow with the
+ * file except by the loop table when `keepLoops` (about 120 bytes per loop). A duty cycle of
+ * event files is read whole (refused up front when its estimate exceeds the memory limit).
+ * Reports come without their loop table; it is the result's `loops`.
  */
-export async function runAssessment(job: CliJob, progress?: Progress, settings: { keepLoops?: boolean } = {}): Promise<ChannelResult[]> {
+export async function runAssessment(job: CliJob, progress?: Progress, settings: AssessmentSettings = {}): Promise<ChannelResult[]> {
   const main: DamageParameterName = job.meanStress === 'all' ? 'smithWatsonTopper' : job.meanStress;
-  if (job.events !== null) return runDutyCycle(job, main);
-  const file = job.file as string;
-  if (job.meanStress === 'all' || !job.repeating || job.gateFraction !== undefined && job.fullScale === undefined) {
-    return runInMemory(job, file, main);
-  }
-  // without a loop table to write, loops are folded into running totals: memory stays flat
+  const guard = settings.guard ?? new MemoryGuard();
   const keepLoops = settings.keepLoops ?? true;
-  const sessions = job.channels.map((c) => new LifeSession(lifeJobOf(job, c, main), { keepLoops }));
+  if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
+  const file = job.file as string;
+  const name = job.fileShown ?? file;
+  const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}) };
+  const at = (chunk: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${chunk.firstSample + chunk.length})`;
+  // a gate fraction without a declared full scale: a first read finds each channel's range
+  const fullScales: (number | undefined)[] = job.channels.map(() => job.fullScale);
+  if (job.gateFraction !== undefined && job.fullScale === undefined) {
+    const lo = job.channels.map(() => Infinity);
+    const hi = job.channels.map(() => -Infinity);
+    await readDelimitedParallel(file, {
+      ...options,
+      checks: false,
+      onChunk: (chunk) => {
+        chunk.channels.forEach((v, k) => {
+          for (let i = 0; i < v.length; i++) {
+            if (v[i] < lo[k]) lo[k] = v[i];
+            if (v[i] > hi[k]) hi[k] = v[i];
+          }
+        });
+        guard.check(at(chunk));
+      },
+    });
+    job.channels.forEach((_, k) => (fullScales[k] = hi[k] > lo[k] ? hi[k] - lo[k] : undefined));
+  }
+  const jobOf = (c: CliChannel, k: number, ms: DamageParameterName): LifeJob => {
+    const j = lifeJobOf(job, c, ms);
+    if (job.gateFraction !== undefined && job.fullScale === undefined) {
+      if (fullScales[k] === undefined) {
+        delete j.gateFraction;
+        j.gate = 0; // a constant history: no range, nothing to gate
+      } else j.fullScale = fullScales[k];
+    }
+    return j;
+  };
+  const corrections = job.meanStress === 'all' ? correctionsOf(job) : [main];
+  // per channel: one session per correction (loops folded), and one keeping the loop table
+  const sessions = job.channels.map((c, k) => corrections.map((ms) => new LifeSession(jobOf(c, k, ms), { keepLoops: false })));
+  const tables = job.channels.map((c, k) => (keepLoops ? new LifeSession(jobOf(c, k, main), { keepLoops: true }) : null));
+  const all = sessions.map((list, k) => (tables[k] ? [...list, tables[k] as LifeSession] : list));
   const displays = job.channels.map(() => new DisplayHistory());
-  const options = { channels: job.channels, ...(job.time ? { time: job.time } : {}) };
   // parsing runs on a second core while the sessions assess the chunks here
   const first = await readDelimitedParallel(file, {
     ...options,
     onChunk: (chunk) => {
       chunk.channels.forEach((values, k) => {
-        sessions[k].push(values);
+        for (const s of all[k]) s.push(values);
         displays[k].push(values, chunk.firstSample);
       });
+      guard.check(at(chunk));
       progress?.(chunk.firstSample + chunk.length, 1);
     },
   });
-  const need = Math.max(...sessions.map((s) => s.endFirstPass()));
+  const need = Math.max(...all.flat().map((s) => s.endFirstPass()));
   if (need > 0) {
     // the stabilised pass needs the samples up to the largest |value| once more: read them again
     await readDelimitedParallel(file, {
@@ -95,46 +166,39 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       checks: false,
       onChunk: (chunk) => {
         chunk.channels.forEach((values, k) => {
-          const left = sessions[k].secondPassSamples - chunk.firstSample;
-          if (left > 0) sessions[k].pushSecondPass(left >= values.length ? values : values.subarray(0, left));
+          for (const s of all[k]) {
+            const left = s.secondPassSamples - chunk.firstSample;
+            if (left > 0) s.pushSecondPass(left >= values.length ? values : values.subarray(0, left));
+          }
         });
+        guard.check(at(chunk));
         progress?.(chunk.firstSample + chunk.length, 2);
       },
       stopAfterSamples: need,
     });
   }
-  return job.channels.map((c, k) => ({
-    name: first.channels[k].name,
-    unit: unitLabel(c),
-    report: sessions[k].finish(),
-    corrections: null,
-    sources: [first],
-    history: displays[k].points(),
-  }));
-}
-
-async function runInMemory(job: CliJob, file: string, main: DamageParameterName): Promise<ChannelResult[]> {
-  const { report: source, channels } = await readDelimitedColumns(file, { channels: job.channels, ...(job.time ? { time: job.time } : {}) });
   return job.channels.map((c, k) => {
-    const events: DutyEvent[] = [{ name: 'history', history: channels[k], repeats: 1 }];
-    const display = new DisplayHistory();
-    display.push(channels[k], 0);
+    const reports = sessions[k].map((s) => s.finish());
+    const report = reports[corrections.indexOf(main)];
     return {
-      name: source.channels[k].name,
+      name: first.channels[k].name,
       unit: unitLabel(c),
-      report: assessDutyCycle(events, lifeJobOf(job, c, main)),
-      corrections: job.meanStress === 'all' ? compareCorrections(events, lifeJobOf(job, c, main)) : null,
-      sources: [source],
-      history: display.points(),
+      report,
+      corrections: job.meanStress === 'all' ? reports.map(correctionOf) : null,
+      sources: [first],
+      history: displays[k].points(),
+      loops: tables[k] ? tables[k].finish().loops : null,
     };
   });
 }
 
-async function runDutyCycle(job: CliJob, main: DamageParameterName): Promise<ChannelResult[]> {
+async function runDutyCycle(job: CliJob, main: DamageParameterName, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
   const events = job.events!;
   if (events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
+  guard.checkInMemory(events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })), job.channels.length, 'a duty cycle');
   const read: Awaited<ReturnType<typeof readDelimitedColumns>>[] = [];
-  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, ...(job.time ? { time: job.time } : {}) }));
+  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}) }));
+  guard.check(() => 'after reading the events');
   return job.channels.map((c, k) => {
     const duty: DutyEvent[] = events.map((e, j) => {
       const d: DutyEvent = { name: e.name, history: read[j].channels[k], repeats: e.repeats };
@@ -147,13 +211,15 @@ async function runDutyCycle(job: CliJob, main: DamageParameterName): Promise<Cha
       display.push(d.history as Float64Array, at);
       at += d.history.length;
     }
+    const full = assessDutyCycle(duty, lifeJobOf(job, c, main));
     return {
       name: read[0].report.channels[k].name,
       unit: unitLabel(c),
-      report: assessDutyCycle(duty, lifeJobOf(job, c, main)),
+      report: withoutLoops(full),
       corrections: job.meanStress === 'all' ? compareCorrections(duty, lifeJobOf(job, c, main)) : null,
       sources: read.map((r) => r.report),
       history: display.points(),
+      loops: keepLoops ? full.loops : null,
     };
   });
 }

@@ -1,6 +1,7 @@
 import type { ChunkAssembler } from './ChunkAssembler.js';
 import type { DelimiterName } from './detectDialect.js';
 import { firstInvalidUtf8 } from './detectDialect.js';
+import { excerpt } from './excerpt.js';
 import { IngestError } from './IngestError.js';
 import { parseDecimal } from './parseDecimal.js';
 
@@ -233,13 +234,13 @@ export function classifyBadCell(
 /** The error for a cell's text that is not a finite decimal number. */
 export function classifyBadText(text: string, file: string, line: number, column: number, decimalComma: boolean, name?: string): IngestError {
   const t = text.trim();
-  const shown = JSON.stringify(t.length > 40 ? `${t.slice(0, 40)}…` : t);
+  const shown = excerpt(t);
   if (t === '') return new IngestError('LW_INGEST_EMPTY_CELL', file, line, column, 'empty cell where a number is expected', name);
   if (/^[+-]?(nan|inf|infinity)$/i.test(t))
     return new IngestError('LW_INGEST_NON_FINITE', file, line, column, `${shown} is not a finite number (NaN and Infinity are not samples)`, name);
   const v = Number(decimalComma ? t.replace(',', '.') : t);
-  if ((v === Infinity || v === -Infinity) && /^[+-]?[\d.,]+[eE][+-]?\d+$/.test(t))
-    return new IngestError('LW_INGEST_NON_FINITE', file, line, column, `${shown} overflows a double (|value| > 1.8e308)`, name);
+  if ((v === Infinity || v === -Infinity) && /^[+-]?(\d+[.,]?\d*|[.,]\d+)([eE][+-]?\d+)?$/.test(t))
+    return new IngestError('LW_INGEST_OVERFLOW', file, line, column, `overflow: the number ${shown} (${t.length} characters) lies beyond a double's range (|value| > 1.8e308)`, name);
   const hint = !decimalComma && /^[+-]?\d+,\d+$/.test(t) ? ' (a decimal comma? the dialect says the decimal point is ".")' : decimalComma && t.includes('.') ? ' (the dialect says the decimal separator is ",")' : '';
   return new IngestError('LW_INGEST_NON_NUMERIC', file, line, column, `non-numeric cell ${shown}${hint}`, name);
 }

@@ -1,3 +1,5 @@
+import { excerpt } from './excerpt.js';
+
 /**
  * The error class of ingestion. Every problem with an input file is an `IngestError` with a
  * stable `code` for programs and the place for people: the file, the 1-based line and the
@@ -21,7 +23,11 @@ export type IngestErrorCode =
   | 'LW_INGEST_INVALID_UTF8'
   | 'LW_INGEST_UNKNOWN_COLUMN'
   | 'LW_INGEST_MALFORMED_QUOTES'
-  | 'LW_INGEST_READ_FAILED';
+  | 'LW_INGEST_READ_FAILED'
+  | 'LW_INGEST_OVERFLOW'
+  | 'LW_INGEST_CR_LINE_ENDS'
+  | 'LW_INGEST_DUPLICATE_COLUMN'
+  | 'LW_INGEST_LINE_TOO_LONG';
 
 /**
  * A problem with an input file, located by file, line and column (1-based field number).
@@ -51,7 +57,7 @@ function where(file: string, line: number, column: number, columnName?: string):
   let s = file;
   if (line > 0) s += `, line ${line}`;
   if (column > 0) s += `, column ${column}`;
-  if (column > 0 && columnName !== undefined && columnName !== '') s += ` ("${columnName}")`;
+  if (column > 0 && columnName !== undefined && columnName !== '') s += ` (${excerpt(columnName)})`;
   return s;
 }
 

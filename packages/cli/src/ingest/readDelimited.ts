@@ -5,6 +5,7 @@ import { ChunkAssembler } from './ChunkAssembler.js';
 import { channelConversion, type ChannelConversion, type ChannelQuantity } from './channelConversion.js';
 import { DELIMITER_CHARACTERS, detectDialect, type Dialect, type DialectOverride } from './detectDialect.js';
 import { classifyBadText, FastNumericScanner, SCAN_QUOTED, type ScannerLayout } from './FastNumericScanner.js';
+import { excerpt } from './excerpt.js';
 import { IngestError, IngestOptionError } from './IngestError.js';
 import { parseDecimalText } from './parseDecimal.js';
 import { SignalChecks, type SignalCheckThresholds, type SignalWarning } from './SignalChecks.js';
@@ -62,6 +63,8 @@ export interface IngestOptions {
    * delivered whole); default: read the whole file. For a second read of a prefix.
    */
   stopAfterSamples?: number;
+  /** The file's name in messages and in the report. Default: `path`. */
+  name?: string;
 }
 
 /** Thrown inside the reading loop to stop at `stopAfterSamples` (internal). */
@@ -97,6 +100,18 @@ export interface IngestReport {
 export const DEFAULT_CHUNK_BYTES = 1 << 20;
 export const DEFAULT_CHUNK_SAMPLES = 65536;
 const DEFAULT_DETECTION_BYTES = 1 << 16;
+/** Longest first line searched for a line end, bytes (the detection reads no more). */
+const MAX_LINE_BYTES = 64 << 20;
+
+/**
+ * Line ends of carriage returns alone (old Mac text) are reported as such: a CR inside the
+ * sample with no line feed anywhere in it (a line feed ends every line of LF or CRLF text).
+ */
+function crOnly(sample: Buffer, file: string): void {
+  const cr = sample.indexOf(13);
+  if (cr < 0 || sample.indexOf(10) >= 0 || cr === sample.length - 1) return;
+  throw new IngestError('LW_INGEST_CR_LINE_ENDS', file, 1, 0, 'the lines end in a carriage return alone (old Mac text); loopwise reads LF or CRLF line ends: convert the file (e.g. tr \'\\r\' \'\\n\')');
+}
 
 /**
  * Reads the selected columns of a delimited numeric file (comma, semicolon, tab or whitespace;
@@ -129,7 +144,7 @@ const DEFAULT_DETECTION_BYTES = 1 << 16;
  * // returns 'microstrain ÷ 10^6 to strain'
  */
 export async function readDelimited(path: string, options: IngestOptions): Promise<IngestReport> {
-  const file = path;
+  const file = options.name ?? path;
   const chunkBytes = positiveInteger(options.chunkBytes ?? DEFAULT_CHUNK_BYTES, 'chunkBytes');
   const chunkSamples = positiveInteger(options.chunkSamples ?? DEFAULT_CHUNK_SAMPLES, 'chunkSamples');
   const detectionBytes = positiveInteger(options.detectionBytes ?? DEFAULT_DETECTION_BYTES, 'detectionBytes');
@@ -164,8 +179,13 @@ export async function readDelimited(path: string, options: IngestOptions): Promi
       const { bytesRead } = await handle.read(sample, 0, want, 0);
       sample = sample.subarray(0, bytesRead);
       if (bytesRead >= size || sample.lastIndexOf(10) >= 0 || want >= size) break;
-      want = Math.min(size, want * 4);
+      // no line feed yet: old Mac line ends (CR only), or a very long first line
+      if (sample.indexOf(13) >= 0 && sample.indexOf(13) < sample.length - 1) break;
+      if (want >= MAX_LINE_BYTES)
+        throw new IngestError('LW_INGEST_LINE_TOO_LONG', file, 1, 0, `no line end in the first ${MAX_LINE_BYTES >> 20} MiB: not a delimited text file, or a line far too long`);
+      want = Math.min(size, want * 4, MAX_LINE_BYTES);
     }
+    crOnly(sample, file);
     const wholeFile = sample.length >= size;
     if (!wholeFile) {
       const cut = sample.lastIndexOf(10);
@@ -493,6 +513,10 @@ function resolveColumn(ref: ColumnReference, dialect: Dialect, file: string, fie
   }
   if (typeof ref !== 'string') throw new IngestOptionError(field, ref, 'a header name (string) or a 1-based column index (number)');
   const k = dialect.header ? dialect.names.indexOf(ref) : -1;
+  if (k >= 0 && dialect.names.lastIndexOf(ref) !== k) {
+    const at = dialect.names.flatMap((n, j) => (n === ref ? [j + 1] : []));
+    throw new IngestError('LW_INGEST_DUPLICATE_COLUMN', file, dialect.headerLine, 0, `the header names ${at.length} columns ${excerpt(ref)} (columns ${at.join(', ')}); choose one by its number`);
+  }
   if (k < 0) {
     const detail = dialect.header
       ? `unknown column "${ref}"; the columns are ${listNames(dialect)}`
@@ -502,8 +526,11 @@ function resolveColumn(ref: ColumnReference, dialect: Dialect, file: string, fie
   return k;
 }
 
+/** The columns for a message: at most 12, each name a short sanitized excerpt. */
 function listNames(dialect: Dialect): string {
-  return dialect.names.map((n, k) => `${k + 1} "${n}"`).join(', ');
+  const shown = dialect.names.slice(0, 12).map((n, k) => `${k + 1} ${excerpt(n)}`);
+  if (dialect.names.length > 12) shown.push(`… (${dialect.names.length} in all)`);
+  return shown.join(', ');
 }
 
 function wrongDelimiter(sample: Buffer, dialect: Dialect, file: string): IngestError {
@@ -525,7 +552,7 @@ function wrongDelimiter(sample: Buffer, dialect: Dialect, file: string): IngestE
     file,
     lineNo,
     1,
-    `wrong delimiter: one column found with ${dialect.delimiter} (${JSON.stringify(DELIMITER_CHARACTERS[dialect.delimiter])}) where several are selected; the line reads ${JSON.stringify(shown.slice(0, 60))} (other delimiters: ${other.join(', ')})`,
+    `wrong delimiter: one column found with ${dialect.delimiter} (${JSON.stringify(DELIMITER_CHARACTERS[dialect.delimiter])}) where several are selected; the line reads ${excerpt(shown)} (other delimiters: ${other.join(', ')})`,
   );
 }
 

@@ -166,7 +166,9 @@ describe('readDelimited(path, options): bad input names file, line and column', 
       expect(e.message).toBe(`${p}, line 3, column 2 ("s"): "${bad}" is not a finite number (NaN and Infinity are not samples)`);
     }
     const p = file('t,s\n0,1e400\n');
-    expect((await failure(p)).message).toBe(`${p}, line 2, column 2 ("s"): "1e400" overflows a double (|value| > 1.8e308)`);
+    const e = await failure(p);
+    expect(e.code).toBe('LW_INGEST_OVERFLOW');
+    expect(e.message).toBe(`${p}, line 2, column 2 ("s"): overflow: the number "1e400" (5 characters) lies beyond a double's range (|value| > 1.8e308)`);
   });
 
   it('an empty cell', async () => {
