@@ -1,6 +1,7 @@
-import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { accessSync, constants, readFileSync, realpathSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { UsageError } from './CliError';
+import { jsonErrorOffset } from './jsonErrorOffset';
 import { FileError, fileErrorOf } from './FileError';
 import type { InputFiles } from './InputFiles';
 
@@ -45,6 +46,7 @@ export class FileAccess {
   resolve(path: string, field: string): ResolvedFile {
     if (this.job === null) {
       const real = this.inputs.add(resolve(path), path);
+      readable(real, path);
       return { path: real, shown: path };
     }
     const { shown: jobShown, folder, realFolder } = this.job;
@@ -62,6 +64,7 @@ export class FileAccess {
     if (!this.anywhere && !inside(realFolder, real))
       throw new UsageError(`${jobShown}: ${field}: ${JSON.stringify(path)} leads outside the job file's folder through a link; a job reads such paths only when the command is given ${OUTSIDE_OPTION}`);
     this.inputs.add(real, shown);
+    readable(real, shown);
     return { path: real, shown };
   }
 
@@ -81,6 +84,14 @@ export class FileAccess {
 /** Largest job or material file read, bytes. */
 const MAX_TEXT_BYTES = 16 << 20;
 
+function readable(path: string, shown: string): void {
+  try {
+    accessSync(path, constants.R_OK);
+  } catch (error) {
+    throw fileErrorOf(error, shown, 'read the file');
+  }
+}
+
 function inside(folder: string, path: string): boolean {
   const r = relative(folder, path);
   return r !== '' && !r.startsWith('..' + sep) && r !== '..' && !isAbsolute(r);
@@ -93,14 +104,14 @@ function inside(folder: string, path: string): boolean {
 export function parseJsonText(text: string, shown: string, what: string): unknown {
   try {
     return JSON.parse(text);
-  } catch (error) {
-    const m = /position (\d+)/.exec((error as Error).message);
+  } catch {
+    const at = jsonErrorOffset(text);
     let where = '';
-    if (m) {
-      const before = text.slice(0, Number(m[1]));
-      const line = before.split('\n').length;
-      where = ` at line ${line}, column ${before.length - before.lastIndexOf('\n')}`;
-    } else if (/end of JSON input/i.test((error as Error).message)) where = ': it ends too early';
+    if (at >= text.length) where = ': it ends too early';
+    else if (at >= 0) {
+      const before = text.slice(0, at);
+      where = ` at line ${before.split('\n').length}, column ${at - before.lastIndexOf('\n')}`;
+    }
     throw new UsageError(`${shown}: invalid JSON in the ${what}${where}`);
   }
 }

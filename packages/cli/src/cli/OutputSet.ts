@@ -4,7 +4,7 @@ import { open, type FileHandle } from 'node:fs/promises';
 import { basename, dirname, join, resolve } from 'node:path';
 import { FileError, fileErrorOf } from './FileError';
 import type { InputFiles } from './InputFiles';
-import { holdTemporary, releaseTemporary, removeTemporary } from './temporaries';
+import { holdTemporary, noteOutputsWritten, releaseTemporary, removeTemporary } from './temporaries';
 
 /** Where an output's text goes, piece by piece (awaiting each piece bounds the memory). */
 export interface OutputSink {
@@ -164,6 +164,7 @@ export class OutputSet {
         }
         releaseTemporary(temp);
       }
+      noteOutputsWritten();
     } finally {
       for (const { temp } of temps) removeTemporary(temp);
     }

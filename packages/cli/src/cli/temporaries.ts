@@ -33,6 +33,13 @@ export function removeAllTemporaries(): void {
   for (const p of [...live]) removeTemporary(p);
 }
 
+let written = false;
+
+/** The run's outputs are in place (a signal from now on stops a run that left complete outputs). */
+export function noteOutputsWritten(): void {
+  written = true;
+}
+
 const SIGNAL_EXIT: Record<string, number> = { SIGINT: 130, SIGTERM: 143, SIGHUP: 129 };
 let installed = false;
 
@@ -47,7 +54,11 @@ export function installCleanup(stderr: (text: string) => void): void {
   for (const signal of Object.keys(SIGNAL_EXIT) as NodeJS.Signals[]) {
     process.on(signal, () => {
       removeAllTemporaries();
-      stderr(`loopwise: stopped by ${signal}; its temporary files were removed (outputs are moved into place only when all are complete)\n`);
+      stderr(
+        written
+          ? `loopwise: stopped by ${signal} after its outputs were written (they are complete)\n`
+          : `loopwise: stopped by ${signal}; no output was written and its temporary files were removed\n`,
+      );
       process.exit(SIGNAL_EXIT[signal]);
     });
   }
