@@ -46,7 +46,10 @@ Model:
   --critical-damage <x>    damage sum at failure (default 1)
   --service "<x> <unit>"   service one repeat stands for, e.g. "0.5 h" or "12 km"
   --job <file>             take all of the above from a job file (see the CLI README)
-Outputs (written atomically; an input file is never overwritten):
+  --job-may-read-anywhere  let the job name files outside its own folder (off: they are refused)
+  --memory-limit <MB>      stop with an error before using more memory (default 1024)
+The file may be - (standard input).
+Outputs (all or nothing, never over a file the run reads; - is standard output):
   --json                   print the JSON report instead of the summary
   --json-out <file>        write the JSON report
   --cycles-out <file>      write the loops as CSV
@@ -71,6 +74,8 @@ Usage: loopwise count <file> [options]
   --matrix-out <file>      write the range-mean matrix (format loopwise-cycle-matrix, version 1)
   --cycles-out <file>      write every cycle as CSV
   --json                   print the summary as JSON
+  --memory-limit <MB>      stop with an error before using more memory (default 1024)
+The file may be - (standard input); an output may be - (standard output).
 
 Examples:
   loopwise count fillet.csv --column strain_ue --quantity strain --unit microstrain --matrix-out fillet-matrix.json
