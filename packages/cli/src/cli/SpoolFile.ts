@@ -67,6 +67,13 @@ export class SpoolFile {
     for await (const piece of createReadStream(this.path, { encoding: 'utf8', highWaterMark: 1 << 20 })) await sink.write(piece as string);
   }
 
+  /** Copies bytes `[start, end)` of the spooled text into an output, a piece at a time. */
+  async copyRangeTo(sink: OutputSink, start: number, end: number): Promise<void> {
+    this.close();
+    if (end <= start) return;
+    for await (const piece of createReadStream(this.path, { encoding: 'utf8', start, end: end - 1, highWaterMark: 1 << 20 })) await sink.write(piece as string);
+  }
+
   /** Removes the spool now. */
   remove(): void {
     if (this.fd >= 0) closeSync(this.fd);

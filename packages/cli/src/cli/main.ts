@@ -333,7 +333,11 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined, guard });
   box.results = results;
   if (progress) io.stderr('\r\x1b[K');
-  await outputs.commit();
+  try {
+    await outputs.commit();
+  } finally {
+    for (const r of results) r.loopStream?.remove();
+  }
   if (!outputs.usesStdout) io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));
   return 0;
 }
@@ -344,8 +348,8 @@ function planOutputs(values: Record<string, unknown>, inputs: InputFiles, io: Io
   if (values['json-out'] !== undefined) outputs.add('--json-out', values['json-out'] as string, (sink) => sink.write(jsonReport(command, TOOL, box.results)));
   if (values['cycles-out'] !== undefined) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => writeCyclesCsv(box.results, sink));
   if (values['html-out'] !== undefined)
-    outputs.add('--html-out', values['html-out'] as string, (sink) =>
-      sink.write(renderChannelsHtml(box.results, title ?? `loopwise ${command}: ${box.results.map((r) => r.name).join(', ')}`, TOOL)),
+    outputs.add('--html-out', values['html-out'] as string, async (sink) =>
+      sink.write(await renderChannelsHtml(box.results, title ?? `loopwise ${command}: ${box.results.map((r) => r.name).join(', ')}`, TOOL)),
     );
   if (outputs.usesStdout && values.json) throw new UsageError('--json: the report cannot go to standard output when an output file is "-"');
   return outputs;

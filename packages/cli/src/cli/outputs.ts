@@ -103,6 +103,10 @@ const CSV_ROWS_PER_PIECE = 8192;
 export async function writeCyclesCsv(results: ChannelResult[], sink: OutputSink): Promise<void> {
   await sink.write(CYCLES_CSV_HEADER + '\n');
   for (const r of results) {
+    if (r.loopStream) {
+      await r.loopStream.copyTo(sink, `${csvText(r.name)},`);
+      continue;
+    }
     const l = r.loops;
     if (l === null) continue;
     const events = (r.report.inputs.events as { name: string }[]).map((e) => csvText(e.name));

@@ -10,32 +10,49 @@ const BINS = 20;
  * the range-mean matrix of the loops the engine counted at the notch root (local strain range
  * against local mean stress, loops per repeat), which is what the damage was computed from.
  */
-export function renderChannelsHtml(results: ChannelResult[], title: string, generatedBy: string): string {
-  const channels: HtmlChannel[] = results.map((r) => ({
-    name: r.name,
-    unit: r.unit,
-    // the loop table, when it was kept, for the loop count and the matrix
-    report: r.loops ? { ...r.report, loops: r.loops } : r.report,
-    history: r.history,
-    matrix: loopMatrix(r),
-  }));
+export async function renderChannelsHtml(results: ChannelResult[], title: string, generatedBy: string): Promise<string> {
+  const channels: HtmlChannel[] = [];
+  for (const r of results) {
+    const loops = await loopSummary(r);
+    channels.push({
+      name: r.name,
+      unit: r.unit,
+      report: r.report,
+      history: r.history,
+      matrix: loops?.matrix ?? null,
+      loopTotals: loops ? { cycles: loops.cycles, rows: loops.rows } : null,
+    });
+  }
   return renderHtmlReport({ title, generatedBy, channels });
 }
 
-function loopMatrix(r: ChannelResult): HtmlChannel['matrix'] {
+/** Calls `each(strainRange, meanStress, count)` for every kept loop (the duty cycle's table, or the spooled stream). */
+async function forEachLoop(r: ChannelResult, each: (range: number, mean: number, count: number) => void): Promise<void> {
+  if (r.loopStream) return r.loopStream.forEachLoop(each);
   const l = r.loops;
-  if (l === null) return null;
-  const n = l.count.length;
-  if (n === 0) return null;
+  if (l === null) return;
+  for (let i = 0; i < l.count.length; i++) each(l.strainMax[i] - l.strainMin[i], (l.stressMax[i] + l.stressMin[i]) / 2, l.count[i]);
+}
+
+/** The loop matrix and totals, in two passes over the kept loops (none kept: null). */
+async function loopSummary(r: ChannelResult): Promise<{ matrix: HtmlChannel['matrix']; cycles: number; rows: number } | null> {
+  if (r.loops === null && r.loopStream === null) return null;
   let rangeMax = 0;
   let meanLo = Infinity;
   let meanHi = -Infinity;
-  for (let i = 0; i < n; i++) {
-    rangeMax = Math.max(rangeMax, l.strainMax[i] - l.strainMin[i]);
-    const mean = (l.stressMax[i] + l.stressMin[i]) / 2;
+  let rows = 0;
+  let cycles = 0;
+  await forEachLoop(r, (range, mean, count) => {
+    rangeMax = Math.max(rangeMax, range);
     meanLo = Math.min(meanLo, mean);
     meanHi = Math.max(meanHi, mean);
-  }
+    rows++;
+    cycles += count;
+  });
+  return { matrix: rows === 0 ? null : await loopMatrix(r, rangeMax, meanLo, meanHi), cycles, rows };
+}
+
+async function loopMatrix(r: ChannelResult, rangeMax: number, meanLo: number, meanHi: number): Promise<HtmlChannel['matrix']> {
   if (!(rangeMax > 0)) return null;
   if (!(meanHi > meanLo)) {
     meanLo -= 1;
@@ -44,11 +61,9 @@ function loopMatrix(r: ChannelResult): HtmlChannel['matrix'] {
   const rowEdges = binEdges({ count: BINS, min: 0, max: rangeMax }, 'range');
   const columnEdges = binEdges({ count: BINS, min: meanLo, max: meanHi }, 'mean');
   const counts = new Float64Array(BINS * BINS);
-  for (let i = 0; i < n; i++) {
+  await forEachLoop(r, (range, mean, count) => {
     // every loop lies within the edges (they are its own extremes), so none is lost
-    const row = binIndex(rowEdges, l.strainMax[i] - l.strainMin[i]);
-    const column = binIndex(columnEdges, (l.stressMax[i] + l.stressMin[i]) / 2);
-    counts[row * BINS + column] += l.count[i];
-  }
+    counts[binIndex(rowEdges, range) * BINS + binIndex(columnEdges, mean)] += count;
+  });
   return { rowEdges, columnEdges, counts, rowLabel: 'local strain range', columnLabel: 'local mean stress (MPa)' };
 }

@@ -13,6 +13,7 @@ import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
+import { LoopStream } from './LoopStream';
 import { MemoryGuard } from './MemoryGuard';
 
 /** The result of one channel. */
@@ -25,8 +26,10 @@ export interface ChannelResult {
   /** What was read: one ingestion report per file (one, or one per event). */
   sources: IngestReport[];
   history: { index: Float64Array; value: Float64Array } | null;
-  /** The loop table of the stabilised pass (main correction), when it was kept; null otherwise. */
+  /** The loop table of the stabilised pass (main correction) of a duty cycle, when it was kept; null otherwise. */
   loops: LifeLoopColumns | null;
+  /** The loops of a streamed file, spooled on disk, when they were kept; null otherwise. */
+  loopStream: LoopStream | null;
 }
 
 /** Called with the number of samples read so far, for a progress display. */
@@ -143,8 +146,9 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const corrections = job.meanStress === 'all' ? correctionsOf(job) : [main];
   // per channel: one session per correction (loops folded), and one keeping the loop table
   const sessions = job.channels.map((c, k) => corrections.map((ms) => new LifeSession(jobOf(c, k, ms), { keepLoops: false })));
-  const tables = job.channels.map((c, k) => (keepLoops ? new LifeSession(jobOf(c, k, main), { keepLoops: true }) : null));
-  const all = sessions.map((list, k) => (tables[k] ? [...list, tables[k] as LifeSession] : list));
+  // and, for --cycles-out, a loop stream that spools the loop rows to disk as they close
+  const tables = job.channels.map((c, k) => (keepLoops ? new LoopStream(jobOf(c, k, main)) : null));
+  const all: (LifeSession | LoopStream)[][] = sessions.map((list, k) => (tables[k] ? [...list, tables[k] as LoopStream] : list));
   const displays = job.channels.map(() => new DisplayHistory());
   // parsing runs on a second core while the sessions assess the chunks here
   const first = await readDelimitedParallel(file, {
@@ -187,7 +191,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       corrections: job.meanStress === 'all' ? reports.map(correctionOf) : null,
       sources: [first],
       history: displays[k].points(),
-      loops: tables[k] ? tables[k].finish().loops : null,
+      loops: null,
+      loopStream: tables[k]?.finish() ?? null,
     };
   });
 }
@@ -220,6 +225,7 @@ async function runDutyCycle(job: CliJob, main: DamageParameterName, guard: Memor
       sources: read.map((r) => r.report),
       history: display.points(),
       loops: keepLoops ? full.loops : null,
+      loopStream: null,
     };
   });
 }

@@ -37,6 +37,11 @@ export interface HtmlChannel {
   history: HtmlHistory | null;
   /** The rainflow range-mean matrix of the history; `null` leaves the matrix plot empty. */
   matrix: HtmlMatrix | null;
+  /**
+   * Loops per repeat (the sum of counts) and loop rows, when the loops were kept apart from the
+   * report (`--cycles-out`); default: counted from `report.loops`.
+   */
+  loopTotals?: { cycles: number; rows: number } | null;
 }
 
 /** Everything {@link renderHtmlReport} draws. */
