@@ -14,6 +14,16 @@ const ANSWER_BITS = [8, 9];
 const ANSWER_MARGIN = 10;
 /** Doubles per answer cell: left end, 1 / width, four cubic coefficients of σ, four of ε. */
 const ANSWER_STRIDE = 10;
+/** Cells per binade of the strain's curve tables (the cyclic-curve inverse for `local-strain` and `linear`). */
+const CURVE_BITS = 8;
+/** Doubles per curve cell: left end, 1 / width, four cubic coefficients of σ. */
+const CURVE_STRIDE = 6;
+/**
+ * Cyclic-curve solves a solver does before it builds (or fetches) the curve table: building
+ * costs about as much as this many solves (nodes plus the check at three points per cell), so
+ * a call with few reversals never pays for a table and a long one pays at most twice.
+ */
+const CURVE_AFTER = 1 << 15;
 /** Index of the 32-bit word of a binary64 that holds its sign, exponent and leading bits. */
 const HI_WORD = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
 
@@ -42,7 +52,15 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * three quarters across, where a cubic Hermite piece errs most); the solver uses it only when
  * the tolerance is at least ANSWER_MARGIN × that worst error (in practice tolerances from
  * about 2e-11 up). Answer tables are built once per material and rule and shared.
- * Linear rule and local strain use the cyclic-curve inverse of @loopwise/material.
+ * Linear rule and local strain solve the cyclic-curve inverse σ(ε) (ε = a/E for the linear
+ * rule): by `cyclicStress` of @loopwise/material (to about 1e-15) until the solver has done
+ * CURVE_AFTER solves, then from a curve table when one serves the tolerance: cubic Hermite
+ * pieces of σ(ε), 2^8 cells per binade of ε from where the plastic strain is 1e-17 of the
+ * elastic one (below, σ = E·ε to rounding) to e^12 times the strain where the two are equal,
+ * nodes from `cyclicStress`, slopes dσ/dε = 1 / (1/E + (ε − σ/E)/(n'·σ)); its error is measured
+ * against `cyclicStress` at three points in every cell, and it is used when the tolerance is
+ * at least ANSWER_MARGIN × that worst error (the strain itself stays exact). Beyond the table
+ * the exact inverse runs. Curve tables are built once per material and shared by both kinds.
  */
 export class BranchSolver {
   /** Input of {@link solve}: the pseudo-elastic (or strain) amplitude. */
@@ -72,6 +90,12 @@ export class BranchSolver {
   private readonly ansKeyLo: number = 0;
   private readonly ansCells: number = 0;
   private readonly ansShift: number = 0;
+  /** The curve table in use (empty until built or when none serves), its first cell key and cells. */
+  private curve: Float64Array = new Float64Array(0);
+  private curveKeyLo = 0;
+  private curveCells = 0;
+  /** Cyclic-curve solves done so far by `cyclicStress`; -1 once the curve table was asked for. */
+  private curveSolves = 0;
 
   constructor(
     private readonly material: Material,
@@ -133,6 +157,38 @@ export class BranchSolver {
     this.ansKeyLo = answers !== null ? answers.keyLo : 0;
     this.ansCells = answers !== null ? answers.cells : 0;
     this.ansShift = answers !== null ? 20 - answers.bits : 0;
+    if (kind === 'local-strain' || kind === 'linear') {
+      // a table some other solver already paid for is used from the first solve
+      const shared = answerTables.get(material)?.get(CURVE_KEY);
+      if (shared !== undefined) this.useCurve(shared);
+    }
+  }
+
+  /** Takes `table` as the curve table if it serves this solver's tolerance; asks only once. */
+  private useCurve(table: AnswerTable | null): void {
+    this.curveSolves = -1;
+    if (table === null || !(this.tol >= ANSWER_MARGIN * table.worst)) return;
+    this.curve = table.tab;
+    this.curveKeyLo = table.keyLo;
+    this.curveCells = table.cells;
+  }
+
+  /** σ(ε) on the cyclic curve for ε >= 0: the curve table where it serves, else `cyclicStress`. */
+  private curveStress(e: number): number {
+    if (this.curveCells > 0) {
+      this.bits[0] = e;
+      const i = (this.bitsHi[0] >>> (20 - CURVE_BITS)) - this.curveKeyLo;
+      if (i < 0) return this.E * e; // the plastic strain is below 1e-17 of the elastic one
+      if (i < this.curveCells) {
+        const t = this.curve;
+        const k = CURVE_STRIDE * i;
+        const f = (e - t[k]) * t[k + 1];
+        return t[k + 2] + f * (t[k + 3] + f * (t[k + 4] + f * t[k + 5]));
+      }
+    } else if (this.curveSolves >= 0 && ++this.curveSolves >= CURVE_AFTER) {
+      this.useCurve(curveTableFor(this.material));
+    }
+    return cyclicStress(this.material, e);
   }
 
   /**
@@ -145,13 +201,13 @@ export class BranchSolver {
     const kind = this.kind;
     if (kind === 'local-strain') {
       this.strain = a;
-      this.stress = cyclicStress(this.material, a);
+      this.stress = this.curveStress(a);
       return;
     }
     if (kind === 'linear') {
       const e = a / this.E;
       this.strain = e;
-      this.stress = cyclicStress(this.material, e);
+      this.stress = this.curveStress(e);
       return;
     }
     if (a === 0) {
@@ -321,6 +377,73 @@ function buildAnswerTable(material: Material, kind: BranchKind, bits: number): A
     }
   }
   return { bits, keyLo: (binLo + 1023) << bits, cells, tab, worst };
+}
+
+/** Key of the curve table in {@link answerTables} (one per material: both kinds invert the same curve). */
+const CURVE_KEY = `curve/${CURVE_BITS}`;
+
+/** The material's curve table (built on first request and shared), or null if its range is unusable. */
+function curveTableFor(material: Material): AnswerTable | null {
+  let byKey = answerTables.get(material);
+  if (byKey === undefined) {
+    byKey = new Map();
+    answerTables.set(material, byKey);
+  }
+  let t = byKey.get(CURVE_KEY);
+  if (t === undefined) {
+    t = buildCurveTable(material);
+    byKey.set(CURVE_KEY, t);
+  }
+  return t;
+}
+
+/** Builds and verifies the curve table σ(ε) of a material (see {@link BranchSolver}). */
+function buildCurveTable(material: Material): AnswerTable | null {
+  const E = material.E;
+  const m = 1 / material.n;
+  const lnK = Math.log(material.K);
+  const lnE = Math.log(E);
+  // ln σ* where the elastic and plastic strains are equal; the strain there is 2σ*/E
+  const lnSigmaStar = (m * lnK - lnE) / (m - 1);
+  const lnEpsStar = lnSigmaStar - lnE + Math.LN2;
+  const binLo = Math.floor((lnSigmaStar - lnE + Math.log(1e-17) / (m - 1)) / Math.LN2);
+  const binHi = Math.ceil((lnEpsStar + 12) / Math.LN2);
+  if (!(binLo >= -1020 && binHi <= 1020 && binHi > binLo)) return null;
+  const perBinade = 1 << CURVE_BITS;
+  const cells = (binHi - binLo) << CURVE_BITS;
+  const tab = new Float64Array(CURVE_STRIDE * cells);
+  const slope = (e: number, sigma: number): number => 1 / (1 / E + (e - sigma / E) / (material.n * sigma));
+  let eL = 0;
+  let sL = 0;
+  let dL = 0;
+  for (let j = 0; j <= cells; j++) {
+    const e = Math.pow(2, binLo + (j >> CURVE_BITS)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
+    const sigma = cyclicStress(material, e);
+    const d = slope(e, sigma);
+    if (j > 0) {
+      const h = e - eL;
+      const k = CURVE_STRIDE * (j - 1);
+      tab[k] = eL;
+      tab[k + 1] = 1 / h;
+      hermite(tab, k + 2, sL, sigma, dL * h, d * h);
+    }
+    eL = e;
+    sL = sigma;
+    dL = d;
+  }
+  let worst = 0;
+  for (let j = 0; j < cells; j++) {
+    const k = CURVE_STRIDE * j;
+    for (let q = 1; q <= 3; q++) {
+      const f = q / 4;
+      const want = cyclicStress(material, tab[k] + f / tab[k + 1]);
+      const got = tab[k + 2] + f * (tab[k + 3] + f * (tab[k + 4] + f * tab[k + 5]));
+      const err = Math.abs(got / want - 1);
+      if (!(err < Infinity)) return null; // NaN or overflow: no table
+      if (err > worst) worst = err;
+    }
+  }
+  return { bits: CURVE_BITS, keyLo: (binLo + 1023) << CURVE_BITS, cells, tab, worst };
 }
 
 /** Cubic Hermite coefficients in the cell fraction f from end values y0, y1 and slopes d0, d1 (per unit f). */

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { ConvergenceError } from '@loopwise/material';
+import { ConvergenceError, cyclicStress } from '@loopwise/material';
 import { glinka, neuber, trackNotch } from '@loopwise/notch';
 import { BranchSolver } from '../src/BranchSolver';
 import { checkProperty } from '../../../test/property';
-import { realisticMaterial, sae1045 } from './support';
+import { curveStrain, realisticMaterial, sae1045 } from './support';
 
 // Pseudo-elastic amplitudes from 0.01 MPa to 20 × K' (far into plasticity), log-uniform;
 // common practice, no source. All lie inside the solver's start table or below it.
@@ -79,5 +79,35 @@ describe('BranchSolver(material, kind, tolerance, maxIterations)', () => {
     const o = { material: sae1045, Kt: 1, tolerance: 1e-15 };
     expect(() => trackNotch([0, 3, 0], { ...o, maxIterations: 1 })).toThrow(ConvergenceError);
     expect(trackNotch([0, 3, 0], { ...o, maxIterations: 2 }).reversals.length).toBe(1);
+  });
+
+  it('local strain and the linear rule agree with cyclicStress before and after the curve table takes over (tolerance 1e-10)', () => {
+    // Strains from 1e-9 × K'/E (elastic to rounding: below the table) to 1e3 (above it: the
+    // exact inverse), log-uniform; common practice, no source. The table is used once a solver
+    // has done 2^15 solves, and from the first solve by later solvers of the same material.
+    const wide = realisticMaterial.chain((m) =>
+      fc.tuple(fc.constant(m), fc.array(fc.double({ min: Math.log((1e-9 * m.K) / m.E), max: Math.log(1e3), noNaN: true }).map(Math.exp), { minLength: 1, maxLength: 20 })),
+    );
+    checkProperty(
+      'curve table',
+      fc.property(wide, ([m, strains]) => {
+        const check = (s: BranchSolver) => {
+          for (const e of strains) {
+            const want = cyclicStress(m, e);
+            solveWith(s, s.kind === 'linear' ? e * m.E : e);
+            expect(Math.abs(s.stress / want - 1)).toBeLessThanOrEqual(1e-10);
+            expect(Math.abs(s.strain / e - 1)).toBeLessThanOrEqual(s.kind === 'linear' ? 1e-15 : 0);
+            // the returned pair lies on the curve: its strain from the stress, to the same accuracy
+            expect(Math.abs(curveStrain(m, s.stress) / e - 1)).toBeLessThanOrEqual(1e-10 / m.n + 1e-14);
+          }
+        };
+        const first = new BranchSolver(m, 'local-strain', 1e-10, 60);
+        check(first); // before: cyclicStress itself
+        for (let k = 0; k < 1 << 15; k++) solveWith(first, 1e-4 * (1 + (k & 7)));
+        check(first); // after 2^15 solves: the table where it serves
+        check(new BranchSolver(m, 'linear', 1e-10, 60)); // a later solver of the same material, other kind
+      }),
+      { numRuns: 40 },
+    );
   });
 });
