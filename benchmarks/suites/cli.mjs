@@ -71,7 +71,12 @@ export async function run(h) {
       h.check(n === ROWS, 'ingestion lost rows');
     }, 3);
     const child = fileURLToPath(new URL('../cli-assess.mjs', import.meta.url));
-    const out = JSON.parse(execFileSync(process.execPath, [child, file], { encoding: 'utf8', maxBuffer: 1 << 26 }));
+    // three runs in fresh processes, the median taken, as the ingestion above (one run moved by
+    // up to 40 % between runs on a shared machine)
+    const runs = [0, 1, 2].map(() => JSON.parse(execFileSync(process.execPath, [child, file], { encoding: 'utf8', maxBuffer: 1 << 26 })));
+    runs.sort((a, b) => a.seconds - b.seconds);
+    const out = runs[1];
+    h.check(runs.every((r) => r.damage === out.damage), 'the command path gave different damage in two runs');
     h.check(out.damage > 0 && Number.isFinite(out.damage), 'the assessment gave no damage');
     // check: the streamed command path equals the engine on the same values in memory
     const { assessLife } = await import('@loopwise/engine');
