@@ -19,6 +19,27 @@ function prefixed(sink: OutputSink, prefix: string): OutputSink {
   };
 }
 
+/** Rows between two noted byte offsets of the spool (memory: 8 bytes per this many loops). */
+const CHECKPOINT = 256;
+
+/** A sink that passes on only the lines `[from, to)`, counting lines from row `first`. */
+function rowsOf(sink: OutputSink, first: number, from: number, to: number): OutputSink {
+  let row = first;
+  let carry = '';
+  return {
+    write: async (text: string) => {
+      const lines = (carry + text).split('\n');
+      carry = lines.pop() as string;
+      const keep: string[] = [];
+      for (const line of lines) {
+        if (row >= from && row < to) keep.push(line + '\n');
+        row++;
+      }
+      if (keep.length > 0) await sink.write(keep.join(''));
+    },
+  };
+}
+
 /** Samples per block through the gate (as the engine's life session). */
 const BLOCK = 65536;
 
@@ -57,7 +78,7 @@ export class LoopStream {
   private readonly tv = new Float64Array(BLOCK + 2);
   private readonly ti = new Float64Array(BLOCK + 2);
   private readonly spool = new SpoolFile('the loops of --cycles-out');
-  /** Byte offset in the spool of the start of each row, by tracking row number. */
+  /** Byte offset in the spool of every CHECKPOINT-th row (row k·CHECKPOINT at index k). */
   private offsets = new Float64Array(1024);
   private rows = 0;
   private bytes = 0;
@@ -149,9 +170,18 @@ export class LoopStream {
     const [from, to] = this.range;
     const residueStart = this.rows - this.residueRows;
     const lines = prefixed(sink, prefix);
-    await this.spool.copyRangeTo(lines, this.offsets[from], this.offsets[Math.min(to, residueStart)]);
+    await this.copyRows(lines, from, Math.min(to, residueStart));
     // a one-off history: the residue half cycles, written after every other row
-    if (this.residueRows > 0) await this.spool.copyRangeTo(lines, this.offsets[residueStart], this.bytes);
+    if (this.residueRows > 0) await this.copyRows(lines, residueStart, this.rows);
+  }
+
+  /** Copies spooled rows `[from, to)`: from the checkpoint at or before `from` to the one at or after `to`, lines filtered. */
+  private async copyRows(sink: OutputSink, from: number, to: number): Promise<void> {
+    if (to <= from) return;
+    const a = Math.floor(from / CHECKPOINT);
+    const b = Math.ceil(to / CHECKPOINT);
+    const end = b * CHECKPOINT >= this.rows ? this.bytes : this.offsets[b];
+    await this.spool.copyRangeTo(rowsOf(sink, a * CHECKPOINT, from, to), this.offsets[a], end);
   }
 
   /**
@@ -204,9 +234,10 @@ export class LoopStream {
     for (let i = 0; i < n; i++) life[i] = rev[i] / 2;
     const damage = new Float64Array(n);
     damageInto(cols.count, life, damage, j.cutoffCycles === undefined ? {} : { cutoff: { cycles: j.cutoffCycles } });
-    if (this.rows + n + 1 > this.offsets.length) {
-      const bigger = new Float64Array(Math.max(2 * this.offsets.length, this.rows + n + 1));
-      bigger.set(this.offsets.subarray(0, this.rows));
+    const need = Math.floor((this.rows + n) / CHECKPOINT) + 2;
+    if (need > this.offsets.length) {
+      const bigger = new Float64Array(Math.max(2 * this.offsets.length, need));
+      bigger.set(this.offsets);
       this.offsets = bigger;
     }
     const ev = (x: number) => (x < 0 ? '' : 'history');
@@ -214,10 +245,10 @@ export class LoopStream {
       const line =
         `${cols.startIndex[i]},${cols.turnIndex[i]},${cols.closeIndex[i]},${ev(cols.startIndex[i])},${ev(cols.turnIndex[i])},` +
         `${cols.count[i]},${local.stressMax[i]},${local.stressMin[i]},${local.strainMax[i]},${local.strainMin[i]},${value[i]},${life[i] === Infinity ? 'inf' : life[i]},${damage[i]}\n`;
-      this.offsets[this.rows++] = this.bytes;
+      if (this.rows % CHECKPOINT === 0) this.offsets[this.rows / CHECKPOINT] = this.bytes;
+      this.rows++;
       this.bytes += Buffer.byteLength(line);
       this.spool.append(line);
     }
-    this.offsets[this.rows] = this.bytes;
   }
 }
