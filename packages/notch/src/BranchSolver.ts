@@ -54,7 +54,8 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * about 2e-11 up). Answer tables are built once per material and rule and shared.
  * Linear rule and local strain solve the cyclic-curve inverse σ(ε) (ε = a/E for the linear
  * rule): by `cyclicStress` of @loopwise/material (to about 1e-15) until the solver has done
- * CURVE_AFTER solves, then from a curve table when one serves the tolerance: cubic Hermite
+ * CURVE_AFTER solves (its own, so a result never depends on earlier calls), then from a curve
+ * table when one serves the tolerance: cubic Hermite
  * pieces of σ(ε), 2^8 cells per binade of ε from where the plastic strain is 1e-17 of the
  * elastic one (below, σ = E·ε to rounding) to e^12 times the strain where the two are equal,
  * nodes from `cyclicStress`, slopes dσ/dε = 1 / (1/E + (ε − σ/E)/(n'·σ)); its error is measured
@@ -157,11 +158,9 @@ export class BranchSolver {
     this.ansKeyLo = answers !== null ? answers.keyLo : 0;
     this.ansCells = answers !== null ? answers.cells : 0;
     this.ansShift = answers !== null ? 20 - answers.bits : 0;
-    if (kind === 'local-strain' || kind === 'linear') {
-      // a table some other solver already paid for is used from the first solve
-      const shared = answerTables.get(material)?.get(CURVE_KEY);
-      if (shared !== undefined) this.useCurve(shared);
-    }
+    // No shortcut to a curve table another solver already built: a solver switches after its
+    // own CURVE_AFTER solves, so its results depend on its own solves only, never on which
+    // calls ran before in the process (the cache only saves the build).
   }
 
   /** Takes `table` as the curve table if it serves this solver's tolerance; asks only once. */
