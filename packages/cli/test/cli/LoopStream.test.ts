@@ -2,6 +2,7 @@ import { LifeSession, type LifeJob } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { describe, expect, test } from 'vitest';
 import { LoopStream } from '../../src/cli/LoopStream';
+import { mulberry32 } from '../../../../fixtures/generate.mjs';
 
 // LoopStream spools the loops of --cycles-out to disk; its rows must equal the loop table of the
 // engine's LifeSession with keepLoops (the same stages), row for row, on every route.
@@ -20,20 +21,9 @@ const LOCAL_TOLERANCE = 1e-10;
 const LIFE_TOLERANCE = 100 * LOCAL_TOLERANCE;
 const steel = handbookSteels.find((m) => m.name === 'SAE 1045 (hot rolled and normalized)')!;
 
-/** mulberry32 (common practice, no source). */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function history(n: number, seed: number, scale: number): Float64Array {
-  const next = generator(seed);
+  const next = mulberry32(seed);
   const out = new Float64Array(n);
   let x = 0;
   for (let i = 0; i < n; i++) {

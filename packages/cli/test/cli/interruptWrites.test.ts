@@ -3,6 +3,7 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { mulberry32 } from '../../../../fixtures/generate.mjs';
 
 // SIGINT and SIGTERM during the write phase (issue 16): the command is started on a file whose
 // outputs take a while to write (every sample a reversal: a large cycles CSV), the folder is
@@ -15,22 +16,11 @@ const RUNS = 8;
 const SEED = 16;
 let root = '';
 
-/** mulberry32, a small seeded generator (common practice, no source). */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 beforeAll(() => {
   expect(existsSync(bin), 'build the cli first (pnpm test does)').toBe(true);
   root = mkdtempSync(join(tmpdir(), 'loopwise-signal-'));
-  const next = generator(SEED);
+  const next = mulberry32(SEED);
   const rows = ['time,stress'];
   for (let i = 0; i < 120000; i++) rows.push(`${i},${((i % 2 ? 1 : -1) * (50 + 250 * next())).toFixed(3)}`);
   writeFileSync(join(root, 'noise.csv'), rows.join('\n') + '\n');
@@ -67,7 +57,7 @@ function interrupted(k: number, signal: NodeJS.Signals, delayMs: number): Promis
 
 describe('a signal during the write phase leaves all outputs or none', () => {
   test(`${RUNS} runs, SIGINT and SIGTERM at seeded points of the write phase (seed ${SEED})`, async () => {
-    const next = generator(SEED);
+    const next = mulberry32(SEED);
     const outcomes: string[] = [];
     for (let k = 0; k < RUNS; k++) {
       const signal: NodeJS.Signals = k % 2 ? 'SIGTERM' : 'SIGINT';
