@@ -322,60 +322,18 @@ function buildAnswerTable(material: Material, kind: BranchKind, bits: number): A
   const tStar = (m * lnK - lnW - lnE) / (m - 1);
   const binLo = Math.floor((tStar + Math.log(1e-17) / (m - 1)) / Math.LN2);
   const binHi = Math.ceil((tStar + 12) / Math.LN2);
-  if (!(binLo >= -1020 && binHi <= 1020 && binHi > binLo)) return null;
-  const perBinade = 1 << bits;
-  const cells = (binHi - binLo) << bits;
-  const tab = new Float64Array(ANSWER_STRIDE * cells);
-  // exact σ, ε and their slopes in a at amplitude a
-  let sg = 0;
-  let ep = 0;
-  let dsg = 0;
-  let dep = 0;
-  const exact = (a: number): void => {
+  // exact σ, ε at amplitude a, then their slopes in a
+  return hermiteTable(binLo, binHi, bits, 2, (a, out) => {
     const s = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
-    sg = Math.exp(s);
+    const sg = Math.exp(s);
     const plastic = Math.exp(m * (s - lnK));
-    ep = sg / E + plastic;
     const q = Math.exp((m - 1) * s + lnW - m * lnK + lnE);
-    dsg = (sg * ((2 * (1 + q)) / (2 + (1 + m) * q))) / a; // dσ/da from ds/dt, t = ln a
-    dep = (1 / E + (m * plastic) / sg) * dsg;
-  };
-  let aL = 0;
-  let sL = 0;
-  let eL = 0;
-  let dsL = 0;
-  let deL = 0;
-  for (let j = 0; j <= cells; j++) {
-    const a = Math.pow(2, binLo + (j >> bits)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
-    exact(a);
-    if (j > 0) {
-      const h = a - aL;
-      const k = ANSWER_STRIDE * (j - 1);
-      tab[k] = aL;
-      tab[k + 1] = 1 / h;
-      hermite(tab, k + 2, sL, sg, dsL * h, dsg * h);
-      hermite(tab, k + 6, eL, ep, deL * h, dep * h);
-    }
-    aL = a;
-    sL = sg;
-    eL = ep;
-    dsL = dsg;
-    deL = dep;
-  }
-  let worst = 0;
-  for (let j = 0; j < cells; j++) {
-    const k = ANSWER_STRIDE * j;
-    for (let q = 1; q <= 3; q++) {
-      const f = q / 4;
-      exact(tab[k] + f / tab[k + 1]);
-      const s = tab[k + 2] + f * (tab[k + 3] + f * (tab[k + 4] + f * tab[k + 5]));
-      const e = tab[k + 6] + f * (tab[k + 7] + f * (tab[k + 8] + f * tab[k + 9]));
-      const err = Math.max(Math.abs(s / sg - 1), Math.abs(e / ep - 1));
-      if (!(err < Infinity)) return null; // NaN or overflow: no table
-      if (err > worst) worst = err;
-    }
-  }
-  return { bits, keyLo: (binLo + 1023) << bits, cells, tab, worst };
+    const dsg = (sg * ((2 * (1 + q)) / (2 + (1 + m) * q))) / a; // dσ/da from ds/dt, t = ln a
+    out[0] = sg;
+    out[1] = sg / E + plastic;
+    out[2] = dsg;
+    out[3] = (1 / E + (m * plastic) / sg) * dsg;
+  });
 }
 
 /** Key of the curve table in {@link answerTables} (one per material: both kinds invert the same curve). */
@@ -407,42 +365,60 @@ function buildCurveTable(material: Material): AnswerTable | null {
   const lnEpsStar = lnSigmaStar - lnE + Math.LN2;
   const binLo = Math.floor((lnSigmaStar - lnE + Math.log(1e-17) / (m - 1)) / Math.LN2);
   const binHi = Math.ceil((lnEpsStar + 12) / Math.LN2);
-  if (!(binLo >= -1020 && binHi <= 1020 && binHi > binLo)) return null;
-  const perBinade = 1 << CURVE_BITS;
-  const cells = (binHi - binLo) << CURVE_BITS;
-  const tab = new Float64Array(CURVE_STRIDE * cells);
-  const slope = (e: number, sigma: number): number => 1 / (1 / E + (e - sigma / E) / (material.n * sigma));
-  let eL = 0;
-  let sL = 0;
-  let dL = 0;
-  for (let j = 0; j <= cells; j++) {
-    const e = Math.pow(2, binLo + (j >> CURVE_BITS)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
+  // exact σ at strain e, then dσ/dε = 1 / (1/E + εp/(n'·σ))
+  return hermiteTable(binLo, binHi, CURVE_BITS, 1, (e, out) => {
     const sigma = cyclicStress(material, e);
-    const d = slope(e, sigma);
+    out[0] = sigma;
+    out[1] = 1 / (1 / E + (e - sigma / E) / (material.n * sigma));
+  });
+}
+
+/**
+ * Cubic Hermite pieces of `width` functions of x over the binades [2^binLo, 2^binHi), 2^bits
+ * equal cells per binade; per cell: left end, 1 / width of the cell, then four coefficients in
+ * the cell fraction per function. `exact(x, out)` writes the functions' values to out[0..width)
+ * and their slopes in x to out[width..2·width). The table's worst relative error is measured
+ * against `exact` a quarter, half and three quarters across every cell, where a cubic Hermite
+ * piece errs most. Null when the range is unusable or an error is NaN or infinite.
+ */
+function hermiteTable(binLo: number, binHi: number, bits: number, width: number, exact: (x: number, out: Float64Array) => void): AnswerTable | null {
+  if (!(binLo >= -1020 && binHi <= 1020 && binHi > binLo)) return null;
+  const stride = 2 + 4 * width;
+  const perBinade = 1 << bits;
+  const cells = (binHi - binLo) << bits;
+  const tab = new Float64Array(stride * cells);
+  const left = new Float64Array(2 * width);
+  const right = new Float64Array(2 * width);
+  let xL = 0;
+  for (let j = 0; j <= cells; j++) {
+    const x = Math.pow(2, binLo + (j >> bits)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
+    exact(x, right);
     if (j > 0) {
-      const h = e - eL;
-      const k = CURVE_STRIDE * (j - 1);
-      tab[k] = eL;
+      const h = x - xL;
+      const k = stride * (j - 1);
+      tab[k] = xL;
       tab[k + 1] = 1 / h;
-      hermite(tab, k + 2, sL, sigma, dL * h, d * h);
+      for (let c = 0; c < width; c++) hermite(tab, k + 2 + 4 * c, left[c], right[c], left[width + c] * h, right[width + c] * h);
     }
-    eL = e;
-    sL = sigma;
-    dL = d;
+    xL = x;
+    left.set(right);
   }
   let worst = 0;
   for (let j = 0; j < cells; j++) {
-    const k = CURVE_STRIDE * j;
+    const k = stride * j;
     for (let q = 1; q <= 3; q++) {
       const f = q / 4;
-      const want = cyclicStress(material, tab[k] + f / tab[k + 1]);
-      const got = tab[k + 2] + f * (tab[k + 3] + f * (tab[k + 4] + f * tab[k + 5]));
-      const err = Math.abs(got / want - 1);
-      if (!(err < Infinity)) return null; // NaN or overflow: no table
-      if (err > worst) worst = err;
+      exact(tab[k] + f / tab[k + 1], right);
+      for (let c = 0; c < width; c++) {
+        const o = k + 2 + 4 * c;
+        const got = tab[o] + f * (tab[o + 1] + f * (tab[o + 2] + f * tab[o + 3]));
+        const err = Math.abs(got / right[c] - 1);
+        if (!(err < Infinity)) return null; // NaN or overflow: no table
+        if (err > worst) worst = err;
+      }
     }
   }
-  return { bits: CURVE_BITS, keyLo: (binLo + 1023) << CURVE_BITS, cells, tab, worst };
+  return { bits, keyLo: (binLo + 1023) << bits, cells, tab, worst };
 }
 
 /** Cubic Hermite coefficients in the cell fraction f from end values y0, y1 and slopes d0, d1 (per unit f). */
