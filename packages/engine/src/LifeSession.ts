@@ -1,13 +1,12 @@
-import { residueHalfCycles } from '@loopwise/miner';
 import { NotchSampleError, RepeatingNotchTracker } from '@loopwise/notch';
 import { NonFiniteSampleError, ReversalFilter } from '@loopwise/rainflow';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
-import type { LifeReport } from './LifeReport';
+import type { LifeLoopColumns, LifeReport } from './LifeReport';
 import { LoopAggregate } from './LoopAggregate';
 import { reportFromTracked, reportHead, type ReportEvent } from './reportAssembly';
-import { emptyColumns } from './reportColumns';
-import { trackedFrom, trackerOptionsOf } from './trackHistory';
+import { emptyColumns, evaluatedColumns, residueHalfColumns } from './reportColumns';
+import { trackedFrom, trackerOptionsOf, type RowRange } from './trackHistory';
 import { gateBoundAt, warningsOf } from './warnings';
 
 /** Samples per block through the gate (the turning points of a block stay in cache). */
@@ -23,6 +22,16 @@ export interface LifeSessionOptions {
   keepLoops?: boolean;
   /** Samples per bin of the damage timeline when loops are not kept; default 65536. */
   timelineBinSize?: number;
+  /**
+   * Receives the loops as they close, evaluated (the report's loop columns: local values, the
+   * damage parameter, life and damage per repeat), with the row number of their first row in
+   * the session's loop stream: every loop of the first pass and, for a repeating history, of
+   * the second, then, for a one-off history, its residue half cycles at `finish()`. After
+   * `finish()`, {@link LifeSession.reportedLoopRows} says which rows make the report's loop
+   * table. For a caller that writes the loop table somewhere other than memory (a file); the
+   * columns belong to the callback. Implies `keepLoops: false` (with `keepLoops: true`, an error).
+   */
+  onLoops?: (loops: LifeLoopColumns, firstRow: number) => void;
 }
 
 /**
@@ -69,12 +78,19 @@ export class LifeSession {
   private current: LoopAggregate | null = null;
   private second: LoopAggregate | null = null;
   private currentFrom = 0;
+  private readonly onLoops: ((loops: LifeLoopColumns, firstRow: number) => void) | null;
+  /** Rows handed to onLoops so far. */
+  private delivered = 0;
+  private reported: RowRange[] | null = null;
 
   constructor(job: LifeJob, options: LifeSessionOptions = {}) {
     this.job = resolveLifeJob(job);
     const j = this.job;
-    this.keepLoops = options.keepLoops ?? true;
+    this.onLoops = options.onLoops ?? null;
+    if (this.onLoops !== null && typeof this.onLoops !== 'function') throw new EngineError('invalid-job', 'onLoops', String(this.onLoops), 'must be a function');
+    this.keepLoops = options.keepLoops ?? this.onLoops === null;
     if (typeof this.keepLoops !== 'boolean') throw new EngineError('invalid-job', 'keepLoops', this.keepLoops, 'must be true or false');
+    if (this.keepLoops && this.onLoops !== null) throw new EngineError('invalid-job', 'keepLoops', true, 'onLoops streams the loops: use keepLoops false with it');
     this.binSize = options.timelineBinSize ?? 65536;
     if (!Number.isInteger(this.binSize) || this.binSize < 1) {
       throw new EngineError('invalid-job', 'timelineBinSize', this.binSize, 'must be an integer >= 1');
@@ -105,6 +121,16 @@ export class LifeSession {
   get secondPassSamples(): number {
     if (this.stage === 'first') throw new EngineError('session-state', 'secondPassSamples', undefined, 'known once the first pass has ended: call endFirstPass()');
     return this.secondNeeded;
+  }
+
+  /**
+   * The rows of the loop stream given to `onLoops` that make the report's loop table, in its
+   * order: the stabilised pass of a repeating history, or a one-off history's first pass and
+   * then its residue half cycles. Known after {@link finish}; before, a session-state error.
+   */
+  get reportedLoopRows(): RowRange[] {
+    if (this.reported === null) throw new EngineError('session-state', 'reportedLoopRows', undefined, 'known once the session has finished: call finish()');
+    return this.reported.map((r) => ({ ...r }));
   }
 
   /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
@@ -228,16 +254,18 @@ export class LifeSession {
   private fold(): void {
     const taken = this.tracker.takeLoops();
     const n = taken.loops.length;
+    // an empty first-pass take still moves the largest |value| (the split below)
     if (n === 0 && taken.secondPass) return;
-    const j = this.job;
-    const cols = taken.loops.columns();
+    const rows = evaluatedColumns(taken.loops.columns(), this.job, [0]);
+    if (n > 0) this.onLoops?.(rows, taken.firstRow);
+    this.delivered = taken.firstRow + n;
     const part = (from: number, to: number) => {
-      const out: typeof cols = { ...cols };
-      for (const key of Object.keys(cols) as (keyof typeof cols)[]) out[key] = cols[key].subarray(from, to);
+      const out: LifeLoopColumns = { ...rows };
+      for (const key of Object.keys(rows) as (keyof LifeLoopColumns)[]) out[key] = rows[key].subarray(from, to);
       return out;
     };
     if (taken.secondPass) {
-      this.second!.add(cols, j.material, j.meanStress, j.walkerGamma);
+      this.second!.add(rows);
       return;
     }
     const split = taken.largestRow - taken.firstRow;
@@ -247,9 +275,9 @@ export class LifeSession {
       this.current = this.aggregate();
       this.currentFrom = taken.largestRow;
       const k = Math.min(n, Math.max(0, split));
-      this.before!.add(part(0, k), j.material, j.meanStress, j.walkerGamma);
-      this.current!.add(part(k, n), j.material, j.meanStress, j.walkerGamma);
-    } else this.current!.add(cols, j.material, j.meanStress, j.walkerGamma);
+      this.before!.add(part(0, k));
+      this.current!.add(part(k, n));
+    } else this.current!.add(rows);
   }
 
   /** The report from the running totals (loops not kept). */
@@ -261,13 +289,22 @@ export class LifeSession {
     const firstPass = this.aggregate();
     firstPass.merge(this.before!);
     firstPass.merge(this.current!);
+    // rows of the tracked result are numbered from its first row not taken (every row was taken)
+    const offset = this.delivered - result.loops.length;
+    const at = (r: RowRange) => ({ from: r.from + offset, to: r.to + offset });
     if (job.repeating) {
       stab.merge(this.second!);
       if (result.reusedFirstPass) stab.merge(this.current!);
+      this.reported = [at(result.stabilised)];
     } else {
       // a one-off history: the first pass, and its open loops as half cycles
-      const half = residueHalfCycles(result.firstResidue.columns());
-      if (half.count.length > 0) firstPass.add(half, job.material, job.meanStress, job.walkerGamma);
+      const half = residueHalfColumns(result.firstResidue, job, [0]);
+      const m = half.count.length;
+      this.reported = [at(result.first), { from: this.delivered, to: this.delivered + m }];
+      if (m > 0) {
+        this.onLoops?.(half, this.delivered);
+        firstPass.add(half);
+      }
       stab.merge(firstPass);
     }
     const damage = stab.total();

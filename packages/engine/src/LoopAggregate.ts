@@ -1,10 +1,6 @@
 import { NeumaierAdder } from '@loopwise/base';
 import { CutoffTally } from '@loopwise/miner';
-import type { LoopColumns } from '@loopwise/notch';
-import type { Material } from '@loopwise/material';
-import type { DamageParameterName } from '@loopwise/mean-stress';
-import { evaluateLoops } from './evaluateLoops';
-import type { WorstLoop } from './LifeReport';
+import type { LifeLoopColumns, WorstLoop } from './LifeReport';
 
 /**
  * Running totals of a stream of closed loops, for a life session that does not keep its loops
@@ -24,31 +20,27 @@ export class LoopAggregate {
   constructor(
     private readonly binSize: number,
     private readonly worstCount: number,
-    private readonly cutoffCycles: number,
+    cutoffCycles: number,
   ) {
     this.timeline = new Float64Array(64);
     this.cutoff = new CutoffTally(cutoffCycles === Infinity ? 'none' : { cycles: cutoffCycles });
   }
 
-  /** Evaluates and adds the loops of a drained table. */
-  add(cols: LoopColumns, material: Material, correction: DamageParameterName, walkerGamma: number | undefined): void {
-    const n = cols.stressMax.length;
+  /** Adds evaluated loops (their damage already with the job's cut-off, see evaluatedColumns). */
+  add(rows: LifeLoopColumns): void {
+    const n = rows.count.length;
     if (n === 0) return;
-    const lives = evaluateLoops(cols, material, correction, walkerGamma);
-    this.cutoff.addColumns({ count: cols.count, cyclesToFailure: lives.cyclesToFailure });
-    const limit = this.cutoffCycles;
+    this.cutoff.addColumns({ count: rows.count, cyclesToFailure: rows.cyclesToFailure });
     for (let i = 0; i < n; i++) {
-      const nf = lives.cyclesToFailure[i];
-      const count = cols.count[i];
+      const d = rows.damage[i];
       this.loops++;
-      if (lives.reversalsToFailure[i] <= 1) this.firstReversal++;
-      const d = nf > limit ? 0 : count / nf;
+      if (rows.reversalsToFailure[i] <= 1) this.firstReversal++;
       this.sum.add(d);
-      const start = cols.startIndex[i] < 0 ? 0 : cols.startIndex[i];
-      const turn = cols.turnIndex[i] < 0 ? 0 : cols.turnIndex[i];
+      const start = rows.startIndex[i] < 0 ? 0 : rows.startIndex[i];
+      const turn = rows.turnIndex[i] < 0 ? 0 : rows.turnIndex[i];
       this.bin(start, d / 2);
       this.bin(turn, d / 2);
-      this.offerWorst(d, count, cols, lives.cyclesToFailure[i], i);
+      this.offerWorst(d, rows, i);
     }
   }
 
@@ -83,19 +75,19 @@ export class LoopAggregate {
     this.timeline = t;
   }
 
-  private offerWorst(d: number, count: number, c: LoopColumns, nf: number, i: number): void {
+  private offerWorst(d: number, c: LifeLoopColumns, i: number): void {
     if (this.worstCount === 0) return;
     if (this.worst.length === this.worstCount && d <= this.worst[this.worst.length - 1].damage) return;
     this.insertWorst({
       row: -1,
       damage: d,
       share: 0,
-      count,
+      count: c.count[i],
       stressMax: c.stressMax[i],
       stressMin: c.stressMin[i],
       strainMax: c.strainMax[i],
       strainMin: c.strainMin[i],
-      cyclesToFailure: nf,
+      cyclesToFailure: c.cyclesToFailure[i],
       startIndex: c.startIndex[i],
       turnIndex: c.turnIndex[i],
       startEvent: c.startIndex[i] < 0 ? null : 'history',

@@ -7,3 +7,4 @@ export { assessDutyCycle, type DutyEvent } from './assessDutyCycle';
 export { compareCorrections, type CorrectionResult } from './compareCorrections';
 export { findLoadMargin, type MarginOptions, type MarginResult } from './findLoadMargin';
 export { LifeSession, type LifeSessionOptions } from './LifeSession';
+export type { RowRange } from './trackHistory';

@@ -1,4 +1,4 @@
-import { residueHalfCycles } from '@loopwise/miner';
+import { damageInto, residueHalfCycles } from '@loopwise/miner';
 import type { LoopColumns, ReversalTable } from '@loopwise/notch';
 import { evaluateLoops, type LoopLives } from './evaluateLoops';
 import type { ResolvedJob } from './LifeJob';
@@ -64,20 +64,46 @@ function eventsInto(index: Float64Array, out: Float64Array, starts: readonly num
 }
 
 /**
+ * Evaluated report columns of loops with their sample indices (drained tracker rows or residue
+ * half cycles): events from `starts`, the damage parameter's value and life, and the damage of
+ * each row with the job's cut-off (miner's damageInto). New columns.
+ */
+export function evaluatedColumns(cols: LoopColumns, job: ResolvedJob, starts: readonly number[]): LifeLoopColumns {
+  const n = cols.count.length;
+  const c = emptyColumns(n, {
+    stressMax: cols.stressMax.slice(),
+    stressMin: cols.stressMin.slice(),
+    strainMax: cols.strainMax.slice(),
+    strainMin: cols.strainMin.slice(),
+    count: cols.count.slice(),
+    startIndex: cols.startIndex.slice(),
+    turnIndex: cols.turnIndex.slice(),
+    closeIndex: cols.closeIndex.slice(),
+  });
+  if (n === 0) return c;
+  eventsInto(c.startIndex, c.startEvent, starts);
+  eventsInto(c.turnIndex, c.turnEvent, starts);
+  const lives = evaluateLoops(c, job.material, job.meanStress, job.walkerGamma);
+  c.parameter.set(lives.parameter);
+  c.reversalsToFailure.set(lives.reversalsToFailure);
+  c.cyclesToFailure.set(lives.cyclesToFailure);
+  damageInto(c.count, c.cyclesToFailure, c.damage, job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
+  return c;
+}
+
+/** The residue of a one-off history as evaluated half cycles (miner's residueHalfCycles, ASTM E1049-85 5.4.4). */
+export function residueHalfColumns(residue: ReversalTable, job: ResolvedJob, starts: readonly number[]): LifeLoopColumns {
+  return evaluatedColumns(residueHalfCycles(residue.columns()), job, starts);
+}
+
+/**
  * The residue of a one-off history as half cycles between consecutive open reversal points
  * (miner's residueHalfCycles, ASTM E1049-85 5.4.4), evaluated, appended to `c` (new columns).
  */
 export function withResidueHalves(c: LifeLoopColumns, residue: ReversalTable, job: ResolvedJob, starts: readonly number[]): LifeLoopColumns {
-  const half = residueHalfCycles(residue.columns());
-  const m = half.count.length;
+  const h = residueHalfColumns(residue, job, starts);
+  const m = h.count.length;
   if (m === 0) return c;
-  const h = emptyColumns(m, { ...half });
-  eventsInto(h.startIndex, h.startEvent, starts);
-  eventsInto(h.turnIndex, h.turnEvent, starts);
-  const lives = evaluateLoops(h, job.material, job.meanStress, job.walkerGamma);
-  h.parameter.set(lives.parameter);
-  h.reversalsToFailure.set(lives.reversalsToFailure);
-  h.cyclesToFailure.set(lives.cyclesToFailure);
   const out = emptyColumns(0);
   for (const k of Object.keys(c) as (keyof LifeLoopColumns)[]) {
     const joined = new Float64Array(c[k].length + m);

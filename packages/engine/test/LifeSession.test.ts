@@ -142,3 +142,69 @@ describe('LifeSession({ keepLoops: false })', () => {
     );
   });
 });
+
+describe('LifeSession({ onLoops })', () => {
+  /** The rows of `reportedLoopRows` picked out of everything the sink received, per column. */
+  function picked(stream: Map<number, LifeReport['loops']>, ranges: { from: number; to: number }[]): Record<string, number[]> {
+    const rows: Record<string, number[]> = {};
+    const all = [...stream.entries()].sort((a, b) => a[0] - b[0]);
+    for (const { from, to } of ranges) {
+      for (const [first, cols] of all) {
+        for (const key of Object.keys(cols) as (keyof LifeReport['loops'])[]) {
+          const c = cols[key];
+          for (let i = 0; i < c.length; i++) if (first + i >= from && first + i < to) (rows[key] ??= []).push(c[i]);
+        }
+      }
+    }
+    return rows;
+  }
+
+  test('the loops handed to the sink, at the reported rows, are the kept-loop report table value for value, for any chunking', () => {
+    checkProperty(
+      'loop sink rows = kept loop table',
+      fc.property(
+        fc.array(fc.integer({ min: -400, max: 400 }), { minLength: 1, maxLength: 80 }),
+        fc.integer({ min: 1, max: 9 }),
+        fc.boolean(),
+        fc.constantFrom(0, 20),
+        (history, chunk, repeating, gate) => {
+          const job = { material: sae1045, notch: { Kt: 2 }, repeating, gate };
+          const kept = new LifeSession(job);
+          const stream = new Map<number, LifeReport['loops']>();
+          let next = 0;
+          const s = new LifeSession(job, {
+            onLoops: (cols, first) => {
+              // rows arrive once each, in order, numbered without gaps
+              expect(first).toBe(next);
+              next += cols.count.length;
+              stream.set(first, cols);
+            },
+          });
+          for (let i = 0; i < history.length; i += chunk) {
+            kept.push(history.slice(i, i + chunk));
+            s.push(history.slice(i, i + chunk));
+          }
+          const need = kept.endFirstPass();
+          expect(s.endFirstPass()).toBe(need);
+          for (let i = 0; i < need; i += chunk) {
+            kept.pushSecondPass(history.slice(i, Math.min(need, i + chunk)));
+            s.pushSecondPass(history.slice(i, Math.min(need, i + chunk)));
+          }
+          const a = kept.finish();
+          const b = s.finish();
+          const want: Record<string, number[]> = {};
+          for (const key of Object.keys(a.loops) as (keyof LifeReport['loops'])[]) if (a.loops[key].length > 0) want[key] = Array.from(a.loops[key]);
+          expect(picked(stream, s.reportedLoopRows)).toEqual(want);
+          expect(b.damage.perRepeat).toBeCloseTo(a.damage.perRepeat, 12);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+
+  test('rows are known after finish only, and a sink with kept loops is refused', () => {
+    const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } }, { onLoops: () => {} });
+    expect(() => s.reportedLoopRows).toThrow(/finish/);
+    expect(() => new LifeSession({ material: sae1045 }, { keepLoops: true, onLoops: () => {} })).toThrow(EngineError);
+  });
+});

@@ -2,6 +2,7 @@ import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
+import { cyclesCsvRow } from './cyclesCsvRow';
 import type { OutputSink } from './OutputSet';
 
 /** Version of the JSON report format written by `--json` (documented in the CLI README). */
@@ -114,12 +115,7 @@ export async function writeCyclesCsv(results: ChannelResult[], sink: OutputSink)
     const n = l.count.length;
     for (let from = 0; from < n; from += CSV_ROWS_PER_PIECE) {
       const lines: string[] = [];
-      for (let i = from; i < Math.min(n, from + CSV_ROWS_PER_PIECE); i++) {
-        lines.push(
-          `${name},${l.startIndex[i]},${l.turnIndex[i]},${l.closeIndex[i]},${l.startEvent[i] >= 0 ? events[l.startEvent[i]] : ''},${l.turnEvent[i] >= 0 ? events[l.turnEvent[i]] : ''},` +
-            `${l.count[i]},${l.stressMax[i]},${l.stressMin[i]},${l.strainMax[i]},${l.strainMin[i]},${l.parameter[i]},${l.cyclesToFailure[i] === Infinity ? 'inf' : l.cyclesToFailure[i]},${l.damage[i]}`,
-        );
-      }
+      for (let i = from; i < Math.min(n, from + CSV_ROWS_PER_PIECE); i++) lines.push(`${name},${cyclesCsvRow(l, i, events)}`);
       await sink.write(lines.join('\n') + '\n');
     }
   }

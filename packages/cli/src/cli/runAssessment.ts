@@ -13,7 +13,7 @@ import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
-import { LoopStream } from './LoopStream';
+import { LoopSpool } from './LoopSpool';
 import { MemoryGuard } from './MemoryGuard';
 
 /** The result of one channel. */
@@ -29,7 +29,7 @@ export interface ChannelResult {
   /** The loop table of the stabilised pass (main correction) of a duty cycle, when it was kept; null otherwise. */
   loops: LifeLoopColumns | null;
   /** The loops of a streamed file, spooled on disk, when they were kept; null otherwise. */
-  loopStream: LoopStream | null;
+  loopStream: LoopSpool | null;
 }
 
 /** Called with the number of samples read so far, for a progress display. */
@@ -144,25 +144,29 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     return j;
   };
   const corrections = job.meanStress === 'all' ? correctionsOf(job) : [main];
-  // per channel: one session per correction (loops folded), and one keeping the loop table
-  const sessions = job.channels.map((c, k) => corrections.map((ms) => new LifeSession(jobOf(c, k, ms), { keepLoops: false })));
-  // and, for --cycles-out, a loop stream that spools the loop rows to disk as they close
-  const tables = job.channels.map((c, k) => (keepLoops ? new LoopStream(jobOf(c, k, main)) : null));
-  const all: (LifeSession | LoopStream)[][] = sessions.map((list, k) => (tables[k] ? [...list, tables[k] as LoopStream] : list));
+  // per channel: one session per correction (loops folded into totals); for --cycles-out the
+  // main correction's session hands its evaluated loops to a spool on disk as they close
+  const spools = job.channels.map(() => (keepLoops ? new LoopSpool() : null));
+  const sessions = job.channels.map((c, k) =>
+    corrections.map((ms) => {
+      const spool = spools[k];
+      return new LifeSession(jobOf(c, k, ms), spool !== null && ms === main ? { onLoops: spool.sink } : { keepLoops: false });
+    }),
+  );
   const displays = job.channels.map(() => new DisplayHistory());
   // parsing runs on a second core while the sessions assess the chunks here
   const first = await readDelimitedParallel(file, {
     ...options,
     onChunk: (chunk) => {
       chunk.channels.forEach((values, k) => {
-        for (const s of all[k]) s.push(values);
+        for (const s of sessions[k]) s.push(values);
         displays[k].push(values, chunk.firstSample);
       });
       guard.check(at(chunk));
       progress?.(chunk.firstSample + chunk.length, 1);
     },
   });
-  const need = Math.max(...all.flat().map((s) => s.endFirstPass()));
+  const need = Math.max(...sessions.flat().map((s) => s.endFirstPass()));
   if (need > 0) {
     // the stabilised pass needs the samples up to the largest |value| once more: read them again
     await readDelimitedParallel(file, {
@@ -170,7 +174,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       checks: false,
       onChunk: (chunk) => {
         chunk.channels.forEach((values, k) => {
-          for (const s of all[k]) {
+          for (const s of sessions[k]) {
             const left = s.secondPassSamples - chunk.firstSample;
             if (left > 0) s.pushSecondPass(left >= values.length ? values : values.subarray(0, left));
           }
@@ -183,7 +187,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   }
   return job.channels.map((c, k) => {
     const reports = sessions[k].map((s) => s.finish());
-    const report = reports[corrections.indexOf(main)];
+    const m = corrections.indexOf(main);
+    const report = reports[m];
     return {
       name: first.channels[k].name,
       unit: unitLabel(c),
@@ -192,7 +197,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       sources: [first],
       history: displays[k].points(),
       loops: null,
-      loopStream: tables[k]?.finish() ?? null,
+      loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,
     };
   });
 }

@@ -1,11 +1,12 @@
 import { LifeSession, type LifeJob } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { describe, expect, test } from 'vitest';
-import { LoopStream } from '../../src/cli/LoopStream';
+import { LoopSpool } from '../../src/cli/LoopSpool';
 import { mulberry32 } from '../../../../fixtures/generate.mjs';
 
-// LoopStream spools the loops of --cycles-out to disk; its rows must equal the loop table of the
-// engine's LifeSession with keepLoops (the same stages), row for row, on every route.
+// LoopSpool keeps the loops of --cycles-out on disk as a LifeSession hands them over (onLoops);
+// the rows it copies out must equal the loop table of a LifeSession with keepLoops, row for row,
+// on every route (repeating, one-off with residue half cycles, gate, offset, initial value).
 // Histories invented for the test (seeded generator).
 /**
  * Local values come from the tracker's solves, converged to 1e-10 relative (its default
@@ -49,17 +50,19 @@ function tableRows(job: LifeJob, h: Float64Array, chunk: number): string {
 }
 
 async function streamRows(job: LifeJob, h: Float64Array, chunk: number): Promise<string> {
-  const s = new LoopStream(job);
+  const spool = new LoopSpool();
   try {
+    const s = new LifeSession(job, { onLoops: spool.sink });
     for (let i = 0; i < h.length; i += chunk) s.push(h.subarray(i, i + chunk));
     const need = s.endFirstPass();
     for (let i = 0; i < need; i += chunk) s.pushSecondPass(h.subarray(i, Math.min(need, i + chunk)));
     s.finish();
+    spool.finish(s.reportedLoopRows);
     let text = '';
-    await s.copyTo({ write: async (t) => void (text += t) }, 'ch,');
+    await spool.copyTo({ write: async (t: string) => void (text += t) }, 'ch,');
     return text;
   } finally {
-    s.remove();
+    spool.remove();
   }
 }
 
@@ -71,7 +74,7 @@ const cases: [string, LifeJob, number][] = [
   ['nominal stress, initial value, one-off, modified Morrow', { material: steel, notch: { Kt: 2 }, initial: -50, repeating: false, meanStress: 'modifiedMorrow' }, 250],
 ];
 
-describe('LoopStream rows equal the LifeSession loop table (keepLoops)', () => {
+describe('LoopSpool rows equal the LifeSession loop table (keepLoops)', () => {
   for (const [name, job, scale] of cases) {
     test(name, async () => {
       for (const [seed, n, chunk] of [[1, 20000, 4096], [2, 5000, 333], [3, 70000, 65536]] as const) {
