@@ -1,7 +1,7 @@
 import { LoopwiseError } from '@loopwise/base';
 
 /** Stable codes of {@link EngineError}. */
-export type EngineErrorCode = 'invalid-job' | 'invalid-event' | 'non-finite-sample' | 'invalid-margin' | 'session-state';
+export type EngineErrorCode = 'invalid-job' | 'invalid-event' | 'non-finite-sample' | 'invalid-margin' | 'session-state' | 'invalid-stress-cycle';
 
 /**
  * An error of the life pipeline: a job field, an event or a sample that cannot be used. `field`

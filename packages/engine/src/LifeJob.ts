@@ -2,7 +2,31 @@ import { defineMaterial, type Material, type MaterialInput } from '@loopwise/mat
 import { damageParameters, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from '@loopwise/mean-stress';
 import type { ServiceUnit } from '@loopwise/miner';
 import { DEFAULT_TRACKER_TOLERANCE, type NotchInputKind, type NotchRuleName } from '@loopwise/notch';
+import { defineSnCurve, resolveCycleOptions, type AmplitudeCorrection, type SnCurve, type SnCurveInput } from '@loopwise/stress-life';
 import { EngineError } from './EngineError';
+
+/**
+ * The stress-life route of a job: rainflow cycles of the nominal (or hot-spot) stress history on
+ * an S-N curve, instead of the local strain-life route. Cycles, not reversals, throughout.
+ */
+export interface StressLifeSpec {
+  /** The S-N curve: from `@loopwise/stress-life` (a detail class, a material) or its parameters. */
+  curve: SnCurve | SnCurveInput;
+  /** Mean-stress correction of the amplitude; default `{ method: 'none' }` (the weld standards' as-welded case). */
+  meanStress?: AmplitudeCorrection;
+  /** Fatigue notch factor Kf on the nominal range and mean; default 1. */
+  kf?: number;
+  /** A factor on every stress (e.g. a load partial factor γFf); default 1. */
+  stressFactor?: number;
+}
+
+/** A checked stress-life route. */
+export interface ResolvedStressLife {
+  curve: SnCurve;
+  meanStress: AmplitudeCorrection;
+  kf: number;
+  stressFactor: number;
+}
 
 /**
  * The job's unit of service: miner's {@link ServiceUnit} (a label and the amount one repeat
@@ -12,8 +36,18 @@ export type JobServiceUnit = Omit<ServiceUnit, 'perRepeat'> & { perRepeat?: numb
 
 /** What to assess and how. Every field but `material` has a documented default. */
 export interface LifeJob {
-  /** Strain-life material (validated by `defineMaterial` when not already a material). */
-  material: Material | MaterialInput;
+  /**
+   * Strain-life material (validated by `defineMaterial` when not already a material). Required
+   * on the strain-life route; optional with `stressLife` (echoed in the report when given).
+   */
+  material?: Material | MaterialInput;
+  /**
+   * The stress-life route (S-N curve, amplitude correction, Kf). When given, `input`, `notch`,
+   * `rule`, `meanStress`, `walkerGamma`, `tolerance` and a non-zero `initial` do not apply and
+   * are refused; `loadToStress`, `offset`, the gate, `repeating`, `cutoffCycles`,
+   * `criticalDamage`, `scatterFactor` and `unit` apply as on the strain-life route.
+   */
+  stressLife?: StressLifeSpec;
   /**
    * What the history holds; default `'nominal'`:
    * `'nominal'` nominal stress or load (times `loadToStress`, times Kt or Kf at the notch);
@@ -73,7 +107,12 @@ export interface LifeJob {
 
 /** A job after checking and defaulting: what {@link resolveLifeJob} returns and every stage reads. */
 export interface ResolvedJob {
-  material: Material;
+  /** Which route assesses the job. */
+  route: 'strain-life' | 'stress-life';
+  /** The material (on the stress-life route, undefined unless the job gave one: see {@link strainLifeMaterial}). */
+  material: Material | undefined;
+  /** The stress-life route's curve and options (undefined on the strain-life route). */
+  stressLife: ResolvedStressLife | undefined;
   input: NotchInputKind;
   rule: NotchRuleName;
   Kt: number | undefined;
@@ -122,8 +161,9 @@ function positive(field: string, v: unknown, fallback: number): number {
  */
 export function resolveLifeJob(job: LifeJob): ResolvedJob {
   if (job === null || typeof job !== 'object') bad('job', job, 'must be an object');
-  if (job.material === undefined || job.material === null) bad('material', job.material, 'is required');
-  const material = Object.isFrozen(job.material) && 'warnings' in job.material ? (job.material as Material) : defineMaterial(job.material);
+  if (job.stressLife !== undefined) return resolveStressLifeJob(job);
+  if (job.material === undefined || job.material === null) bad('material', job.material, 'is required (or give stressLife for the stress-life route)');
+  const material = materialOf(job.material);
   const input = job.input ?? 'nominal';
   if (!['nominal', 'pseudo-elastic', 'local-strain'].includes(input)) {
     bad('input', input, "must be 'nominal', 'pseudo-elastic' or 'local-strain'");
@@ -151,6 +191,26 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
     walkerGamma = finite('walkerGamma', job.walkerGamma, 0.5);
     if (!(walkerGamma > 0 && walkerGamma <= 1)) bad('walkerGamma', job.walkerGamma, 'must be in (0, 1]');
   }
+  const tolerance = finite('tolerance', job.tolerance, DEFAULT_TRACKER_TOLERANCE);
+  if (!(tolerance >= 1e-15 && tolerance <= 1e-10)) bad('tolerance', tolerance, 'must be in [1e-15, 1e-10]');
+  return {
+    route: 'strain-life',
+    material,
+    stressLife: undefined,
+    input,
+    rule,
+    Kt,
+    Kf,
+    meanStress,
+    walkerGamma,
+    tolerance,
+    initial: finite('initial', job.initial, 0),
+    ...sharedFields(job),
+  };
+}
+
+/** The fields both routes read, checked and defaulted. */
+function sharedFields(job: LifeJob): Omit<ResolvedJob, 'route' | 'material' | 'stressLife' | 'input' | 'rule' | 'Kt' | 'Kf' | 'meanStress' | 'walkerGamma' | 'tolerance' | 'initial'> {
   if (job.gate !== undefined && job.gateFraction !== undefined) bad('gateFraction', job.gateFraction, 'give gate or gateFraction, not both');
   const gate = job.gate === undefined ? undefined : finite('gate', job.gate, 0);
   if (gate !== undefined && gate < 0) bad('gate', gate, 'must be >= 0');
@@ -175,17 +235,8 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
   if (!Number.isInteger(timelineBins) || timelineBins < 1) bad('timelineBins', timelineBins, 'must be an integer >= 1');
   const worstLoopCount = job.worstLoopCount ?? 10;
   if (!Number.isInteger(worstLoopCount) || worstLoopCount < 0) bad('worstLoopCount', worstLoopCount, 'must be an integer >= 0');
-  const tolerance = finite('tolerance', job.tolerance, DEFAULT_TRACKER_TOLERANCE);
-  if (!(tolerance >= 1e-15 && tolerance <= 1e-10)) bad('tolerance', tolerance, 'must be in [1e-15, 1e-10]');
   return {
-    material,
-    input,
-    rule,
-    Kt,
-    Kf,
     loadToStress: positive('loadToStress', job.loadToStress, 1),
-    meanStress,
-    walkerGamma,
     gate,
     gateFraction,
     fullScale,
@@ -194,10 +245,77 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
     criticalDamage,
     scatterFactor,
     unit,
-    initial: finite('initial', job.initial, 0),
     offset: finite('offset', job.offset, 0),
     timelineBins,
     worstLoopCount,
-    tolerance,
   };
+}
+
+/** The material of a strain-life job (every strain-life stage reads it; resolveLifeJob guarantees it there). */
+export function strainLifeMaterial(job: ResolvedJob): Material {
+  if (job.material === undefined) throw new EngineError('invalid-job', 'material', undefined, 'the strain-life route needs a material');
+  return job.material;
+}
+
+function materialOf(m: Material | MaterialInput): Material {
+  return Object.isFrozen(m) && 'warnings' in m ? (m as Material) : defineMaterial(m);
+}
+
+/** Fields of the strain-life route only. */
+const STRAIN_ONLY = ['input', 'notch', 'rule', 'meanStress', 'walkerGamma', 'tolerance'] as const;
+
+/**
+ * The stress-life route: checks the curve (`defineSnCurve` when given by its parameters) and the
+ * options (errors of the stress-life package renamed to the job field), refuses the strain-life
+ * fields, and checks the shared ones as the strain route does.
+ */
+function resolveStressLifeJob(job: LifeJob): ResolvedJob {
+  const spec = job.stressLife as StressLifeSpec;
+  if (spec === null || typeof spec !== 'object') bad('stressLife', spec, 'must be { curve, meanStress, kf, stressFactor }');
+  for (const k of STRAIN_ONLY) {
+    if (job[k] !== undefined) {
+      const instead = k === 'meanStress' ? 'the correction is stressLife.meanStress' : k === 'notch' ? 'the notch enters as stressLife.kf' : 'remove it';
+      bad(k, job[k], `applies to the strain-life route only (this job gives stressLife: ${instead})`);
+    }
+  }
+  if (job.initial !== undefined && job.initial !== 0) bad('initial', job.initial, 'the stress-life route counts cycles from the first sample; an initial value applies to the strain-life route only');
+  for (const k of Object.keys(spec)) {
+    if (!['curve', 'meanStress', 'kf', 'stressFactor'].includes(k)) bad(`stressLife.${k}`, (spec as unknown as Record<string, unknown>)[k], 'unknown field (known: curve, meanStress, kf, stressFactor)');
+  }
+  const c = spec.curve as SnCurve & SnCurveInput;
+  if (c === null || typeof c !== 'object') bad('stressLife.curve', c, 'must be an S-N curve or { stress, cycles, slope, knees, cutoffCycles, measure }');
+  let curve: SnCurve;
+  let meanStress: AmplitudeCorrection;
+  try {
+    curve = Object.isFrozen(c) && Array.isArray(c.slopes) ? c : defineSnCurve(c);
+  } catch (err) {
+    throw renamed(err, 'stressLife.curve');
+  }
+  try {
+    [meanStress] = resolveCycleOptions({ meanStress: spec.meanStress, kf: spec.kf, stressFactor: spec.stressFactor });
+  } catch (err) {
+    throw renamed(err, 'stressLife');
+  }
+  return {
+    route: 'stress-life',
+    material: job.material === undefined || job.material === null ? undefined : materialOf(job.material),
+    stressLife: { curve, meanStress, kf: spec.kf ?? 1, stressFactor: spec.stressFactor ?? 1 },
+    input: 'nominal',
+    rule: 'neuber',
+    Kt: undefined,
+    Kf: undefined,
+    meanStress: DEFAULT_DAMAGE_PARAMETER,
+    walkerGamma: undefined,
+    tolerance: DEFAULT_TRACKER_TOLERANCE,
+    initial: 0,
+    ...sharedFields(job),
+  };
+}
+
+/** A stress-life package error as an engine job error under `prefix` (its field and sentence kept). */
+function renamed(err: unknown, prefix: string): unknown {
+  if (!(err instanceof Error) || err instanceof EngineError || !('field' in err)) return err;
+  const e = err as Error & { field: string; value?: unknown };
+  const field = e.field.startsWith('curve') || e.field.startsWith('options') ? e.field.replace(/^[a-z]+\.?/, '') : e.field;
+  return new EngineError('invalid-job', field === '' ? prefix : `${prefix}.${field}`, e.value, e.message);
 }

@@ -1,5 +1,9 @@
 import type { DamageParameterName } from '@loopwise/mean-stress';
+import type { AmplitudeCorrection } from '@loopwise/stress-life';
 import type { LifeEstimate } from '@loopwise/miner';
+
+/** A mean-stress correction by name: a damage parameter (strain-life route) or an amplitude correction (stress-life route). */
+export type CorrectionName = DamageParameterName | AmplitudeCorrection['method'];
 
 /**
  * Typed-array columns of the loops that make up the damage of one repeat (stabilised pass). Rows
@@ -8,12 +12,16 @@ import type { LifeEstimate } from '@loopwise/miner';
  * report alone: writing through them changes no other result.
  */
 export interface LifeLoopColumns {
-  /** Local stresses and strains of the loop at the notch root. */
+  /**
+   * Local stresses and strains of the loop at the notch root. On the stress-life route the
+   * stresses are those entered on the S-N curve ((x + offset) · loadToStress · Kf · stress
+   * factor) and the strain columns are empty (length 0: no local strain is computed).
+   */
   stressMax: Float64Array;
   stressMin: Float64Array;
   strainMax: Float64Array;
   strainMin: Float64Array;
-  /** The damage parameter's value (see `damage.parameterUnit`). */
+  /** The damage parameter's value (see `damage.parameterUnit`; on the stress route the equivalent stress on the curve). */
   parameter: Float64Array;
   /** Reversals to failure 2Nf of one such loop. */
   reversalsToFailure: Float64Array;
@@ -40,8 +48,9 @@ export interface WorstLoop {
   count: number;
   stressMax: number;
   stressMin: number;
-  strainMax: number;
-  strainMin: number;
+  /** Local strains (null on the stress-life route). */
+  strainMax: number | null;
+  strainMin: number | null;
   cyclesToFailure: number;
   startIndex: number;
   turnIndex: number;
@@ -51,7 +60,14 @@ export interface WorstLoop {
 
 /** A warning of the assessment: a stable code, a sentence, and the numbers behind it. */
 export interface LifeWarning {
-  code: 'gate-removed-damage' | 'cutoff-share' | 'beyond-material-model' | 'incompatible-material' | 'first-reversal-failure';
+  code:
+    | 'gate-removed-damage'
+    | 'cutoff-share'
+    | 'beyond-material-model'
+    | 'incompatible-material'
+    | 'first-reversal-failure'
+    | 'below-curve-limit'
+    | 'beyond-curve-range';
   message: string;
   details: Record<string, number | string>;
 }
@@ -77,8 +93,10 @@ export interface LifeReport {
   /** The safety caution that goes with every estimate. */
   caution: string;
   damage: {
-    /** The mean-stress correction (damage parameter) in use, as named in the job. */
-    meanStress: DamageParameterName;
+    /** The route: local strain-life (notch rule, strain-life curve) or stress-life (S-N curve). */
+    route: 'strain-life' | 'stress-life';
+    /** The mean-stress correction in use: the damage parameter, or the stress route's amplitude correction. */
+    meanStress: CorrectionName;
     parameterUnit: string;
     /** Damage per repeat of the schedule, stabilised pass (the basis of life). */
     perRepeat: number;

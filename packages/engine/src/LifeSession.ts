@@ -6,6 +6,7 @@ import type { LifeLoopColumns, LifeReport } from './LifeReport';
 import { LoopAggregate } from './LoopAggregate';
 import { reportFromTracked, reportHead, type ReportEvent } from './reportAssembly';
 import { emptyColumns, evaluatedColumns, residueHalfColumns } from './reportColumns';
+import { StressCycleStream } from './StressCycleStream';
 import { trackedFrom, trackerOptionsOf, type RowRange } from './trackHistory';
 import { gateBoundAt, warningsOf } from './warnings';
 
@@ -59,7 +60,9 @@ export interface LifeSessionOptions {
 export class LifeSession {
   private readonly job: ResolvedJob;
   private readonly gate: number;
-  private readonly tracker: RepeatingNotchTracker;
+  private readonly tracker: RepeatingNotchTracker | null;
+  /** The stress-life route's counter (null on the strain-life route). */
+  private readonly stress: StressCycleStream | null;
   private filter: ReversalFilter;
   private readonly tv = new Float64Array(BLOCK + 2);
   private readonly ti = new Float64Array(BLOCK + 2);
@@ -105,7 +108,8 @@ export class LifeSession {
     }
     this.gate = j.gate ?? (j.gateFraction !== undefined ? j.gateFraction * (j.fullScale as number) : 0);
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
-    this.tracker = new RepeatingNotchTracker(trackerOptionsOf(j));
+    this.stress = j.route === 'stress-life' ? new StressCycleStream(j, this.gate, this.keepLoops, this.binSize, this.onLoops) : null;
+    this.tracker = this.stress === null ? new RepeatingNotchTracker(trackerOptionsOf(j)) : null;
   }
 
   /** Samples pushed in the first pass so far. */
@@ -136,6 +140,11 @@ export class LifeSession {
   /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
+    if (this.stress !== null) {
+      this.stress.push(chunk);
+      this.samples += chunk.length;
+      return this;
+    }
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
       const k = this.gated(chunk, s, e);
@@ -152,6 +161,11 @@ export class LifeSession {
    */
   endFirstPass(): number {
     if (this.stage !== 'first') return this.secondNeeded;
+    if (this.stress !== null) {
+      // the stress route closes a repeating history's residue at the end: no second read
+      this.stage = 'done';
+      return 0;
+    }
     // the last extreme is a turning point too
     this.feed(this.filter.pendingInto(this.tv, this.ti, 0), false);
     this.removed = this.filter.removedCount;
@@ -159,7 +173,7 @@ export class LifeSession {
       this.stage = 'done';
       return 0;
     }
-    const need = this.tracker.endFirstPass();
+    const need = (this.tracker as RepeatingNotchTracker).endFirstPass();
     this.secondNeeded = need.whole ? this.samples : need.throughIndex + 1;
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     this.stage = 'second';
@@ -197,8 +211,13 @@ export class LifeSession {
     }
     if (this.samples === 0) throw new EngineError('invalid-event', 'history', '[]', "event 'history' has no samples");
     const events: ReportEvent[] = [{ name: 'history', repeats: 1, samples: this.samples }];
+    if (this.stress !== null) {
+      const report = this.stress.finish(this.samples, events);
+      this.reported = this.stress.reported;
+      return report;
+    }
     if (!this.keepLoops) return this.aggregateReport(events);
-    const tracked = trackedFrom(this.tracker, this.job.repeating, {
+    const tracked = trackedFrom(this.tracker as RepeatingNotchTracker, this.job.repeating, {
       eventStarts: [0],
       totalSamples: this.samples,
       gate: this.gate,
@@ -228,10 +247,11 @@ export class LifeSession {
   private feed(k: number, again: boolean): void {
     if (k === 0) return;
     const off = this.job.offset;
+    const tracker = this.tracker as RepeatingNotchTracker;
     try {
-      if (again) this.tracker.pushAgain(this.tv, this.ti, 0, k);
+      if (again) tracker.pushAgain(this.tv, this.ti, 0, k);
       else {
-        this.tracker.push(this.tv, this.ti, 0, k);
+        tracker.push(this.tv, this.ti, 0, k);
         for (let i = 0; i < k; i++) {
           const a = Math.abs(this.tv[i] + off);
           if (a > this.largestKept) this.largestKept = a;
@@ -252,7 +272,7 @@ export class LifeSession {
    * pass; second-pass loops are its own.
    */
   private fold(): void {
-    const taken = this.tracker.takeLoops();
+    const taken = (this.tracker as RepeatingNotchTracker).takeLoops();
     const n = taken.loops.length;
     // an empty first-pass take still moves the largest |value| (the split below)
     if (n === 0 && taken.secondPass) return;
@@ -284,7 +304,7 @@ export class LifeSession {
   private aggregateReport(events: ReportEvent[]): LifeReport {
     const job = this.job;
     // every loop was folded as it closed: the tracked result holds the passes' facts only
-    const result = trackedFrom(this.tracker, job.repeating, { eventStarts: [0], totalSamples: this.samples, gate: this.gate, removed: this.removed, largestKept: 0 });
+    const result = trackedFrom(this.tracker as RepeatingNotchTracker, job.repeating, { eventStarts: [0], totalSamples: this.samples, gate: this.gate, removed: this.removed, largestKept: 0 });
     const stab = this.aggregate();
     const firstPass = this.aggregate();
     firstPass.merge(this.before!);

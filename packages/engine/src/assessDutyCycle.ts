@@ -1,6 +1,7 @@
 import { resolveLifeJob, type LifeJob } from './LifeJob';
 import type { LifeReport } from './LifeReport';
-import { reportEvents, reportFromTracked } from './reportAssembly';
+import { reportEvents, reportFromTracked, stressReportFromCounted } from './reportAssembly';
+import { countSchedule } from './stressLifeRoute';
 import { checkEvents, type DutyEvent } from './schedule';
 import { trackDutyCycle } from './trackHistory';
 
@@ -17,6 +18,11 @@ export type { DutyEvent } from './schedule';
  * with the cut-off → life in repeats of the schedule and in service units, with the attribution
  * of damage to events, to sample-index bins and to the worst loops, and the warnings.
  *
+ * With `job.stressLife`, the stress-life route: four-point rainflow over the schedule (repeats
+ * counted once the counter's state repeats; the residue closed as the schedule repeats, or half
+ * cycles of a one-off schedule) → Kf and the stress factor → the amplitude correction → cycles to
+ * failure on the S-N curve → the same Palmgren-Miner sum, attribution and report shape.
+ *
  * @example
  * const report = assessDutyCycle(
  *   [
@@ -30,5 +36,6 @@ export type { DutyEvent } from './schedule';
 export function assessDutyCycle(events: DutyEvent[], job: LifeJob): LifeReport {
   const resolved = resolveLifeJob(job);
   checkEvents(events);
+  if (resolved.route === 'stress-life') return stressReportFromCounted(countSchedule(events, resolved), reportEvents(events), resolved);
   return reportFromTracked(trackDutyCycle(events, resolved), reportEvents(events), resolved);
 }

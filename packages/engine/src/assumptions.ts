@@ -12,3 +12,12 @@ export const ASSUMPTIONS: readonly string[] = Object.freeze([
 /** The caution that goes with every estimate. */
 export const CAUTION =
   'Fatigue life estimates carry large scatter (a factor of several on life is common). Validate them by test on representative parts, apply scatter factors, and for safety-critical parts follow the applicable design codes and have the assessment reviewed by a licensed engineer.';
+
+/** The stress-life route's assumptions, stated in every report of that route. */
+export const STRESS_LIFE_ASSUMPTIONS: readonly string[] = Object.freeze([
+  'Uniaxial nominal (or hot-spot) stress at the detail; multiaxial states are not modelled.',
+  'Cycles by four-point rainflow counting (ASTM E1049-85); a repeating history closes its residue as it repeats, a one-off history counts it as half cycles.',
+  'Linear-elastic stresses: the notch enters as the fatigue notch factor Kf on range and mean; local plasticity and its memory are not modelled (use the strain-life route where the notch yields).',
+  'The S-N curve as given (its knee, slopes, cut-off and the standard\'s partial factors as chosen) with the chosen mean-stress correction of the amplitude; crack initiation and early growth as the curve represents them.',
+  'Linear damage accumulation (Palmgren-Miner, with the critical damage sum given); no sequence effects.',
+]);

@@ -1,6 +1,7 @@
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
-import { reportEvents, reportFromTracked } from './reportAssembly';
+import { reportEvents, reportFromTracked, stressReportFromCounted } from './reportAssembly';
+import { countSchedule } from './stressLifeRoute';
 import { checkEvents, type DutyEvent } from './schedule';
 import { trackDutyCycle } from './trackHistory';
 
@@ -103,5 +104,6 @@ function repeatsAt(events: DutyEvent[], job: ResolvedJob, f: number): number {
     fullScale: job.fullScale === undefined ? undefined : job.fullScale * f,
     worstLoopCount: 0,
   };
+  if (j.route === 'stress-life') return stressReportFromCounted(countSchedule(scaled, j), reportEvents(scaled), j).life.repeats;
   return reportFromTracked(trackDutyCycle(scaled, j), reportEvents(scaled), j).life.repeats;
 }

@@ -1,7 +1,7 @@
 export { EngineError, type EngineErrorCode } from './EngineError';
-export { resolveLifeJob, type JobServiceUnit, type LifeJob, type ResolvedJob } from './LifeJob';
-export type { EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
-export { ASSUMPTIONS, CAUTION } from './assumptions';
+export { resolveLifeJob, strainLifeMaterial, type JobServiceUnit, type LifeJob, type ResolvedJob, type ResolvedStressLife, type StressLifeSpec } from './LifeJob';
+export type { CorrectionName, EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
+export { ASSUMPTIONS, CAUTION, STRESS_LIFE_ASSUMPTIONS } from './assumptions';
 export { assessLife } from './assessLife';
 export { assessDutyCycle, type DutyEvent } from './assessDutyCycle';
 export { compareCorrections, type CorrectionResult } from './compareCorrections';

@@ -1,13 +1,14 @@
 import { neumaierSum } from '@loopwise/base';
 import { damageByEvent, damageInto, damageTimeline, lifeFromDamage, mostDamagingLoops } from '@loopwise/miner';
-import { ASSUMPTIONS, CAUTION } from './assumptions';
+import { ASSUMPTIONS, CAUTION, STRESS_LIFE_ASSUMPTIONS } from './assumptions';
 import { evaluateLoops } from './evaluateLoops';
-import type { ResolvedJob } from './LifeJob';
-import type { EventDamage, LifeLoopColumns, LifeReport, WorstLoop } from './LifeReport';
+import { strainLifeMaterial, type ResolvedJob } from './LifeJob';
+import type { CorrectionName, EventDamage, LifeLoopColumns, LifeReport, LifeWarning, WorstLoop } from './LifeReport';
 import { loopColumnsOf, withResidueHalves } from './reportColumns';
 import { servicePerRepeat, type DutyEvent } from './schedule';
 import type { TrackedHistory } from './trackHistory';
-import { cutoffReport, gateBoundAt, warningsOf } from './warnings';
+import { stressLoopColumns, stressResidueHalves, stressTallies, stressWarnings, type CountedSchedule } from './stressLifeRoute';
+import { cutoffReport, cutoffWarning, gateBoundAt, warningsOf } from './warnings';
 
 const PARAMETER_UNITS: Record<string, string> = {
   none: 'strain amplitude',
@@ -16,6 +17,16 @@ const PARAMETER_UNITS: Record<string, string> = {
   smithWatsonTopper: 'stress × strain amplitude (σmax·εa)',
   walker: 'stress (σmax^(1−γ)·(E·εa)^γ)',
 };
+
+/** The mean-stress correction's name in the report: the damage parameter, or the stress route's amplitude correction. */
+export function correctionName(job: ResolvedJob): CorrectionName {
+  return job.stressLife === undefined ? job.meanStress : job.stressLife.meanStress.method;
+}
+
+function parameterUnit(job: ResolvedJob): string {
+  if (job.stressLife === undefined) return PARAMETER_UNITS[job.meanStress];
+  return `equivalent fully reversed stress ${job.stressLife.curve.measure} (${job.stressLife.meanStress.method}), entered on the S-N curve`;
+}
 
 /** The events as the report echoes and attributes them (batch events, or the one streamed history). */
 export type ReportEvent = Pick<DutyEvent, 'name' | 'repeats' | 'duration'> & { samples: number };
@@ -35,9 +46,9 @@ export function reportHead(
     format: 'loopwise-life-report',
     version: 1,
     inputs: echoInputs(job, events, gate),
-    assumptions: [...ASSUMPTIONS],
+    assumptions: [...(job.route === 'stress-life' ? STRESS_LIFE_ASSUMPTIONS : ASSUMPTIONS)],
     caution: CAUTION,
-    damage: { meanStress: job.meanStress, parameterUnit: PARAMETER_UNITS[job.meanStress], ...damage },
+    damage: { route: job.route, meanStress: correctionName(job), parameterUnit: parameterUnit(job), ...damage },
     life: lifeFromDamage(damage.perRepeat, {
       criticalDamage: job.criticalDamage,
       scatterFactor: job.scatterFactor,
@@ -59,7 +70,7 @@ export function reportEvents(events: readonly DutyEvent[]): ReportEvent[] {
  */
 export function reportFromTracked(tracked: TrackedHistory, events: readonly ReportEvent[], job: ResolvedJob, own = true): LifeReport {
   const all = tracked.loops.columns();
-  const lives = evaluateLoops(all, job.material, job.meanStress, job.walkerGamma);
+  const lives = evaluateLoops(all, strainLifeMaterial(job), job.meanStress, job.walkerGamma);
   let loops = loopColumnsOf(all, lives, tracked.stabilised, tracked.eventStarts, own);
   if (!job.repeating) loops = withResidueHalves(loops, tracked.firstResidue, job, tracked.eventStarts);
   const cutoff = job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } };
@@ -72,11 +83,61 @@ export function reportFromTracked(tracked: TrackedHistory, events: readonly Repo
     damageInto(all.count.subarray(from, to), lives.cyclesToFailure.subarray(from, to), d, cutoff);
     firstDamage = neumaierSum(d);
   }
-  return assemble(job, events, tracked, loops, damage, firstDamage);
+  let firstReversal = 0;
+  for (let i = 0; i < loops.count.length; i++) if (loops.reversalsToFailure[i] <= 1) firstReversal++;
+  const { gate, removed, largestKept } = tracked;
+  const warnings = warningsOf(job, {
+    damage,
+    gate,
+    removed,
+    gateBound: removed > 0 ? gateBoundAt(job, largestKept, gate, removed) : 0,
+    cutoff: job.cutoffCycles === undefined ? null : cutoffReport(loops, job.cutoffCycles),
+    beyondStrainLimit: tracked.beyondStrainLimit,
+    firstBeyondIndex: tracked.firstBeyondIndex,
+    firstReversal,
+  });
+  return assembleReport(job, events, tracked, loops, damage, firstDamage, warnings);
 }
 
-function assemble(job: ResolvedJob, events: readonly ReportEvent[], tracked: TrackedHistory, loops: LifeLoopColumns, damage: number, firstDamage: number): LifeReport {
-  const { eventStarts, gate, removed, totalSamples, largestKept } = tracked;
+/**
+ * The report of the stress-life route from a counted schedule: every cycle evaluated on the
+ * curve (closed cycles, then the residue's: closed as the schedule repeats, or half cycles of a
+ * one-off schedule); the first pass is the closed cycles and the residue's half cycles.
+ */
+export function stressReportFromCounted(counted: CountedSchedule, events: readonly ReportEvent[], job: ResolvedJob): LifeReport {
+  const starts = counted.eventStarts;
+  const loops = stressLoopColumns(counted.cycles, job, starts);
+  const damage = neumaierSum(loops.damage);
+  let firstDamage = damage;
+  if (job.repeating) {
+    const halves = stressResidueHalves(counted.residue, job, starts);
+    firstDamage = neumaierSum(loops.damage.subarray(0, counted.closedRows)) + neumaierSum(halves.damage);
+  }
+  const warnings = stressWarnings(
+    job,
+    { damage, gate: counted.gate, removed: counted.removed, largest: counted.largest, ...stressTallies(loops) },
+    job.cutoffCycles === undefined ? null : cutoffWarning(job.cutoffCycles, cutoffReport(loops, job.cutoffCycles)),
+  );
+  return assembleReport(job, events, { ...counted, reusedFirstPass: false }, loops, damage, firstDamage, warnings);
+}
+
+/** Facts of the tracking or counting stage that the report repeats. */
+type StageFacts = Pick<TrackedHistory, 'eventStarts' | 'gate' | 'removed' | 'totalSamples' | 'reusedFirstPass'>;
+
+/**
+ * A report from evaluated loop columns (either route): attribution to the timeline, events and
+ * the worst loops, with the route's warnings.
+ */
+export function assembleReport(
+  job: ResolvedJob,
+  events: readonly ReportEvent[],
+  facts: StageFacts,
+  loops: LifeLoopColumns,
+  damage: number,
+  firstDamage: number,
+  warnings: LifeWarning[],
+): LifeReport {
+  const { eventStarts, gate, removed, totalSamples } = facts;
   const attribution = { damage: loops.damage, startIndex: clampIndex(loops.startIndex), turnIndex: clampIndex(loops.turnIndex) };
   const binSize = Math.max(1, Math.ceil(totalSamples / job.timelineBins));
   const timeline = damageTimeline(attribution, { binSize, sampleCount: totalSamples });
@@ -96,28 +157,16 @@ function assemble(job: ResolvedJob, events: readonly ReportEvent[], tracked: Tra
     count: loops.count[row],
     stressMax: loops.stressMax[row],
     stressMin: loops.stressMin[row],
-    strainMax: loops.strainMax[row],
-    strainMin: loops.strainMin[row],
+    strainMax: loops.strainMax.length > 0 ? loops.strainMax[row] : null,
+    strainMin: loops.strainMin.length > 0 ? loops.strainMin[row] : null,
     cyclesToFailure: loops.cyclesToFailure[row],
     startIndex: loops.startIndex[row],
     turnIndex: loops.turnIndex[row],
     startEvent: loops.startEvent[row] >= 0 ? events[loops.startEvent[row]].name : null,
     turnEvent: loops.turnEvent[row] >= 0 ? events[loops.turnEvent[row]].name : null,
   }));
-  let firstReversal = 0;
-  for (let i = 0; i < loops.count.length; i++) if (loops.reversalsToFailure[i] <= 1) firstReversal++;
-  const warnings = warningsOf(job, {
-    damage,
-    gate,
-    removed,
-    gateBound: removed > 0 ? gateBoundAt(job, largestKept, gate, removed) : 0,
-    cutoff: job.cutoffCycles === undefined ? null : cutoffReport(loops, job.cutoffCycles),
-    beyondStrainLimit: tracked.beyondStrainLimit,
-    firstBeyondIndex: tracked.firstBeyondIndex,
-    firstReversal,
-  });
   return {
-    ...reportHead(job, events, gate, { perRepeat: damage, firstPass: firstDamage, reusedFirstPass: tracked.reusedFirstPass }),
+    ...reportHead(job, events, gate, { perRepeat: damage, firstPass: firstDamage, reusedFirstPass: facts.reusedFirstPass }),
     loops,
     worstLoops,
     timeline: { binSize, samples: totalSamples, damage: timeline },
@@ -136,7 +185,8 @@ function clampIndex(a: Float64Array): Float64Array {
 function echoInputs(job: ResolvedJob, events: readonly ReportEvent[], gate: number): Record<string, unknown> {
   const m = job.material;
   return {
-    material: { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },
+    route: job.route,
+    material: m === undefined ? null : { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },
     input: job.input,
     notch: job.input === 'nominal' ? { Kt: job.Kt, Kf: job.Kf, rule: job.rule } : { rule: job.input === 'local-strain' ? null : job.rule },
     loadToStress: job.loadToStress,

@@ -1,7 +1,7 @@
 import { damageInto, residueHalfCycles } from '@loopwise/miner';
 import type { LoopColumns, ReversalTable } from '@loopwise/notch';
 import { evaluateLoops, type LoopLives } from './evaluateLoops';
-import type { ResolvedJob } from './LifeJob';
+import { strainLifeMaterial, type ResolvedJob } from './LifeJob';
 import type { LifeLoopColumns } from './LifeReport';
 import { eventOfSample } from './schedule';
 import type { RowRange } from './trackHistory';
@@ -55,7 +55,7 @@ export function loopColumnsOf(all: LoopColumns, lives: LoopLives, range: RowRang
 }
 
 /** The event of every sample index (-1 for the initial state). */
-function eventsInto(index: Float64Array, out: Float64Array, starts: readonly number[]): void {
+export function eventsInto(index: Float64Array, out: Float64Array, starts: readonly number[]): void {
   if (starts.length === 1) {
     for (let i = 0; i < index.length; i++) out[i] = index[i] < 0 ? -1 : 0;
     return;
@@ -83,7 +83,7 @@ export function evaluatedColumns(cols: LoopColumns, job: ResolvedJob, starts: re
   if (n === 0) return c;
   eventsInto(c.startIndex, c.startEvent, starts);
   eventsInto(c.turnIndex, c.turnEvent, starts);
-  const lives = evaluateLoops(c, job.material, job.meanStress, job.walkerGamma);
+  const lives = evaluateLoops(c, strainLifeMaterial(job), job.meanStress, job.walkerGamma);
   c.parameter.set(lives.parameter);
   c.reversalsToFailure.set(lives.reversalsToFailure);
   c.cyclesToFailure.set(lives.cyclesToFailure);

@@ -1,6 +1,6 @@
 import { NotchSampleError, RepeatingNotchTracker, type LoopTable, type NotchTrackerOptions, type ReversalTable } from '@loopwise/notch';
 import { NonFiniteSampleError, turningPoints } from '@loopwise/rainflow';
-import type { ResolvedJob } from './LifeJob';
+import { strainLifeMaterial, type ResolvedJob } from './LifeJob';
 import { eventStartsOf, sampleError, scheduleGate, type DutyEvent } from './schedule';
 
 /** Rows `[from, to)` of a tracked history's loop table. */
@@ -39,7 +39,7 @@ export interface TrackedHistory {
 /** Tracker options of a job. */
 export function trackerOptionsOf(job: ResolvedJob): NotchTrackerOptions {
   const o: NotchTrackerOptions = {
-    material: job.material,
+    material: strainLifeMaterial(job),
     input: job.input,
     rule: job.rule,
     loadToStress: job.loadToStress,

@@ -1,7 +1,7 @@
 import { CutoffTally, type CutoffReport } from '@loopwise/miner';
 import { branchResponse } from '@loopwise/notch';
 import { evaluateLoops } from './evaluateLoops';
-import type { ResolvedJob } from './LifeJob';
+import { strainLifeMaterial, type ResolvedJob } from './LifeJob';
 import type { LifeLoopColumns, LifeWarning } from './LifeReport';
 import { trackerOptionsOf } from './trackHistory';
 
@@ -31,14 +31,8 @@ export function warningsOf(job: ResolvedJob, f: WarningFacts): LifeWarning[] {
     });
   }
   if (job.cutoffCycles !== undefined && f.cutoff !== null) {
-    const r = f.cutoff;
-    if (r.removedCount > 0 || r.nearCutoffShare > 0.1) {
-      out.push({
-        code: 'cutoff-share',
-        message: `the cut-off at ${job.cutoffCycles} cycles removed ${r.removedCount} loops (${r.removedDamage.toPrecision(3)} damage without the cut-off); loops within a factor ${r.nearFactor} of it carry ${(100 * r.nearCutoffShare).toPrecision(3)} % of the damage, so the result depends on the cut-off`,
-        details: { cutoffCycles: job.cutoffCycles, removedLoops: r.removedCount, removedDamage: r.removedDamage, nearCutoffShare: r.nearCutoffShare },
-      });
-    }
+    const w = cutoffWarning(job.cutoffCycles, f.cutoff);
+    if (w !== null) out.push(w);
   }
   if (f.beyondStrainLimit) {
     out.push({
@@ -54,7 +48,7 @@ export function warningsOf(job: ResolvedJob, f: WarningFacts): LifeWarning[] {
       details: { loops: f.firstReversal },
     });
   }
-  for (const w of job.material.warnings) {
+  for (const w of job.material?.warnings ?? []) {
     out.push({ code: 'incompatible-material', message: w.message, details: { field: w.field } });
   }
   return out;
@@ -84,13 +78,23 @@ export function gateBoundAt(job: ResolvedJob, largest: number, gate: number, rem
     strainMax: Float64Array.of(peak.strain),
     strainMin: Float64Array.of(low.strain),
   };
-  const lives = evaluateLoops(loop, job.material, job.meanStress, job.walkerGamma);
+  const lives = evaluateLoops(loop, strainLifeMaterial(job), job.meanStress, job.walkerGamma);
   const nf = lives.cyclesToFailure[0];
   const limit = job.cutoffCycles ?? Infinity;
   const perLoop = nf > limit || nf === Infinity ? 0 : 1 / nf;
   return ((removed + 1) / 2) * perLoop;
 }
 
+
+/** The cut-off warning, when the cut-off removed loops or loops near it carry more than a tenth of the damage (both routes). */
+export function cutoffWarning(cutoffCycles: number, r: CutoffReport): LifeWarning | null {
+  if (!(r.removedCount > 0 || r.nearCutoffShare > 0.1)) return null;
+  return {
+    code: 'cutoff-share',
+    message: `the cut-off at ${cutoffCycles} cycles removed ${r.removedCount} loops (${r.removedDamage.toPrecision(3)} damage without the cut-off); loops within a factor ${r.nearFactor} of it carry ${(100 * r.nearCutoffShare).toPrecision(3)} % of the damage, so the result depends on the cut-off`,
+    details: { cutoffCycles, removedLoops: r.removedCount, removedDamage: r.removedDamage, nearCutoffShare: r.nearCutoffShare },
+  };
+}
 
 /** What the cut-off removed from the report's loops, and the share of damage near it (miner's tally). */
 export function cutoffReport(l: LifeLoopColumns, cutoffCycles: number): CutoffReport {

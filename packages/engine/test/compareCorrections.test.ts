@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { assessLife, compareCorrections } from '@loopwise/engine';
+import type { DamageParameterName } from '@loopwise/mean-stress';
 import { compatibleCyclicCurve, defineMaterial } from '@loopwise/material';
 import { sae1045 } from './support';
 
@@ -10,7 +11,7 @@ describe('compareCorrections(events, job)', () => {
     const all = compareCorrections([{ name: 'h', history, repeats: 1 }], job);
     expect(all.map((r) => r.meanStress)).toEqual(['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker']);
     for (const r of all) {
-      const single = assessLife(history, { ...job, meanStress: r.meanStress });
+      const single = assessLife(history, { ...job, meanStress: r.meanStress as DamageParameterName });
       expect(r.damagePerRepeat).toBe(single.damage.perRepeat);
     }
   });

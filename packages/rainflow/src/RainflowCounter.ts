@@ -145,6 +145,11 @@ export class RainflowCounter {
     return this.table === null ? null : this.table.snapshot();
   }
 
+  /** Reversals the gate has removed so far (as `removedReversals` of the result). */
+  get removedCount(): number {
+    return this.filter.removedCount;
+  }
+
   /** Number of turning points on the residue stack now (pending extreme excluded). */
   get stackLength(): number {
     return this.top;

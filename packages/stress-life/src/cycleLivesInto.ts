@@ -19,7 +19,7 @@ export interface CycleLifeOptions {
   stressFactor?: number;
 }
 
-/** Checks the options and returns [correction, scale]. Internal. */
+/** Checks the options of the cycle route and returns [the correction with its defaults, the stress scale Kf·f]; errors name the option. */
 export function resolveCycleOptions(options: CycleLifeOptions): [AmplitudeCorrection, number] {
   if (options === null || typeof options !== 'object') throw new StressLifeError('invalid-option', 'options', options, 'must be an options object');
   const c = resolveCorrection(options.meanStress);

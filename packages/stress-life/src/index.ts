@@ -19,7 +19,7 @@ export { smithWatsonTopperAmplitude } from './smithWatsonTopperAmplitude';
 export { walkerAmplitude } from './walkerAmplitude';
 export { iiwMeanStressFactor, iiwEnhancedAmplitude } from './iiwMeanStressFactor';
 export { equivalentAmplitudeInto } from './equivalentAmplitudeInto';
-export { cycleLivesInto, type CycleLifeOptions } from './cycleLivesInto';
+export { cycleLivesInto, resolveCycleOptions, type CycleLifeOptions } from './cycleLivesInto';
 export { stressLifeDamage, type StressCycleColumns, type StressLifeDamage } from './stressLifeDamage';
 export { stressLifeKernel, type StressLifeKernel } from './stressLifeKernel';
 export { marinSurfaceFactor, MARIN_SURFACE_FINISHES, type SurfaceFinish } from './marinSurfaceFactor';

@@ -149,7 +149,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
       for (const w of worst) {
         const seam = w.startIndex > w.turnIndex ? ' (across the seam into the next repeat)' : '';
         out.push(
-          `    samples ${w.startIndex}–${w.turnIndex}${seam}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+          `    samples ${w.startIndex}–${w.turnIndex}${seam}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}${w.strainMin === null || w.strainMax === null ? '' : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );
       }
     }

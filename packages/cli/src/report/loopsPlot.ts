@@ -23,8 +23,10 @@ const MICRO = 1e6;
 export function loopsPlot(channel: HtmlChannel, id: string, stressUnit: string): string {
   const f = plotFrame(520, 84, 300);
   const title = `Hysteresis loops of the worst cycles of ${channel.name} (local stress against local strain)`;
-  const loops = channel.report.worstLoops;
+  // the stress-life route computes no local strain: no hysteresis loops to draw
+  const loops = channel.report.worstLoops.filter((l): l is typeof l & { strainMax: number; strainMin: number } => l.strainMax !== null && l.strainMin !== null);
   const material = readCyclicConstants(channel.report.inputs);
+  if (channel.report.worstLoops.length > 0 && loops.length === 0) return svgPlot('loops', id, title, f, svgEmptyNote(f, 'The stress-life route computes no local strain: no hysteresis loops.'));
   if (loops.length === 0) return svgPlot('loops', id, title, f, svgEmptyNote(f, 'No closed loops: no damage.'));
   if (material === null) return svgPlot('loops', id, title, f, svgEmptyNote(f, 'The report names no cyclic curve (E, K′, n′) to draw the loops with.'));
   let smin = Infinity;
