@@ -186,6 +186,7 @@ function echoInputs(job: ResolvedJob, events: readonly ReportEvent[], gate: numb
   const m = job.material;
   return {
     route: job.route,
+    stressLife: job.stressLife === undefined ? null : { ...job.stressLife, curve: { ...job.stressLife.curve } },
     material: m === undefined ? null : { name: m.name, E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n, Su: m.Su, source: m.source },
     input: job.input,
     notch: job.input === 'nominal' ? { Kt: job.Kt, Kf: job.Kf, rule: job.rule } : { rule: job.input === 'local-strain' ? null : job.rule },

@@ -1,12 +1,14 @@
 import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
+import type { IiwResidualCategory, SnCurve, SnCurveInput } from '@loopwise/stress-life';
 import type { ChannelSelection, TimeSource } from '../ingest';
 import { UsageError } from './CliError';
 import { checkJobFields, JobFieldError } from './checkJobFields';
 import { FileAccess, parseJsonText } from './FileAccess';
 import { InputFiles } from './InputFiles';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
+import { parseSnCurveSpec } from './snCurveSpec';
 
 /** A channel of a job: which column, what it holds, and how it enters the notch model. */
 export type CliChannel = ChannelSelection & {
@@ -29,11 +31,32 @@ export interface CliEvent {
   shown?: string;
 }
 
+/** A mean-stress correction by the CLI's names: a damage parameter (strain-life) or an amplitude correction (stress-life). */
+export type CliCorrection = DamageParameterName | 'goodman' | 'gerber' | 'iiw';
+
+/** The stress-life route of a CLI job: the S-N curve and the constants its corrections need. */
+export interface CliStressLife {
+  curve: SnCurve;
+  /** The curve as named (`iiw:90`, …). */
+  label: string;
+  kf?: number;
+  stressFactor?: number;
+  /** Ultimate strength for Goodman and Gerber (MPa); default the material's Su. */
+  ultimateStrength?: number;
+  /** σf′ for Morrow (MPa); default the material's. */
+  sigmaF?: number;
+  /** IIW residual-stress category for the f(R) enhancement. */
+  iiwCategory?: IiwResidualCategory;
+}
+
 /** A complete assessment request, from flags or from a job file. */
 export interface CliJob {
-  material: Material;
+  /** The material (strain-life route; optional on the stress-life route, where it only supplies Su or σf′). */
+  material: Material | undefined;
+  /** The stress-life route, when chosen (an S-N curve instead of the local strain-life route). */
+  stressLife?: CliStressLife;
   notch?: { Kt?: number; Kf?: number; rule?: NotchRuleName };
-  meanStress: DamageParameterName | 'all';
+  meanStress: CliCorrection | 'all';
   walkerGamma?: number;
   gate?: number;
   gateFraction?: number;
@@ -60,7 +83,8 @@ export interface CliJob {
 export interface JobFile {
   format: 'loopwise-job';
   version: 1;
-  material: MaterialSpec;
+  material?: MaterialSpec;
+  stressLife?: Omit<CliStressLife, 'curve' | 'label'> & { curve: string | SnCurveInput };
   notch?: CliJob['notch'];
   meanStress?: CliJob['meanStress'];
   walkerGamma?: number;
@@ -100,12 +124,22 @@ export function readJobFile(path: string, inputs: InputFiles = new InputFiles(),
     if (error instanceof JobFieldError) throw new UsageError(`${path}: ${error.message}`);
     throw error;
   }
-  let material: Material;
+  let material: Material | undefined;
   try {
-    material = resolveMaterial(json.material, access);
+    material = json.material === undefined ? undefined : resolveMaterial(json.material, access);
   } catch (error) {
     if (error instanceof Error && (error.name === 'MaterialError' || error.name === 'ArgumentError')) error.message = `${path}: material: ${error.message}`;
     throw error;
+  }
+  let stress: CliStressLife | undefined;
+  if (json.stressLife !== undefined) {
+    try {
+      const { curve, ...rest } = json.stressLife;
+      stress = { ...parseSnCurveSpec(curve, 'stressLife.curve'), ...rest };
+    } catch (error) {
+      if (error instanceof UsageError) throw new UsageError(`${path}: ${error.message}`);
+      throw error;
+    }
   }
   const file = json.file === undefined ? null : access.resolve(json.file, 'file');
   const events = json.events?.map((e, k) => {
@@ -114,7 +148,8 @@ export function readJobFile(path: string, inputs: InputFiles = new InputFiles(),
   });
   const job: CliJob = {
     material,
-    meanStress: json.meanStress ?? 'smithWatsonTopper',
+    ...(stress ? { stressLife: stress } : {}),
+    meanStress: json.meanStress ?? (stress ? 'none' : 'smithWatsonTopper'),
     scatterFactor: json.scatterFactor ?? 1,
     repeating: json.repeating ?? true,
     channels: json.channels,
@@ -126,5 +161,40 @@ export function readJobFile(path: string, inputs: InputFiles = new InputFiles(),
   for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'initial', 'offset'] as const) {
     if (json[k] !== undefined) (job as unknown as Record<string, unknown>)[k] = json[k];
   }
+  checkRoute(job, path);
   return job;
+}
+
+const STRESS_CORRECTIONS: readonly string[] = ['none', 'goodman', 'gerber', 'morrow', 'smithWatsonTopper', 'walker', 'iiw', 'all'];
+const STRAIN_CORRECTIONS: readonly string[] = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'];
+
+/**
+ * Checks that the job's correction, channels and constants fit its route (a job file or flags;
+ * `where` prefixes messages: the job file, or '' for flags, whose messages name the option).
+ */
+export function checkRoute(job: CliJob, where: string | null): void {
+  const at = (field: string, flag: string) => (where ? `${where}: ${field}` : `--${flag}`);
+  const s = job.stressLife;
+  if (s === undefined) {
+    if (job.material === undefined) throw new UsageError(where ? `${where}: material: missing` : '--material, --su or --hardness: give exactly one');
+    if (!STRAIN_CORRECTIONS.includes(job.meanStress)) {
+      throw new UsageError(`${at('meanStress', 'mean-stress')}: '${job.meanStress}' corrects the amplitude on the stress-life route (an S-N curve); the strain-life route takes ${STRAIN_CORRECTIONS.join(', ')}`);
+    }
+    return;
+  }
+  if (!STRESS_CORRECTIONS.includes(job.meanStress)) {
+    throw new UsageError(`${at('meanStress', 'mean-stress')}: '${job.meanStress}' is a strain-life damage parameter; the stress-life route takes ${STRESS_CORRECTIONS.join(', ')}`);
+  }
+  for (const c of job.channels) {
+    if (c.quantity === 'strain' || (c.input !== undefined && c.input !== 'nominal')) {
+      throw new UsageError(`${where ? `${where}: channels` : '--quantity'}: the stress-life route assesses stress or load channels (nominal or hot-spot stress); a strain gauge at the notch root takes the strain-life route`);
+    }
+  }
+  const need = (ok: boolean, what: string, field: string, flag: string) => {
+    if (!ok) throw new UsageError(`${at(`stressLife.${field}`, flag)}: the ${job.meanStress} correction needs ${what}`);
+  };
+  if (job.meanStress === 'goodman' || job.meanStress === 'gerber') need(s.ultimateStrength !== undefined || job.material?.Su !== undefined, 'the ultimate strength (or a material with Su)', 'ultimateStrength', 'ultimate-strength');
+  if (job.meanStress === 'morrow') need(s.sigmaF !== undefined || job.material !== undefined, "σf′ (or a material)", 'sigmaF', 'sigma-f');
+  if (job.meanStress === 'walker') need(job.walkerGamma !== undefined, 'the Walker exponent γ', 'walkerGamma', 'walker-gamma');
+  if (job.meanStress === 'iiw') need(s.iiwCategory !== undefined, 'the IIW residual-stress category (I, II or III)', 'iiwCategory', 'iiw-category');
 }

@@ -105,9 +105,10 @@ export class LoopSpool {
 
   /**
    * Calls `each(strainRange, meanStress, count)` for every loop of the output, read back from
-   * the spool (for the HTML's loop matrix and loop count).
+   * the spool (for the HTML's loop matrix and loop count); rows without strain (the stress-life
+   * route) give the stress range instead.
    */
-  async forEachLoop(each: (strainRange: number, meanStress: number, count: number) => void): Promise<void> {
+  async forEachLoop(each: (strainRange: number, meanStress: number, count: number, parameter: number) => void): Promise<void> {
     let carry = '';
     await this.copyTo({
       write: async (text: string) => {
@@ -116,7 +117,8 @@ export class LoopSpool {
         for (const line of lines) {
           // start_sample … close_sample, start_event, turn_event, count, stress_max, stress_min, strain_max, strain_min, …
           const f = line.split(',');
-          each(Number(f[8]) - Number(f[9]), (Number(f[6]) + Number(f[7])) / 2, Number(f[5]));
+          const range = f[8] === '' ? Number(f[6]) - Number(f[7]) : Number(f[8]) - Number(f[9]);
+          each(range, (Number(f[6]) + Number(f[7])) / 2, Number(f[5]), Number(f[10]));
         }
       },
     });

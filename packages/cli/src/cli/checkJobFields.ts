@@ -157,7 +157,36 @@ const time: FieldCheck = (value, path) => {
   objectOf({ column: columnRef }, ['column'], ['sampleRate'])(value, path);
 };
 
-const MEAN_STRESS = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'];
+const MEAN_STRESS = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'goodman', 'gerber', 'iiw', 'all'];
+
+/** An S-N curve in a job: a spec string (`iiw:90`, `en1993:71`, `basquin:…`) or defineSnCurve's parameters. */
+const snCurve: FieldCheck = (value, path) => {
+  if (typeof value === 'string') return text(value, path);
+  objectOf(
+    {
+      measure: oneOfText(['range', 'amplitude']),
+      stress: positive,
+      cycles: positive,
+      slope: positive,
+      knees: listOf(objectOf({ cycles: positive, slope: positive }, ['cycles', 'slope']), 'knees'),
+      cutoffCycles: positive,
+    },
+    ['stress', 'cycles', 'slope'],
+  )(value, path);
+};
+
+/** The stress-life route of a job: the curve, Kf, a stress factor and the constants of the amplitude corrections. */
+const stressLife = objectOf(
+  {
+    curve: snCurve,
+    kf: number({ test: (x) => x >= 1, says: '>= 1' }),
+    stressFactor: positive,
+    ultimateStrength: positive,
+    sigmaF: positive,
+    iiwCategory: oneOfText(['I', 'II', 'III']),
+  },
+  ['curve'],
+);
 
 /** Every field of a job file with its check (the job file format, version 1). */
 export const JOB_FIELDS: Record<string, FieldCheck> = {
@@ -171,6 +200,7 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
     if (typeof v !== 'string') throw new JobFieldError(p, `expected a string, got ${shown(v)}`);
   },
   material: materialSpec,
+  stressLife,
   notch: objectOf({ Kt: positive, Kf: positive, rule: oneOfText(['neuber', 'glinka', 'linear']) }),
   meanStress: oneOfText(MEAN_STRESS),
   walkerGamma: number(),
@@ -193,7 +223,9 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
 /** Checks a parsed job file: every field known and of its type; `file` or `events`, not both. */
 export function checkJobFields(json: unknown): void {
   if (json === null || typeof json !== 'object' || Array.isArray(json)) throw new JobFieldError('', `a job file holds one JSON object, got ${shown(json)}`);
-  objectOf(JOB_FIELDS, ['format', 'version', 'material', 'channels'])(json, '');
-  const j = json as { file?: unknown; events?: unknown };
+  objectOf(JOB_FIELDS, ['format', 'version', 'channels'])(json, '');
+  const j = json as { file?: unknown; events?: unknown; material?: unknown; stressLife?: unknown; notch?: unknown };
+  if (j.material === undefined && j.stressLife === undefined) throw new JobFieldError('material', 'missing (required in the job, unless it gives stressLife for the stress-life route)');
+  if (j.stressLife !== undefined && j.notch !== undefined) throw new JobFieldError('notch', 'applies to the strain-life route; with stressLife the notch enters as stressLife.kf');
   if ((j.file === undefined) === (j.events === undefined)) throw new JobFieldError(j.file === undefined ? 'file' : 'events', 'give either "file" (one history) or "events" (a duty cycle), not both or neither');
 }

@@ -44,6 +44,14 @@ Model:
   --scatter-factor <x>     design life = life / x (default 1)
   --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
   --critical-damage <x>    damage sum at failure (default 1)
+Stress-life route (an S-N curve instead of the strain-life model; no material needed):
+  --sn-curve <spec>        iiw:<FAT>[,shear][,constant][,below-knee=…][,gamma-m=<x>],
+                           en1993:<category>[,shear][,constant][,gamma-mf=<x>][,gamma-ff=<x>],
+                           or basquin:stress=<S>,cycles=<N>,slope=<m>[,knee=<N>/<m>][,cutoff=<N>][,amplitude]
+  --mean-stress <c>        there: none (default), goodman, gerber, morrow, smithWatsonTopper, walker, iiw, or all
+  --ultimate-strength <MPa>, --sigma-f <MPa>, --iiw-category I|II|III   constants of those corrections
+  --kf <x>                 fatigue notch factor on range and mean (default 1)
+  --stress-factor <x>      a factor on every stress, e.g. a load partial factor (default 1)
   --service "<x> <unit>"   service one repeat stands for, e.g. "0.5 h" or "12 km"
   --job <file>             take all of the above from a job file (see the CLI README)
   --job-may-read-anywhere  let the job name files outside its own folder (off: they are refused)

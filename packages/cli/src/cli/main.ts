@@ -7,7 +7,8 @@ import { handbookSteels } from '@loopwise/material';
 import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
 import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
-import { readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { parseSnCurveSpec } from './snCurveSpec';
 import { FileAccess, OUTSIDE_OPTION } from './FileAccess';
 import { InputFiles } from './InputFiles';
 import { DEFAULT_MEMORY_LIMIT_MB, MemoryGuard, MemoryLimitError } from './MemoryGuard';
@@ -18,7 +19,7 @@ import { formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
-import { lifeJobOf, runAssessment, type ChannelResult } from './runAssessment';
+import { lifeJobOf, mainCorrection, runAssessment, type ChannelResult } from './runAssessment';
 import { renderChannelsHtml } from './renderChannelsHtml';
 
 /** Version printed by --version and written into reports. */
@@ -72,6 +73,11 @@ const MODEL = {
   rule: { type: 'string' },
   'mean-stress': { type: 'string' },
   'walker-gamma': { type: 'string' },
+  'sn-curve': { type: 'string' },
+  'stress-factor': { type: 'string' },
+  'ultimate-strength': { type: 'string' },
+  'sigma-f': { type: 'string' },
+  'iiw-category': { type: 'string' },
   'one-off': { type: 'boolean' },
   'scatter-factor': { type: 'string' },
   'cutoff-cycles': { type: 'string' },
@@ -222,17 +228,22 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   const data = await dataFile(positionals[0], inputs, access);
   const su = num(values, 'su');
   const hb = num(values, 'hardness');
+  const stressRoute = values['sn-curve'] !== undefined;
   const given = [values.material !== undefined, su !== undefined, hb !== undefined].filter(Boolean).length;
-  if (given !== 1) throw new UsageError('--material, --su or --hardness: give exactly one');
-  const spec: MaterialSpec =
+  // the stress-life route needs no material (one may still give Su or σf′ for a correction)
+  if (given > 1 || (given === 0 && !stressRoute)) throw new UsageError('--material, --su or --hardness: give exactly one');
+  const spec: MaterialSpec | undefined =
     values.material !== undefined
       ? (values.material as string)
       : su !== undefined
         ? { estimate: { method: 'uniform-material-law', SuMPa: su } }
-        : { estimate: { method: 'hardness', hardnessHB: hb as number } };
-  const meanStress = oneOf(values, 'mean-stress', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'all'] as const) ?? 'smithWatsonTopper';
+        : hb !== undefined
+          ? { estimate: { method: 'hardness', hardnessHB: hb } }
+          : undefined;
+  const meanStress =
+    oneOf(values, 'mean-stress', ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker', 'goodman', 'gerber', 'iiw', 'all'] as const) ?? (stressRoute ? 'none' : 'smithWatsonTopper');
   const job: CliJob = {
-    material: resolveMaterial(spec, access, '--material'),
+    material: spec === undefined ? undefined : resolveMaterial(spec, access, '--material'),
     meanStress,
     scatterFactor: num(values, 'scatter-factor') ?? 1,
     repeating: !values['one-off'],
@@ -244,7 +255,25 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   const kt = num(values, 'kt');
   const kf = num(values, 'kf');
   const rule = oneOf(values, 'rule', ['neuber', 'glinka', 'linear'] as const);
-  if (kt !== undefined || kf !== undefined || rule !== undefined) {
+  if (stressRoute) {
+    if (kt !== undefined || rule !== undefined) throw new UsageError(`--${kt !== undefined ? 'kt' : 'rule'}: the stress-life route (--sn-curve) takes the notch as --kf, on range and mean`);
+    job.stressLife = { ...parseSnCurveSpec(values['sn-curve'], '--sn-curve') };
+    const s = job.stressLife;
+    const set = (k: 'kf' | 'stressFactor' | 'ultimateStrength' | 'sigmaF', v: number | undefined) => {
+      if (v !== undefined) s[k] = v;
+    };
+    set('kf', kf);
+    set('stressFactor', num(values, 'stress-factor'));
+    set('ultimateStrength', num(values, 'ultimate-strength'));
+    set('sigmaF', num(values, 'sigma-f'));
+    const cat = oneOf(values, 'iiw-category', ['I', 'II', 'III'] as const);
+    if (cat !== undefined) s.iiwCategory = cat;
+  } else {
+    for (const k of ['stress-factor', 'ultimate-strength', 'sigma-f', 'iiw-category']) {
+      if (values[k] !== undefined) throw new UsageError(`--${k}: applies to the stress-life route; give --sn-curve`);
+    }
+  }
+  if (!stressRoute && (kt !== undefined || kf !== undefined || rule !== undefined)) {
     job.notch = {};
     if (kt !== undefined) job.notch.Kt = kt;
     if (kf !== undefined) job.notch.Kf = kf;
@@ -264,6 +293,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   if (service) job.service = service;
   const time = timeOf(values);
   if (time) job.time = time;
+  checkRoute(job, null);
   return job;
 }
 
@@ -371,7 +401,7 @@ async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, gu
   const rows: unknown[] = [];
   for (const channel of job.channels) {
     const events = await eventsOf(job, channel);
-    const m = findLoadMargin(events, lifeJobOf(job, channel, job.meanStress === 'all' ? 'smithWatsonTopper' : job.meanStress), {
+    const m = findLoadMargin(events, lifeJobOf(job, channel, mainCorrection(job)), {
       targetRepeats: target as number,
     });
     rows.push({ channel: channel.name ?? String(channel.column), ...m });

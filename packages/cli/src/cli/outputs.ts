@@ -133,6 +133,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const rep: LifeReport = r.report;
     const life = rep.life;
     out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
+    if (rep.damage.route === 'stress-life') out.push(`  route                  stress-life, S-N curve ${r.curveLabel ?? '(given)'} (cycles on the curve; no local strain)`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
     out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.service as number)} ${life.unit}` : ''}`);
     if (life.scatterFactor > 1) {

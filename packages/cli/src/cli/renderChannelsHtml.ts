@@ -14,7 +14,9 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
   const channels: HtmlChannel[] = [];
   for (const r of results) {
     const loops = await loopSummary(r);
+    const spectrum = r.report.damage.route === 'stress-life' && loops !== null ? await spectrumOf(r, loops.rows) : null;
     channels.push({
+      spectrum,
       name: r.name,
       unit: r.unit,
       report: r.report,
@@ -26,12 +28,28 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
   return renderHtmlReport({ title, generatedBy, channels });
 }
 
-/** Calls `each(strainRange, meanStress, count)` for every kept loop (the duty cycle's table, or the spooled stream). */
-async function forEachLoop(r: ChannelResult, each: (range: number, mean: number, count: number) => void): Promise<void> {
+/**
+ * Calls `each(range, meanStress, count, parameter)` for every kept loop (the duty cycle's table,
+ * or the spooled stream): the local strain range, or the stress range on the stress-life route.
+ */
+async function forEachLoop(r: ChannelResult, each: (range: number, mean: number, count: number, parameter: number) => void): Promise<void> {
   if (r.loopStream) return r.loopStream.forEachLoop(each);
   const l = r.loops;
   if (l === null) return;
-  for (let i = 0; i < l.count.length; i++) each(l.strainMax[i] - l.strainMin[i], (l.stressMax[i] + l.stressMin[i]) / 2, l.count[i]);
+  const strain = l.strainMax.length > 0;
+  for (let i = 0; i < l.count.length; i++) each(strain ? l.strainMax[i] - l.strainMin[i] : l.stressMax[i] - l.stressMin[i], (l.stressMax[i] + l.stressMin[i]) / 2, l.count[i], l.parameter[i]);
+}
+
+/** The equivalent stress and count of every kept cycle (stress-life route; for the S-N plot). */
+async function spectrumOf(r: ChannelResult, rows: number): Promise<{ stress: Float64Array; count: Float64Array }> {
+  const stress = new Float64Array(rows);
+  const count = new Float64Array(rows);
+  let k = 0;
+  await forEachLoop(r, (_range, _mean, c, parameter) => {
+    stress[k] = parameter;
+    count[k++] = c;
+  });
+  return { stress, count };
 }
 
 /** The loop matrix and totals, in two passes over the kept loops (none kept: null). */
@@ -65,5 +83,6 @@ async function loopMatrix(r: ChannelResult, rangeMax: number, meanLo: number, me
     // every loop lies within the edges (they are its own extremes), so none is lost
     counts[binIndex(rowEdges, range) * BINS + binIndex(columnEdges, mean)] += count;
   });
+  if (r.report.damage.route === 'stress-life') return { rowEdges, columnEdges, counts, rowLabel: 'stress range on the curve (MPa)', columnLabel: 'mean stress (MPa)' };
   return { rowEdges, columnEdges, counts, rowLabel: 'local strain range', columnLabel: 'local mean stress (MPa)' };
 }

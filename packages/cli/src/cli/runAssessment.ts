@@ -9,9 +9,10 @@ import {
   type LifeReport,
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
+import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
 import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '../ingest';
 import { UsageError } from './CliError';
-import type { CliChannel, CliJob } from './CliJob';
+import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
 import { LoopSpool } from './LoopSpool';
 import { MemoryGuard } from './MemoryGuard';
@@ -28,6 +29,8 @@ export interface ChannelResult {
   history: { index: Float64Array; value: Float64Array } | null;
   /** The loop table of the stabilised pass (main correction) of a duty cycle, when it was kept; null otherwise. */
   loops: LifeLoopColumns | null;
+  /** The S-N curve as named, on the stress-life route (null on the strain-life route). */
+  curveLabel: string | null;
   /** The loops of a streamed file, spooled on disk, when they were kept; null otherwise. */
   loopStream: LoopSpool | null;
 }
@@ -35,19 +38,22 @@ export interface ChannelResult {
 /** Called with the number of samples read so far, for a progress display. */
 export type Progress = (samples: number, pass: 1 | 2) => void;
 
-/** The engine job of one channel of a CLI job. */
-export function lifeJobOf(job: CliJob, channel: CliChannel, meanStress: DamageParameterName): LifeJob {
-  const input = channel.input ?? (channel.quantity === 'strain' ? 'local-strain' : 'nominal');
-  const out: LifeJob = {
-    material: job.material,
-    input,
-    meanStress,
-    repeating: job.repeating,
-    scatterFactor: job.scatterFactor,
-  };
-  if (input === 'nominal' && job.notch) out.notch = job.notch;
-  if (input === 'pseudo-elastic' && job.notch?.rule) out.rule = job.notch.rule;
-  if (job.walkerGamma !== undefined) out.walkerGamma = job.walkerGamma;
+/** The engine job of one channel of a CLI job, under one mean-stress correction. */
+export function lifeJobOf(job: CliJob, channel: CliChannel, meanStress: CliCorrection): LifeJob {
+  const s = job.stressLife;
+  let out: LifeJob;
+  if (s !== undefined) {
+    out = { stressLife: { curve: s.curve, meanStress: amplitudeCorrection(job, meanStress) }, repeating: job.repeating, scatterFactor: job.scatterFactor };
+    if (s.kf !== undefined) out.stressLife!.kf = s.kf;
+    if (s.stressFactor !== undefined) out.stressLife!.stressFactor = s.stressFactor;
+    if (job.material !== undefined) out.material = job.material;
+  } else {
+    const input = channel.input ?? (channel.quantity === 'strain' ? 'local-strain' : 'nominal');
+    out = { material: job.material, input, meanStress: meanStress as DamageParameterName, repeating: job.repeating, scatterFactor: job.scatterFactor };
+    if (input === 'nominal' && job.notch) out.notch = job.notch;
+    if (input === 'pseudo-elastic' && job.notch?.rule) out.rule = job.notch.rule;
+    if (job.walkerGamma !== undefined) out.walkerGamma = job.walkerGamma;
+  }
   if (job.gate !== undefined) out.gate = job.gate;
   if (job.gateFraction !== undefined) out.gateFraction = job.gateFraction;
   if (job.fullScale !== undefined) out.fullScale = job.fullScale;
@@ -72,10 +78,52 @@ export interface AssessmentSettings {
   guard?: MemoryGuard;
 }
 
-/** The corrections of `--mean-stress all` for a job (Walker needs γ or Su). */
-function correctionsOf(job: CliJob): DamageParameterName[] {
-  const all: DamageParameterName[] = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker'];
-  return all.filter((c) => c !== 'walker' || job.walkerGamma !== undefined || job.material.Su !== undefined);
+/**
+ * The corrections of `--mean-stress all` for a job: on the strain-life route every damage
+ * parameter (Walker needs γ or Su); on the stress-life route the amplitude corrections whose
+ * constants the job or its material gives (as the engine's compareCorrections).
+ */
+function correctionsOf(job: CliJob): CliCorrection[] {
+  const s = job.stressLife;
+  if (s === undefined) {
+    const all: CliCorrection[] = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker'];
+    return all.filter((c) => c !== 'walker' || job.walkerGamma !== undefined || job.material?.Su !== undefined);
+  }
+  const su = s.ultimateStrength ?? job.material?.Su;
+  const sigmaF = s.sigmaF ?? job.material?.sigmaF;
+  const out: CliCorrection[] = ['none'];
+  if (su !== undefined) out.push('goodman', 'gerber');
+  if (sigmaF !== undefined) out.push('morrow');
+  out.push('smithWatsonTopper');
+  if (job.walkerGamma !== undefined) out.push('walker');
+  if (s.iiwCategory !== undefined) out.push('iiw');
+  return out;
+}
+
+/** The main correction of a job: the one it names, or with `all` the route's usual one (SWT strain-life, none stress-life). */
+export function mainCorrection(job: CliJob): CliCorrection {
+  if (job.meanStress !== 'all') return job.meanStress;
+  return job.stressLife === undefined ? 'smithWatsonTopper' : 'none';
+}
+
+/** An amplitude correction of the stress-life route by name, with the job's (or material's) constants (checkRoute ensured them). */
+function amplitudeCorrection(job: CliJob, name: CliCorrection): AmplitudeCorrection {
+  const s = job.stressLife as CliStressLife;
+  switch (name) {
+    case 'goodman':
+    case 'gerber':
+      return { method: name, ultimateStrength: (s.ultimateStrength ?? job.material?.Su) as number };
+    case 'morrow':
+      return { method: 'morrow', sigmaF: (s.sigmaF ?? job.material?.sigmaF) as number };
+    case 'walker':
+      return { method: 'walker', gamma: job.walkerGamma as number };
+    case 'iiw':
+      return { method: 'iiw', category: s.iiwCategory as IiwResidualCategory };
+    case 'smithWatsonTopper':
+      return { method: 'smithWatsonTopper' };
+    default:
+      return { method: 'none' };
+  }
 }
 
 /** The report without its loop table (the loops go to the loop table of the result). */
@@ -86,7 +134,7 @@ function withoutLoops(report: LifeReport): LifeReport {
 
 function correctionOf(report: LifeReport): CorrectionResult {
   return {
-    meanStress: report.damage.meanStress as DamageParameterName,
+    meanStress: report.damage.meanStress,
     damagePerRepeat: report.damage.perRepeat,
     firstPassDamage: report.damage.firstPass,
     life: report.life,
@@ -105,7 +153,7 @@ function correctionOf(report: LifeReport): CorrectionResult {
  * Reports come without their loop table; it is the result's `loops`.
  */
 export async function runAssessment(job: CliJob, progress?: Progress, settings: AssessmentSettings = {}): Promise<ChannelResult[]> {
-  const main: DamageParameterName = job.meanStress === 'all' ? 'smithWatsonTopper' : job.meanStress;
+  const main = mainCorrection(job);
   const guard = settings.guard ?? new MemoryGuard();
   const keepLoops = settings.keepLoops ?? true;
   if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
@@ -133,7 +181,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     });
     job.channels.forEach((_, k) => (fullScales[k] = hi[k] > lo[k] ? hi[k] - lo[k] : undefined));
   }
-  const jobOf = (c: CliChannel, k: number, ms: DamageParameterName): LifeJob => {
+  const jobOf = (c: CliChannel, k: number, ms: CliCorrection): LifeJob => {
     const j = lifeJobOf(job, c, ms);
     if (job.gateFraction !== undefined && job.fullScale === undefined) {
       if (fullScales[k] === undefined) {
@@ -197,12 +245,13 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       sources: [first],
       history: displays[k].points(),
       loops: null,
+      curveLabel: job.stressLife?.label ?? null,
       loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,
     };
   });
 }
 
-async function runDutyCycle(job: CliJob, main: DamageParameterName, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
+async function runDutyCycle(job: CliJob, main: CliCorrection, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
   const events = job.events!;
   if (events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
   guard.checkInMemory(events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })), job.channels.length, 'a duty cycle');
@@ -230,6 +279,7 @@ async function runDutyCycle(job: CliJob, main: DamageParameterName, guard: Memor
       sources: read.map((r) => r.report),
       history: display.points(),
       loops: keepLoops ? full.loops : null,
+      curveLabel: job.stressLife?.label ?? null,
       loopStream: null,
     };
   });

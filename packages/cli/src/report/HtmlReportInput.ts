@@ -42,6 +42,11 @@ export interface HtmlChannel {
    * report (`--cycles-out`); default: counted from `report.loops`.
    */
   loopTotals?: { cycles: number; rows: number } | null;
+  /**
+   * The counted cycles of a stress-life report as equivalent stress on the curve and count per
+   * repeat (for the S-N plot's spectrum); absent or null: the plot shows the curve and the worst cycles.
+   */
+  spectrum?: { stress: Float64Array; count: Float64Array } | null;
 }
 
 /** Everything {@link renderHtmlReport} draws. */

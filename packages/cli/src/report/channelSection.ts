@@ -6,6 +6,7 @@ import type { HtmlChannel } from './HtmlReportInput.js';
 import { inputsList } from './inputsList.js';
 import { loopsPlot } from './loopsPlot.js';
 import { matrixPlot } from './matrixPlot.js';
+import { snCurvePlot } from './snCurvePlot.js';
 import { summaryList } from './summaryList.js';
 import { timelinePlot } from './timelinePlot.js';
 import { warningsList } from './warningsList.js';
@@ -31,11 +32,21 @@ export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit
     ),
     '<h3>Rainflow matrix</h3>',
     figure(matrixPlot(channel, `${id}-matrix`), 'Cycles by range and mean; the colour is the count on a logarithmic scale; empty cells hold no cycles.'),
-    '<h3>Hysteresis loops of the worst cycles</h3>',
-    figure(
-      loopsPlot(channel, `${id}-loops`, stressUnit),
-      'Local stress against local strain at the notch root. Each loop joins the assessed corners (σmin, εmin) and (σmax, εmax) by the two Masing branches Δε = Δσ/E + 2(Δσ/2K′)^(1/n′) of the material model.',
-    ),
+    ...(r.damage.route === 'stress-life'
+      ? [
+          '<h3>S-N curve and the counted spectrum</h3>',
+          figure(
+            snCurvePlot(channel, `${id}-sn`, stressUnit),
+            'The S-N curve of the assessment (solid; log-log), the worst cycles at their lives on it (dots), and, when the cycles were kept, the counted spectrum drawn to the predicted life: the cycles of one repeat at or above each equivalent stress, times the life in repeats (dashed).',
+          ),
+        ]
+      : [
+          '<h3>Hysteresis loops of the worst cycles</h3>',
+          figure(
+            loopsPlot(channel, `${id}-loops`, stressUnit),
+            'Local stress against local strain at the notch root. Each loop joins the assessed corners (σmin, εmin) and (σmax, εmax) by the two Masing branches Δε = Δσ/E + 2(Δσ/2K′)^(1/n′) of the material model.',
+          ),
+        ]),
     worstLoopsTable(r.worstLoops, stressUnit),
     '<h3>Damage timeline and damage by event</h3>',
     figure(timelinePlot(channel, `${id}-timeline`), `Damage per repeat in bins of ${r.timeline.binSize} samples (half of each loop's damage at each of its two reversals).`),

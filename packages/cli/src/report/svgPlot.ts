@@ -2,7 +2,7 @@ import { escapeHtml } from './escapeHtml.js';
 import type { PlotFrame } from './PlotFrame.js';
 
 /** The kinds of plot of a channel section, as carried in `data-plot`. */
-export type PlotKind = 'history' | 'matrix' | 'loops' | 'timeline' | 'events';
+export type PlotKind = 'history' | 'matrix' | 'loops' | 'timeline' | 'events' | 'sn';
 
 /**
  * Wraps a plot body in an `<svg data-plot="…">` with a `<title>` (and `role="img"`), scaled to

@@ -9,9 +9,10 @@ function indexText(i: number): string {
 /** The table of the most damaging loops, by rank (the ranks marked in the plots). */
 export function worstLoopsTable(loops: WorstLoop[], stressUnit: string): string {
   if (loops.length === 0) return '<p class="none">No damaging loops.</p>';
+  const stressRoute = loops[0].strainMax === null;
   return htmlTable(
     'worst-loops',
-    'Most damaging loops (local stress and strain at the notch root; damage per repeat)',
+    stressRoute ? 'Most damaging cycles (stresses as entered on the S-N curve, Kf and the stress factor applied; no local strain on this route; damage per repeat)' : 'Most damaging loops (local stress and strain at the notch root; damage per repeat)',
     ['rank', 'share of damage', 'damage', 'count', `σmax (${stressUnit})`, `σmin (${stressUnit})`, 'εmax (µε)', 'εmin (µε)', 'cycles to failure Nf', 'start index', 'turn index', 'events (start → turn)'],
     loops.map((l, k) => [
       num(String(k + 1)),

@@ -132,7 +132,8 @@ describe('loopwise bad input: exit 2, one line naming where, no partial output',
     ['a material failing validation', (d) => { writeFileSync(join(d, 'neg.json'), JSON.stringify({ E: -1, sigmaF: 900, b: -0.09, epsilonF: 0.3, c: -0.5, K: 1200, n: 0.2 })); return ['assess', 'rig.csv', '--column', '2', '--material', 'neg.json']; }, /E/],
     ['an unknown option', () => ['assess', 'rig.csv', '--colour', 'red'], /--colour/],
     ['an unknown command', () => ['asses', 'rig.csv'], /unknown command "asses"/],
-    ['an unknown correction', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--mean-stress', 'goodman'], /--mean-stress: one of none, morrow/],
+    ['an unknown correction', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--mean-stress', 'goodmann'], /--mean-stress: one of none, morrow/],
+    ['a stress-life correction on the strain-life route', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--mean-stress', 'goodman'], /--mean-stress: 'goodman' corrects the amplitude on the stress-life route/],
     ['an unknown notch rule', () => ['assess', 'rig.csv', '--column', '2', '--material', 'SAE 1045', '--kt', '2', '--rule', 'elastic'], /--rule: one of neuber, glinka, linear/],
   ];
   for (const [name, args, message] of cases) {
