@@ -67,8 +67,10 @@ class OrdinalMap {
 
 /** A sink that maps the counter's ordinals to schedule indices and adds the cycles to `target`. */
 class MappedSink implements CycleSink {
-  target = new CycleTable();
-  constructor(private readonly ordinals: OrdinalMap) {}
+  constructor(
+    private readonly ordinals: OrdinalMap,
+    private readonly target: CycleTable,
+  ) {}
   addCycle(from: number, to: number, count: number, startIndex: number, turnIndex: number, closeIndex: number): void {
     const m = this.ordinals;
     this.target.addCycle(from, to, count, m.map(startIndex), m.map(turnIndex), m.map(closeIndex));
@@ -80,12 +82,6 @@ function stateKey(counter: RainflowCounter): string {
   const s = counter.toJSON();
   const f = s.filter;
   return JSON.stringify([s.stackValues, f.started, f.dir, f.ext, f.hi, f.lo]);
-}
-
-/** Appends the rows of `from` to `to` with every count multiplied by `times`. */
-function appendScaled(to: CycleTable, from: CycleTable, times: number): void {
-  const c = from.columns();
-  for (let i = 0; i < c.count.length; i++) to.addCycle(c.from[i], c.to[i], c.count[i] * times, c.startIndex[i], c.turnIndex[i], c.closeIndex[i]);
 }
 
 /**
@@ -102,9 +98,8 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
   const gate = scheduleGate(job, events);
   const starts = eventStartsOf(events);
   const ordinals = new OrdinalMap();
-  const sink = new MappedSink(ordinals);
-  const counter = new RainflowCounter({ gate, residue: job.repeating ? 'repeat' : 'half', sink });
   const all = new CycleTable();
+  const counter = new RainflowCounter({ gate, residue: job.repeating ? 'repeat' : 'half', sink: new MappedSink(ordinals, all) });
   let removed = 0;
   let largest = 0;
   events.forEach((e, k) => {
@@ -113,7 +108,7 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
     for (let j = 0; j < e.repeats; j++) {
       const at = counter.nextIndex;
       ordinals.add(at, starts[k]);
-      sink.target = new CycleTable();
+      const rowsBefore = all.length;
       try {
         counter.push(e.history);
       } catch (err) {
@@ -125,11 +120,10 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
       removedBefore = counter.removedCount;
       if (j > 0 && key === previous) {
         // the state repeats: repeats j … repeats − 1 count what this one counted
-        appendScaled(all, sink.target, e.repeats - j);
+        all.scaleCounts(rowsBefore, e.repeats - j);
         removed += removedNow * (e.repeats - j);
         return;
       }
-      all.appendTable(sink.target);
       removed += removedNow;
       previous = key;
     }
@@ -141,7 +135,6 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
     }
   }
   const closedRows = all.length;
-  sink.target = all;
   const result = counter.finish();
   const residue = {
     values: result.residue.values,

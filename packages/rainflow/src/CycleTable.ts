@@ -1,6 +1,6 @@
 import { decodeArray, encodeArray, grownCapacity, RowShare, widenColumn, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
-import { CounterStateError, RangeOverflowError } from './errors';
+import { CounterStateError, InvalidOptionError, RangeOverflowError } from './errors';
 
 /** The columns of a {@link CycleTable}, each trimmed to `length`. */
 export interface CycleColumns {
@@ -103,6 +103,18 @@ export class CycleTable implements CycleSink {
     this.cStart[i] = startIndex;
     this.cTurn[i] = turnIndex;
     this.cClose[i] = closeIndex;
+  }
+
+  /**
+   * Multiplies the counts of rows `from` … end by `factor` (finite, > 0): the cycles of one
+   * repeat of a block standing for `factor` repeats counted at once.
+   */
+  scaleCounts(from: number, factor: number): void {
+    if (!(factor > 0 && factor < Infinity)) throw new InvalidOptionError('factor', factor, 'must be a finite number > 0');
+    // a snapshot sharing the rows keeps its counts: this table moves to rows of its own first
+    if (this.share !== null) this.own();
+    const c = this.cCount;
+    for (let i = Math.max(0, from); i < this.n; i++) c[i] *= factor;
   }
 
   /** Appends every row of another table (or of this one), in its order. */
