@@ -77,6 +77,9 @@ class MappedSink implements CycleSink {
   }
 }
 
+/** Residue points up to which the counter's state is compared after each repeat of an event. */
+const STATE_CHECK_POINTS = 512;
+
 /** The counter's state without its indices: equal states count the same cycles from here on. */
 function stateKey(counter: RainflowCounter): string {
   const s = counter.toJSON();
@@ -115,10 +118,13 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
         if (err instanceof NonFiniteSampleError) throw sampleError(events, k, (err.index as number) - at, err.value as number);
         throw err;
       }
-      const key = stateKey(counter);
+      // the state is compared while the residue is small; a block whose repeats keep adding
+      // to the residue (exact ties at its extremes, kept for the seam: docs/rainflow.md) is
+      // pushed repeat by repeat, its cost growing with the repeats
+      const key = counter.stackLength <= STATE_CHECK_POINTS ? stateKey(counter) : '';
       const removedNow = counter.removedCount - removedBefore;
       removedBefore = counter.removedCount;
-      if (j > 0 && key === previous) {
+      if (j > 0 && key !== '' && key === previous) {
         // the state repeats: repeats j … repeats − 1 count what this one counted
         all.scaleCounts(rowsBefore, e.repeats - j);
         removed += removedNow * (e.repeats - j);

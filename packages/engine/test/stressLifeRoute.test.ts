@@ -5,6 +5,7 @@ import { rainflow } from '@loopwise/rainflow';
 import { defineSnCurve, en1993DetailCurve, estimateSteelSnCurve, iiwFatCurve, stressLifeDamage } from '@loopwise/stress-life';
 import { checkProperty } from '../../../test/property';
 import shigley from '../../../fixtures/handbook/shigley-9th-stress-life.json';
+import shigley8 from '../../../fixtures/handbook/shigley-8th-problem-6-29.json';
 
 const byName = (start: string) => shigley.cases.find((c) => c.name.startsWith(start))!;
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
@@ -40,6 +41,24 @@ describe('the stress-life route of the engine — textbook variable-amplitude ex
     expect(rel(100 * report.life.repeats, p.expected.cycles as number)).toBeLessThan(1e-3);
     // the 40 kpsi level lies below Se and does no damage
     expect(report.events[2].damage).toBe(0);
+  });
+});
+
+describe('the stress-life route of the engine — a Goodman and Miner example', () => {
+  test('Shigley 8th ed. problem 6-29(a): 50 000 cycles at 420/140 MPa, then 350/−200 MPa with Goodman: 24 880 cycles remain (0.5 %)', () => {
+    const { input: p, expected: e } = shigley8;
+    const curve = estimateSteelSnCurve({ ultimateStrengthMPa: p.Sut, enduranceLimitMPa: p.Se, fraction: p.f });
+    const job: LifeJob = { stressLife: { curve, meanStress: { method: 'goodman', ultimateStrength: p.Sut } } };
+    // the first loading as a duty-cycle event of one cycle repeated 50 000 times
+    const first = assessDutyCycle([{ name: 'first loading', history: [p.first.max, p.first.min], repeats: p.first.cycles }], job);
+    expect(Array.from(first.loops.count).reduce((a, b) => a + b, 0)).toBe(p.first.cycles);
+    expect(new Set(first.loops.stressMax).size).toBe(1);
+    expect(rel(first.loops.parameter[0], e.equivalentAmplitude1)).toBeLessThan(5e-3); // the curve is of amplitudes: parameter = σar
+    expect(rel(first.loops.cyclesToFailure[0], e.N1)).toBeLessThan(5e-3);
+    const second = assessLife([p.second.max, p.second.min], job);
+    expect(rel(second.loops.cyclesToFailure[0], e.N2)).toBeLessThan(5e-3);
+    const n2 = (1 - first.damage.perRepeat) * second.loops.cyclesToFailure[0];
+    expect(rel(n2, e.n2)).toBeLessThan(5e-3);
   });
 });
 
