@@ -34,6 +34,10 @@ export interface ButterworthOptions {
  * a0 = 1 + 2 sin θk K + K², g = K²/a0, a1 = 2(K² − 1)/a0, a2 = (1 − 2 sin θk K + K²)/a0; the
  * first-order one: g = K/(1 + K), a1 = (K − 1)/(K + 1).
  *
+ * Special cases: at very low cut-offs (fc/fs below about 1e-3) 1 + a1 + a2 ≈ 4K² cancels, so
+ * the sections' DC gain departs from 1 by about 1e-16 / K² (1e-10 at fc/fs = 1e-3); decimate
+ * first, or filter at a lower sample rate, for lower cut-offs.
+ *
  * References: S. Butterworth, "On the theory of filter amplifiers", Experimental Wireless and
  * the Wireless Engineer 7, 1930, 536–541 (the maximally flat response); A. V. Oppenheim and
  * R. W. Schafer, Discrete-Time Signal Processing, 3rd ed., Pearson, 2010, section 7.2.2 (the

@@ -61,7 +61,11 @@ export function removeSpikesInto(history: ArrayLike<number>, spikes: FindingTabl
       if (left < 0 && right >= n) out[i] = x[i];
       else if (left < 0) out[i] = x[right];
       else if (right >= n) out[i] = x[left];
-      else out[i] = x[left] + ((x[right] - x[left]) * (i - left)) / (right - left);
+      else {
+        // (1 − t)·left + t·right cannot overflow for finite ends, unlike left + t·(right − left)
+        const t = (i - left) / (right - left);
+        out[i] = (1 - t) * x[left] + t * x[right];
+      }
     }
     places.push(first, last - first + 1);
     k = e + 1;

@@ -11,7 +11,7 @@ export interface ZeroPhaseLowPassOptions {
   sampleRate: number;
   /** Butterworth order N (each pass), an integer 1 … 16. Default 2. */
   order?: number;
-  /** Samples of odd reflection added at each end. Default min(n − 1, ⌈3 fs / fc⌉): three periods of the cut-off. */
+  /** Samples of odd reflection added at each end. Default min(n − 1, ⌈6 fs / fc⌉): six periods of the cut-off. */
   padLength?: number;
 }
 
@@ -72,7 +72,7 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
   const x = history;
   const n = x.length;
   if (!(out instanceof Float64Array) || out.length !== n) throw new SignalError('invalid-argument', 'out', out, `must be a Float64Array of length ${n}`);
-  const pad = Math.min(Math.max(n - 1, 0), integerOption(options.padLength, 'padLength', Math.ceil((3 * design.sampleRate) / design.cutoff), 0));
+  const pad = Math.min(Math.max(n - 1, 0), integerOption(options.padLength, 'padLength', Math.ceil((6 * design.sampleRate) / design.cutoff), 0));
   for (let i = 0; i < n; i++) {
     // the check only: the first forward pass copies (fused, to save a pass over the history)
     const v = x[i];
