@@ -63,7 +63,9 @@ export const zeroPhaseLowPass = zeroPhaseLowPassButterworth;
 
 /**
  * {@link zeroPhaseLowPassButterworth} into `out` (a Float64Array of the history's length; it
- * may be the history itself). Allocates only the two pads.
+ * may be the history itself). Allocates only the two pads. The history is checked as the first
+ * forward pass reads it (no pass of its own): after an error `out` (and so the history, when
+ * filtering in place) holds partial results.
  */
 export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Array, options: ZeroPhaseLowPassOptions): { design: ButterworthDesign; correction: CorrectionRecord } {
   if (options === null || typeof options !== 'object') throw new SignalError('invalid-option', 'options', options, 'must be an options object with cutoff and sampleRate');
@@ -73,11 +75,11 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
   const n = x.length;
   if (!(out instanceof Float64Array) || out.length !== n) throw new SignalError('invalid-argument', 'out', out, `must be a Float64Array of length ${n}`);
   const pad = Math.min(Math.max(n - 1, 0), integerOption(options.padLength, 'padLength', Math.ceil((6 * design.sampleRate) / design.cutoff), 0));
-  for (let i = 0; i < n; i++) {
-    // the check only: the first forward pass copies (fused, to save a pass over the history)
-    const v = x[i];
-    if (v - v !== 0) throw new SignalError('non-finite-sample', 'history', v, 'samples must be finite numbers', i);
-  }
+  // The samples of the pads are checked here; the others by the first forward pass: a NaN or
+  // ±Infinity input makes that sample's output and the filter state non-finite for good, so one
+  // look at the state after the pass finds it (and a search from there names the sample).
+  for (let i = 0; i < n && i <= pad; i++) if (x[i] - x[i] !== 0) throw new SignalError('non-finite-sample', 'history', x[i], 'samples must be finite numbers', i);
+  for (let i = Math.max(0, n - 1 - pad); i < n; i++) if (x[i] - x[i] !== 0) throw new SignalError('non-finite-sample', 'history', x[i], 'samples must be finite numbers', i);
   const correction = correctionRecord(
     'low-pass',
     [0, n],
@@ -106,11 +108,13 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
       firstOrderForward(head, head, s.gain, s.a1, state);
       firstOrderForward(src, out, s.gain, s.a1, state);
       firstOrderForward(tail, tail, s.gain, s.a1, state);
+      if (k === 0 && !(state[2] - state[2] === 0)) throw nonFiniteInput(x, out);
     } else {
       secondOrderForward(head, head, s.gain, s.a1, s.a2, state);
       secondOrderForward(src, out, s.gain, s.a1, s.a2, state);
       secondOrderForward(tail, tail, s.gain, s.a1, s.a2, state);
     }
+    if (k === 0 && !(state[2] - state[2] === 0 && state[3] - state[3] === 0)) throw nonFiniteInput(x, out);
   });
   for (const s of design.sections) {
     state.fill(pad > 0 ? tail[pad - 1] : out[n - 1]);
@@ -121,6 +125,15 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
     }
   }
   return { design, correction };
+}
+
+/** The error for the first sample whose forward output is not finite (the input there, unless it was overwritten in place). */
+function nonFiniteInput(x: ArrayLike<number>, out: Float64Array): SignalError {
+  let i = 0;
+  while (i < out.length && out[i] - out[i] === 0) i++;
+  const v = out === x ? out[i] : x[i];
+  if (i < x.length && v - v === 0) return new SignalError('invalid-argument', 'history', v, 'the filter overflows here: samples are too large (near the largest double)', i);
+  return new SignalError('non-finite-sample', 'history', v, 'samples must be finite numbers', i);
 }
 
 // The section kernels, in place, with the state [x1, x2, y1, y2] carried between calls. A

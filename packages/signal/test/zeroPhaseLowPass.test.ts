@@ -91,3 +91,19 @@ describe('zeroPhaseLowPass(history, { cutoff, sampleRate, order, padLength })', 
     );
   });
 });
+
+describe('zeroPhaseLowPassInto(history, out, options)', () => {
+  it('names the first non-finite sample wherever it is, in place too, for every order', () => {
+    for (const order of [1, 2, 3]) {
+      for (const at of [0, 1, 40, 500, 998, 999]) {
+        for (const bad of [NaN, Infinity, -Infinity]) {
+          const x = Float64Array.from({ length: 1000 }, (_, i) => Math.sin(i / 7));
+          x[at] = bad;
+          const options = { cutoff: 5, sampleRate: 100, order };
+          expect(() => zeroPhaseLowPassInto(x, new Float64Array(1000), options)).toThrow(expect.objectContaining({ code: 'non-finite-sample', index: at }));
+          expect(() => zeroPhaseLowPassInto(x, x, options)).toThrow(expect.objectContaining({ code: 'non-finite-sample', index: at }));
+        }
+      }
+    }
+  });
+});
