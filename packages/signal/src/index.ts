@@ -24,3 +24,4 @@ export { removeOffset, type OffsetRemoval, type RemoveOffsetOptions } from './re
 export { butterworthSections, butterworthResponse, type ButterworthDesign, type ButterworthOptions } from './butterworthSections';
 export { zeroPhaseLowPass, zeroPhaseLowPassButterworth, zeroPhaseLowPassInto, type LowPassResult, type ZeroPhaseLowPassOptions } from './zeroPhaseLowPass';
 export { decimatePeaks, type DecimatePeaksOptions, type Decimation } from './decimatePeaks';
+export { PeakDecimator } from './PeakDecimator';

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { rainflow } from '@loopwise/rainflow';
-import { decimatePeaks } from '@loopwise/signal';
+import { decimatePeaks, PeakDecimator } from '@loopwise/signal';
 import { checkProperty } from '../../../test/property';
 
 /** Cycles of a count as comparable rows; sample indices mapped through `indices` when given. */
@@ -53,5 +53,36 @@ describe('decimatePeaks(history, { gate })', () => {
       ),
       { numRuns: 500 },
     );
+  });
+});
+
+describe('new PeakDecimator({ gate })', () => {
+  it('keeps the same samples as decimatePeaks for any chunking (property)', () => {
+    checkProperty(
+      'decimation chunking invariance',
+      fc.property(fc.array(fc.integer({ min: -20, max: 20 }), { maxLength: 300 }), fc.array(fc.nat(300), { maxLength: 6 }), fc.constantFrom(0, 1, 2.5, 7), (values, cuts, gate) => {
+        const whole = decimatePeaks(values, { gate });
+        const d = new PeakDecimator({ gate });
+        const v = new Float64Array(values.length + 8);
+        const ix = new Float64Array(values.length + 8);
+        let from = 0;
+        let w = 0;
+        for (const c of [...cuts.map((c) => c % (values.length + 1)), values.length].sort((p, q) => p - q)) {
+          w += d.push(values.slice(from, Math.max(from, c)), v, ix, w);
+          from = Math.max(from, c);
+        }
+        w += d.finish(v, ix, w);
+        expect(Array.from(v.subarray(0, w))).toEqual(Array.from(whole.values));
+        expect(Array.from(ix.subarray(0, w))).toEqual(Array.from(whole.indices));
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('names the sample index of a NaN in a later chunk', () => {
+    const d = new PeakDecimator();
+    const out = new Float64Array(8);
+    d.push([1, 2, 3], out, out.slice());
+    expect(() => d.push([4, NaN], out, out.slice())).toThrow(expect.objectContaining({ code: 'non-finite-sample', index: 4 }));
   });
 });
