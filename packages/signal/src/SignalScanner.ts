@@ -3,7 +3,7 @@ import { integerOption, onlyKnownFields, positiveOption } from './checkOptions';
 import { FindingTable } from './FindingTable';
 import { lowerMedian } from './lowerMedian';
 import { SignalError } from './SignalError';
-import type { TimeBase } from './TimeBase';
+import { timesOfSamples, type TimeBase } from './TimeBase';
 
 /** Options of the spike check (see {@link SignalScanner}). */
 export interface SpikeCheckOptions {
@@ -190,6 +190,10 @@ export class SignalScanner {
     this.offsetShare = offset === null ? Infinity : positiveOption(offset.share, 'offset.share', 0.5, true);
     const drift = section(options.drift, SHARE_KEYS, 'drift');
     this.driftShare = drift === null ? Infinity : positiveOption(drift.share, 'drift.share', 0.25, true);
+    if (options.timeBase !== undefined) {
+      if (options.timeBase === null || typeof options.timeBase !== 'object') throw new SignalError('invalid-option', 'timeBase', options.timeBase, 'must be { sampleRate, startTime? } or a time column');
+      timesOfSamples(new Float64Array(0), options.timeBase); // checks sampleRate and startTime now, not at finish()
+    }
     this.timeBase = options.timeBase;
     this.sums = this.offsetShare !== Infinity || this.driftShare !== Infinity;
     this.nextBoundary = this.block;

@@ -125,6 +125,8 @@ describe('new SignalScanner(options)', () => {
     expect(() => new SignalScanner({ spikes: { factor: -1 } })).toThrow(expect.objectContaining({ code: 'invalid-option', field: 'spikes.factor', value: -1 }));
     expect(() => new SignalScanner({ spikes: { blockLength: 8 } })).toThrow(SignalError);
     expect(() => new SignalScanner({ stuckRuns: { minimumSamples: 1.5 } })).toThrow(expect.objectContaining({ field: 'stuckRuns.minimumSamples' }));
+    expect(() => new SignalScanner({ timeBase: { sampleRate: 0 } })).toThrow(expect.objectContaining({ field: 'timeBase.sampleRate', value: 0 }));
+    expect(() => new SignalScanner({ timeBase: 5 as never })).toThrow(expect.objectContaining({ field: 'timeBase' }));
     const s = new SignalScanner();
     s.finish();
     expect(() => s.push([1])).toThrow(expect.objectContaining({ code: 'invalid-argument' }));
