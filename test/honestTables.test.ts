@@ -3,6 +3,7 @@ import { assessDutyCycle, assessLife, compareCorrections, LifeSession } from '@l
 import { handbookSteels } from '@loopwise/material';
 import { NotchTracker, RepeatingNotchTracker, trackNotch, trackNotchRepeating } from '@loopwise/notch';
 import { rainflow, RainflowCounter } from '@loopwise/rainflow';
+import { decimatePeaks, excludeRanges, removeSpikes, scanSignal, splitAtDropouts, zeroPhaseLowPass } from '@loopwise/signal';
 
 // Honest tables: a result handed to a caller can't be changed through any of its columns in a
 // way that changes another result. Each case builds several results that could share storage
@@ -111,6 +112,24 @@ describe('honest tables: writing through one result never changes another', () =
       const c = new RainflowCounter();
       c.push(history);
       return { batch: rainflow(history), counted: c.finish(), life: assessLife(history, { material, notch: { Kt: 2 } }) };
+    });
+  });
+
+  test('signal: scans, corrections and their records, made from one history and one scan', () => {
+    expectHonest(() => {
+      const x = Float64Array.from({ length: 600 }, (_, i) => 100 * Math.sin(i / 7));
+      x[300] = 5000; // invented spike
+      x.fill(0, 400, 520); // invented dropout
+      const scan = scanSignal(x);
+      return {
+        scan,
+        again: scanSignal(x),
+        removed: removeSpikes(x, scan.findings),
+        excluded: excludeRanges(x, [{ first: 10, last: 20 }]),
+        split: splitAtDropouts(x, scan.findings),
+        filtered: zeroPhaseLowPass(x, { cutoff: 5, sampleRate: 100 }),
+        decimated: decimatePeaks(x),
+      };
     });
   });
 });

@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import * as base from '@loopwise/base';
 import * as rainflow from '@loopwise/rainflow';
+import * as signal from '@loopwise/signal';
 import * as material from '@loopwise/material';
 import * as meanStress from '@loopwise/mean-stress';
 import * as miner from '@loopwise/miner';
@@ -17,6 +18,7 @@ import * as stressLife from '@loopwise/stress-life';
 const modules: Record<string, unknown> = {
   '@loopwise/base': base,
   '@loopwise/rainflow': rainflow,
+  '@loopwise/signal': signal,
   '@loopwise/material': material,
   '@loopwise/mean-stress': meanStress,
   '@loopwise/miner': miner,

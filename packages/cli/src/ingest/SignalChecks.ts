@@ -1,3 +1,4 @@
+import { FINDING_CODES, SignalScanner, type FindingCode, type SignalScan } from '@loopwise/signal';
 import { IngestOptionError } from './IngestError.js';
 
 /** Kinds of {@link SignalWarning}. */
@@ -37,7 +38,7 @@ export interface SignalWarning {
  * acquisition system.
  */
 export interface SignalCheckThresholds {
-  /** A spike jumps out and back by more than this many times the running mean |Δx|. Default 10. */
+  /** A spike jumps out and back by more than this many times the robust scale of Δx (1.4826 × median |Δx|, @loopwise/signal). Default 6 (> 0). */
   spikeFactor: number;
   /** Identical consecutive samples (at least this many) are a flat line (a dropout at 0). Default 100. */
   flatRunSamples: number;
@@ -47,22 +48,19 @@ export interface SignalCheckThresholds {
   clipShare: number;
   /** Large offset: |mean| exceeds this share of the range (max − min). Default 0.5. */
   offsetShare: number;
-  /** Ranges kept per warning (memory stays O(1)). Default 20. */
+  /** Ranges listed per warning (the others are counted). Default 20. */
   maxRanges: number;
 }
 
 /** Defaults of {@link SignalCheckThresholds} (`common practice, no source`). */
 export const DEFAULT_SIGNAL_CHECK_THRESHOLDS: Readonly<SignalCheckThresholds> = Object.freeze({
-  spikeFactor: 10,
+  spikeFactor: 6,
   flatRunSamples: 100,
   clipMinSamples: 5,
   clipShare: 0.001,
   offsetShare: 0.5,
   maxRanges: 20,
 });
-
-/** Differences averaged before spikes are looked for; also 1/α of the running mean |Δx|. */
-const SPIKE_WARMUP = 32;
 
 /** Fixed-capacity list of sample ranges that merges a range adjacent to the last one. */
 class RangeList {
@@ -94,21 +92,21 @@ class RangeList {
 }
 
 /**
- * Streaming signal checks of one channel: spikes, flat lines and dropouts, a clipped full
- * scale and a large offset. Push the channel's samples chunk by chunk, then `finish()`.
- * Memory is O(1) (a fixed number of scalars and `maxRanges` ranges per kind); nothing is
- * allocated per sample.
+ * Streaming signal checks of one channel for the command: spikes, flat lines and dropouts, a
+ * clipped full scale and a large offset, as warnings for people. Push the channel's samples
+ * chunk by chunk, then `finish()`. The checks are `@loopwise/signal`'s {@link SignalScanner}
+ * (one pass, nothing allocated per sample; see docs/signal.md for the rules and their sources);
+ * this class maps the command's thresholds onto its options and its findings onto warnings
+ * with at most `maxRanges` ranges each. Drift is not checked here.
  *
- * Rules (thresholds in {@link SignalCheckThresholds}, all `common practice, no source`):
- * - Spike: sample i with d1 = x[i] − x[i−1] and d2 = x[i+1] − x[i] of opposite signs, both
- *   |d1|, |d2| > spikeFactor · m, and |x[i+1] − x[i−1]| <= min(|d1|, |d2|) / 2 (it comes back),
- *   where m is the running mean of |Δx| (exponential, weight 1/32, each |Δx| clipped at
- *   spikeFactor · m so spikes do not inflate it). Only isolated one-sample spikes are found,
- *   and none in the first 32 samples (warm-up).
- * - Flat line: at least flatRunSamples consecutive identical values; a dropout when the value is 0.
- * - Clipped maximum (minimum): at least max(clipMinSamples, clipShare · n) samples exactly at
- *   the largest (smallest) value, on a non-constant signal. The range reported runs from the
- *   first to the last such sample.
+ * Mapping (thresholds in {@link SignalCheckThresholds}, all `common practice, no source`):
+ * - Spike: the scanner's spike rule with `factor` = spikeFactor (one-sample spikes whose jump
+ *   out and back exceeds spikeFactor × 1.4826 × the median |Δx| of the block before).
+ * - Flat line / dropout: the scanner's stuck runs / runs at zero, minimumSamples =
+ *   max(2, ⌈flatRunSamples⌉).
+ * - Clipped maximum (minimum): the scanner's clipping check with minimumSamples =
+ *   max(1, ⌈clipMinSamples⌉) and minimumShare = min(1, clipShare); the range reported runs from
+ *   the first to the last sample at the extreme, `samples` counts the samples there.
  * - Large offset: |mean| > offsetShare · (max − min); the range is the whole channel.
  *
  * @example
@@ -121,29 +119,9 @@ class RangeList {
  */
 export class SignalChecks {
   private readonly t: SignalCheckThresholds;
+  private readonly scanner: SignalScanner;
   private n = 0;
-  // spike state
-  private a = 0;
-  private b = 0;
-  private m = 0;
-  private readonly spikes: RangeList;
-  // flat-line state
-  private runStart = 0;
-  private runValue = 0;
-  private readonly flats: RangeList;
-  private readonly dropouts: RangeList;
-  // extremes
-  private max = -Infinity;
-  private min = Infinity;
-  private atMax = 0;
-  private atMin = 0;
-  private firstMax = 0;
-  private lastMax = 0;
-  private firstMin = 0;
-  private lastMin = 0;
-  // Neumaier sum for the mean
-  private sum = 0;
-  private comp = 0;
+  private result: SignalWarning[] | null = null;
 
   constructor(
     readonly channel: string,
@@ -154,71 +132,22 @@ export class SignalChecks {
       const v = this.t[key];
       if (typeof v !== 'number' || !(v >= 0) || !Number.isFinite(v)) throw new IngestOptionError(`checks.${key}`, v, 'must be a finite number >= 0');
     }
-    const cap = Math.max(1, Math.floor(this.t.maxRanges));
-    this.spikes = new RangeList(cap);
-    this.flats = new RangeList(cap);
-    this.dropouts = new RangeList(cap);
+    if (!(this.t.spikeFactor > 0)) throw new IngestOptionError('checks.spikeFactor', this.t.spikeFactor, 'must be a finite number > 0');
+    this.scanner = new SignalScanner({
+      spikes: { factor: this.t.spikeFactor },
+      stuckRuns: { minimumSamples: Math.max(2, Math.ceil(this.t.flatRunSamples)) },
+      clipping: { minimumSamples: Math.max(1, Math.ceil(this.t.clipMinSamples)), minimumShare: Math.min(1, this.t.clipShare) },
+      offset: { share: this.t.offsetShare },
+      drift: false,
+    });
   }
 
   /** Adds the next samples; `firstIndex` is the 0-based sample index of `x[0]` (for checking order). */
   push(x: Float64Array, firstIndex = this.n): void {
     if (firstIndex !== this.n) throw new IngestOptionError('firstIndex', firstIndex, `chunks must follow each other: expected ${this.n}`);
-    const k = this.t.spikeFactor;
-    const flatMin = this.t.flatRunSamples;
-    let { n, a, b, m, runStart, runValue, max, min, atMax, atMin, firstMax, lastMax, firstMin, lastMin, sum, comp } = this;
-    for (let j = 0; j < x.length; j++, n++) {
-      const c = x[j];
-      // extremes and mean
-      if (c > max) {
-        max = c;
-        atMax = 0;
-        firstMax = n;
-      }
-      if (c === max) {
-        atMax++;
-        lastMax = n;
-      }
-      if (c < min) {
-        min = c;
-        atMin = 0;
-        firstMin = n;
-      }
-      if (c === min) {
-        atMin++;
-        lastMin = n;
-      }
-      const s = sum + c;
-      comp += Math.abs(sum) >= Math.abs(c) ? sum - s + c : c - s + sum;
-      sum = s;
-      if (n === 0) {
-        runStart = 0;
-        runValue = c;
-        b = c;
-        continue;
-      }
-      // flat runs
-      if (c !== runValue) {
-        if (n - runStart >= flatMin) (runValue === 0 ? this.dropouts : this.flats).add(runStart, n - 1);
-        runStart = n;
-        runValue = c;
-      }
-      // spikes: judge sample n-1 (b) between a and c
-      const d2 = c - b;
-      const ad2 = Math.abs(d2);
-      if (n >= 2) {
-        const d1 = b - a;
-        const ad1 = Math.abs(d1);
-        if (n > SPIKE_WARMUP && d1 * d2 < 0) {
-          const small = ad1 < ad2 ? ad1 : ad2;
-          if (small > k * m && Math.abs(c - a) <= small / 2) this.spikes.add(n - 1, n - 1);
-        }
-      }
-      if (n <= SPIKE_WARMUP) m += (ad2 - m) / n;
-      else m += ((ad2 < k * m ? ad2 : k * m) - m) / SPIKE_WARMUP;
-      a = b;
-      b = c;
-    }
-    Object.assign(this, { n, a, b, m, runStart, runValue, max, min, atMax, atMin, firstMax, lastMax, firstMin, lastMin, sum, comp });
+    if (this.result !== null) throw new IngestOptionError('firstIndex', firstIndex, 'the checks have finished');
+    this.scanner.push(x);
+    this.n += x.length;
   }
 
   /** Samples pushed so far. */
@@ -226,16 +155,39 @@ export class SignalChecks {
     return this.n;
   }
 
-  /** The warnings found, in the order spike, flat line, dropout, clipped max, clipped min, offset. */
+  /** The warnings found, in the order spike, flat line, dropout, clipped max, clipped min, offset (the same list on every call). */
   finish(): SignalWarning[] {
+    if (this.result === null) this.result = this.warnings(this.scanner.finish());
+    return this.result.map((w) => ({ ...w, ranges: w.ranges.map((r) => ({ ...r })) }));
+  }
+
+  private warnings(scan: SignalScan): SignalWarning[] {
     const out: SignalWarning[] = [];
     const ch = this.channel;
-    const n = this.n;
+    const n = scan.samples;
     if (n === 0) return out;
-    const flats = cloneRuns(this.flats, this.dropouts);
-    if (n - this.runStart >= this.t.flatRunSamples) (this.runValue === 0 ? flats.dropouts : flats.flats).add(this.runStart, n - 1);
-    const list = (kind: SignalWarningKind, r: RangeList, what: string) => {
-      if (r.count === 0) return;
+    const cap = Math.max(1, Math.floor(this.t.maxRanges));
+    const cols = scan.findings.columns();
+    const lists = new Map<FindingCode, RangeList>();
+    const atExtreme = { 'clipped-maximum': { samples: 0, first: -1, last: -1 }, 'clipped-minimum': { samples: 0, first: -1, last: -1 } };
+    for (let k = 0; k < cols.index.length; k++) {
+      const code = FINDING_CODES[cols.code[k]];
+      const first = cols.index[k];
+      const last = first + cols.length[k] - 1;
+      if (code === 'clipped-maximum' || code === 'clipped-minimum') {
+        const e = atExtreme[code];
+        e.samples += cols.length[k];
+        if (e.first < 0) e.first = first;
+        e.last = last;
+        continue;
+      }
+      let list = lists.get(code);
+      if (list === undefined) lists.set(code, (list = new RangeList(cap)));
+      list.add(first, last);
+    }
+    const list = (kind: SignalWarningKind, code: FindingCode, what: string) => {
+      const r = lists.get(code);
+      if (r === undefined || r.count === 0) return;
       out.push({
         kind,
         channel: ch,
@@ -245,47 +197,33 @@ export class SignalChecks {
         message: `${ch}: ${r.count + r.omitted} ${what} (${r.samples} samples), first at sample ${r.ranges()[0].first}`,
       });
     };
-    list('spike', this.spikes, `spike(s) beyond ${this.t.spikeFactor} × the local mean |Δx|`);
-    list('flat-line', flats.flats, `flat line(s) of at least ${this.t.flatRunSamples} identical samples`);
-    list('dropout', flats.dropouts, `dropout(s) of at least ${this.t.flatRunSamples} samples at exactly 0`);
-    const clipNeed = Math.max(this.t.clipMinSamples, this.t.clipShare * n);
-    if (this.max > this.min) {
-      if (this.atMax >= clipNeed)
-        out.push({
-          kind: 'clipped-maximum',
-          channel: ch,
-          samples: this.atMax,
-          ranges: [{ first: this.firstMax, last: this.lastMax }],
-          rangesOmitted: 0,
-          message: `${ch}: ${this.atMax} samples sit exactly at the maximum ${this.max}: clipped at full scale?`,
-        });
-      if (this.atMin >= clipNeed)
-        out.push({
-          kind: 'clipped-minimum',
-          channel: ch,
-          samples: this.atMin,
-          ranges: [{ first: this.firstMin, last: this.lastMin }],
-          rangesOmitted: 0,
-          message: `${ch}: ${this.atMin} samples sit exactly at the minimum ${this.min}: clipped at full scale?`,
-        });
+    list('spike', 'spike', `spike(s) beyond ${this.t.spikeFactor} × the robust scale of Δx (1.4826 × median |Δx|)`);
+    list('flat-line', 'stuck-run', `flat line(s) of at least ${this.t.flatRunSamples} identical samples`);
+    list('dropout', 'zero-run', `dropout(s) of at least ${this.t.flatRunSamples} samples at exactly 0`);
+    for (const [kind, code, name, value] of [
+      ['clipped-maximum', 'clipped-maximum', 'maximum', scan.maximum],
+      ['clipped-minimum', 'clipped-minimum', 'minimum', scan.minimum],
+    ] as const) {
+      const e = atExtreme[code];
+      if (e.samples === 0) continue;
+      out.push({
+        kind,
+        channel: ch,
+        samples: e.samples,
+        ranges: [{ first: e.first, last: e.last }],
+        rangesOmitted: 0,
+        message: `${ch}: ${e.samples} samples sit exactly at the ${name} ${value}: clipped at full scale?`,
+      });
     }
-    const mean = (this.sum + this.comp) / n;
-    const range = this.max - this.min;
-    if (Math.abs(mean) > this.t.offsetShare * range)
+    if (cols.code.includes(FINDING_CODES.indexOf('offset')))
       out.push({
         kind: 'large-offset',
         channel: ch,
         samples: n,
         ranges: [{ first: 0, last: n - 1 }],
         rangesOmitted: 0,
-        message: `${ch}: mean ${mean} is more than ${this.t.offsetShare} × the range ${range}: an offset not zeroed?`,
+        message: `${ch}: mean ${scan.mean} is more than ${this.t.offsetShare} × the range ${scan.maximum - scan.minimum}: an offset not zeroed?`,
       });
     return out;
   }
-}
-
-function cloneRuns(flats: RangeList, dropouts: RangeList): { flats: RangeList; dropouts: RangeList } {
-  // finish() may be called more than once: the open run is added to copies
-  const copy = (r: RangeList) => Object.assign(Object.create(Object.getPrototypeOf(r)) as RangeList, r, { bounds: (r as unknown as { bounds: Float64Array }).bounds.slice() });
-  return { flats: copy(flats), dropouts: copy(dropouts) };
 }
