@@ -206,7 +206,8 @@ export class BranchSolver {
     if (kind === 'linear') {
       const e = a / this.E;
       this.strain = e;
-      this.stress = this.curveStress(e);
+      // a strain that overflows leaves Infinity for the tracker to report with its sample
+      this.stress = e < Infinity ? this.curveStress(e) : e;
       return;
     }
     if (a === 0) {
@@ -267,7 +268,9 @@ export class BranchSolver {
       const err = (gpp * delta * delta) / (2 * gp * sigma);
       const next = sigma + delta;
       const e2 = m * m * r * r;
-      if ((err < 0 ? -err : err) <= tol && e2 <= tol) {
+      // delta = 0 is the root itself; it also stops the subnormal amplitudes, where gp·σ
+      // underflows and err is 0/0
+      if (delta === 0 || ((err < 0 ? -err : err) <= tol && e2 <= tol)) {
         this.stress = next;
         this.strain = next / this.E + p * (1 + m * r);
         return;
