@@ -1,4 +1,5 @@
 import { ArgumentError } from './ArgumentError';
+import { checkReversalsOptions } from './checkReversalsOptions';
 import { ConvergenceError } from './ConvergenceError';
 import type { ReversalsOptions } from './reversalsToFailure';
 import { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals } from './solveTwoTermReversals';
@@ -124,6 +125,7 @@ export class TwoTermReversalsTable {
    *   minShift > maxShift, or a NaN target bound.
    */
   constructor(lnA: number, p: number, lnB: number, q: number, options: TwoTermReversalsTableOptions = {}) {
+    checkReversalsOptions(options, 'TwoTermReversalsTable options', ['minShift', 'maxShift', 'lnTargetMin', 'lnTargetMax']);
     if (!(p < 0 && p > -Infinity)) throw new ArgumentError('p', p, 'must be a finite number < 0');
     if (!(q < 0 && q > -Infinity)) throw new ArgumentError('q', q, 'must be a finite number < 0');
     if (!Number.isFinite(lnA)) throw new ArgumentError('lnA', lnA, 'must be a finite number');

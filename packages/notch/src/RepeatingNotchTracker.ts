@@ -1,3 +1,4 @@
+import { NotchOptionError } from './NotchOptionError';
 import type { LoopTable } from './LoopTable';
 import { NotchStateError } from './NotchStateError';
 import type { NotchTrackerOptions, ResolvedTrackerOptions } from './NotchTrackerOptions';
@@ -151,7 +152,11 @@ export class RepeatingNotchTracker {
   private finished = false;
 
   constructor(options: RepeatingTrackerOptions) {
-    const { expectedPoints, ...rest } = options ?? ({} as RepeatingTrackerOptions);
+    if (options === null || typeof options !== 'object') throw new NotchOptionError('options', options, 'must be an object');
+    const { expectedPoints, ...rest } = options;
+    if (expectedPoints !== undefined && !(Number.isInteger(expectedPoints) && expectedPoints >= 0)) {
+      throw new NotchOptionError('expectedPoints', expectedPoints, 'must be an integer >= 0');
+    }
     this.core = new TrackerCore(rest);
     this.expected = expectedPoints ?? 0;
   }

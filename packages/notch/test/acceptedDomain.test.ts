@@ -181,3 +181,43 @@ describe('regressions of the accepted domain (issue 15)', () => {
     expect(Number.isFinite(s)).toBe(true);
   });
 });
+
+describe('unknown and mistyped options are documented errors naming the field (issue 15, item 6)', () => {
+  const code = (f: () => unknown): [string, string | undefined, string] => {
+    try {
+      f();
+    } catch (e) {
+      if (!(e instanceof LoopwiseError)) throw new Error(`undocumented error: ${String(e)}`);
+      return [e.code, e.field, e.message];
+    }
+    throw new Error('did not throw');
+  };
+
+  it("trackNotch(h, { material, kt: 2 }) says: unknown field 'kt' in notch tracker options; did you mean 'Kt'?", () => {
+    const [c, field, message] = code(() => trackNotch([0, 100], { material: sae1045, kt: 2 } as never));
+    expect([c, field]).toEqual(['invalid-option', 'kt']);
+    expect(message).toContain("unknown field 'kt' in notch tracker options; did you mean 'Kt'?");
+    expect(code(() => new NotchTracker({ material: sae1045, Kt: 2, rul: 'glinka' } as never))[1]).toBe('rul');
+  });
+
+  it('null, strings and BigInt in notch options and material give the documented errors', () => {
+    expect(code(() => trackNotch([0, 100], null as never))[0]).toBe('invalid-option');
+    expect(code(() => trackNotch([0, 100], { material: 'SAE 1045', Kt: 2 } as never))[0]).toBe('invalid-material');
+    expect(code(() => trackNotch([0, 100], { material: sae1045, Kt: '2' } as never))).toEqual(expect.arrayContaining(['invalid-option', 'Kt']));
+    expect(code(() => trackNotch([0, 100], { material: sae1045, Kt: 2n } as never))[1]).toBe('Kt');
+    expect(code(() => trackNotch([0, 100], { material: sae1045, Kt: 2, tolerance: '1e-10' } as never))[1]).toBe('tolerance');
+    expect(code(() => neuber(sae1045, 100, { tolerence: 1e-12 } as never))[1]).toBe('tolerence');
+    expect(code(() => neuber(sae1045, 100, null as never))[1]).toBe('options');
+    expect(code(() => neuber(sae1045, '100' as never))[1]).toBe('pseudoStress');
+  });
+
+  it('material and mean-stress options: unknown fields suggest the nearest name, wrong types name the field', () => {
+    expect(code(() => reversalsToFailure(sae1045, 0.002, { cutoffReversal: 1e7 } as never))[2]).toContain("did you mean 'cutoffReversals'?");
+    expect(code(() => reversalsToFailure(sae1045, 0.002, { maxIterations: '5' } as never))[1]).toBe('maxIterations');
+    expect(code(() => reversalsToFailureInto(sae1045, null as never, new Float64Array(1)))[1]).toBe('strainAmplitudes');
+    const loop = { stressMax: 300, stressMin: -300, strainMax: 0.002, strainMin: -0.002 };
+    expect(code(() => damageParameters.morrow.reversalsToFailure(sae1045, loop, { maxIteration: 5 } as never))[1]).toBe('maxIteration');
+    expect(code(() => createWalker({ gama: 0.5 } as never))[2]).toContain("did you mean 'gamma'?");
+    expect(code(() => createWalker(null as never))[1]).toBe('options');
+  });
+});

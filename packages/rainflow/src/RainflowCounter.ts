@@ -1,7 +1,8 @@
 import { decodeArray, encodeArray, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
 import { CycleTable, type CycleTableState } from './CycleTable';
-import { CounterStateError, InvalidOptionError } from './errors';
+import { checkHistory, checkOptionFields } from './checkHistory';
+import { CounterStateError, InvalidOptionError, RangeOverflowError } from './errors';
 import { closeRepeatingResidue } from './closeRepeatingResidue';
 import { ReversalFilter, type ReversalFilterState } from './ReversalFilter';
 
@@ -110,6 +111,7 @@ export class RainflowCounter {
   private readonly trimStart: boolean;
 
   constructor(options: RainflowCounterOptions = {}) {
+    checkOptionFields(options, ['residue', 'gate', 'startIndex', 'sink'], 'RainflowCounter options');
     const residue = options.residue ?? 'half';
     if (!POLICIES.includes(residue)) {
       throw new InvalidOptionError('residue', residue, "must be 'half', 'repeat' or 'none'");
@@ -153,6 +155,7 @@ export class RainflowCounter {
   /** Pushes the next samples of the history. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     this.assertOpen();
+    checkHistory(chunk, this.filter.nextIndex);
     const n = chunk.length;
     for (let s = 0; s < n; s += BLOCK) {
       const e = Math.min(n, s + BLOCK);
@@ -314,7 +317,11 @@ export class RainflowCounter {
     const sink = this.sink;
     let top = this.top;
     for (let j = 0; j < k; j++) {
-      sv[top] = values[j];
+      const v = values[j];
+      // Every pair of neighbours on the stack has a finite range (checked where a pair forms: here
+      // and after a close), so every cycle and every residue half cycle does.
+      if (top > 0 && !(v - sv[top - 1] - (v - sv[top - 1]) === 0)) throw new RangeOverflowError(si[top - 1], indices[j], sv[top - 1], v);
+      sv[top] = v;
       si[top] = indices[j];
       top++;
       while (top >= 4) {
@@ -328,6 +335,7 @@ export class RainflowCounter {
           sv[top - 3] = d;
           si[top - 3] = si[top - 1];
           top -= 2;
+          if (!(d - a - (d - a) === 0)) throw new RangeOverflowError(si[top - 2], si[top - 1], a, d);
         } else break;
       }
       if (top === 3 && this.trimStart) {
