@@ -250,7 +250,7 @@ export class TwoTermReversalsTable {
       // After the first step every exact step is positive (it lands at or below the root of a
       // convex decreasing function); one that is not is rounding at the root. This stops the
       // solve where C·step² cannot (an exponent near 0 makes C huge).
-      if (k > 0 && !(step > 0)) return u <= 1e-12 ? 1 : Math.exp(u);
+      if ((k > 0 && !(step > 0)) || u + step === u) return u <= 1e-12 ? 1 : Math.exp(u);
       u += step;
       if (u > hi) u = hi;
       if (u >= lnCutoff) return Infinity;

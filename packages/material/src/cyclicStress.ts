@@ -47,7 +47,7 @@ export function cyclicStress(material: Material, strain: number): number {
     const sum = te + tp;
     const step = ((top + Math.log(sum)) * sum) / (te + m * tp);
     // Every exact step from above the root is positive; one that is not is rounding at the root.
-    const done = !(step > 0);
+    const done = !(step > 0) || s - step === s; // a step below half an ulp leaves s where it is
     if (!done) s -= step;
     if (done || c * step * step <= 1e-15) {
       const sigma = Math.exp(s);

@@ -105,7 +105,8 @@ export function solveTwoTermReversals(
     const step = (-g * s) / (p * ta + q * tb);
     // From the low end of the bracket every exact step is positive (monotone Newton on a convex
     // decreasing function); one that is not is rounding at the root.
-    if (!(step > 0)) return u <= 1e-12 ? 1 : Math.exp(u);
+    // A step below half an ulp of u leaves u where it is: converged as far as binary64 goes.
+    if (!(step > 0) || u + step === u) return u <= 1e-12 ? 1 : Math.exp(u);
     u += step;
     if (u > hi) u = hi;
     if (u >= lnCutoff) return Infinity;

@@ -47,7 +47,7 @@ export function solveEnergyEquation(
     const step = ((top + Math.log(sum)) * sum) / (p1 * t1 + p2 * t2);
     // From above the root every exact step is positive (monotone Newton on a convex increasing
     // function); a step that is not is rounding at the root: converged as far as binary64 goes.
-    if (!(step > 0)) return s;
+    if (!(step > 0) || s - step === s) return s; // (or below half an ulp of s: it stays where it is)
     s -= step;
     if (c * step * step <= tol) return s;
   }

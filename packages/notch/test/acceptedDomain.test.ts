@@ -221,3 +221,4 @@ describe('unknown and mistyped options are documented errors naming the field (i
     expect(code(() => createWalker(null as never))[1]).toBe('options');
   });
 });
+

@@ -1,0 +1,259 @@
+import fc from 'fast-check';
+import { describe, expect, test } from 'vitest';
+import { LoopwiseError } from '@loopwise/base';
+import { assessLife, LifeSession, type LifeJob, type LifeReport } from '@loopwise/engine';
+import { defineMaterial, handbookSteels, type Material } from '@loopwise/material';
+import { NotchTracker, RepeatingNotchTracker } from '@loopwise/notch';
+import { rainflow, RainflowCounter } from '@loopwise/rainflow';
+
+// Seeded fuzz over the whole engine (issue 15): random histories with ties, plateaus, spikes,
+// offsets and magnitudes from subnormal to near overflow; handbook materials and materials at
+// the edges of the domain defineMaterial accepts; every rule, input and correction; chunked
+// streams. Invented data, for robustness only. Checks: only documented errors (a LoopwiseError
+// with a code), no NaN or undefined in any report field, damage >= 0, lives > 0, design lives
+// > 0, and the streamed session and counters equal the batch results. The run collects every
+// failure by kind and fails with the first example of each, so the counts are in the output.
+// LOOPWISE_FUZZ_RUNS sets the number of cases (default 3000, about 6 s on two shared cores).
+const RUNS = Number(process.env.LOOPWISE_FUZZ_RUNS ?? 3000);
+
+const sae1045 = handbookSteels.find((m) => m.name!.startsWith('SAE 1045'))!;
+const { warnings: _w, ...saeInput } = sae1045;
+
+const logUniform = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true }).map((e) => 10 ** e);
+const edgeMaterial: fc.Arbitrary<Material> = fc
+  .record({
+    E: logUniform(-3, 12),
+    sigmaF: logUniform(-3, 12),
+    b: fc.oneof(logUniform(-6, 0.2), fc.constantFrom(1e-300, 1e-9)).map((v) => -v),
+    epsilonF: logUniform(-6, 3),
+    c: fc.oneof(logUniform(-6, 0.3), fc.constantFrom(1e-300, 1e-9)).map((v) => -v),
+    K: logUniform(-3, 12),
+    n: fc.oneof(fc.double({ min: 0.01, max: 0.5, noNaN: true }), fc.constantFrom(0.01, 0.5)),
+    Su: fc.option(logUniform(1, 4), { nil: undefined }),
+  })
+  .map((m) => defineMaterial(m.Su === undefined ? { ...m, Su: undefined } : m));
+const nearHandbook: fc.Arbitrary<Material> = fc
+  .record({ n: fc.constantFrom(0.01, 0.05, 0.3, 0.5), K: logUniform(2, 4) })
+  .map((v) => defineMaterial({ ...saeInput, ...v }));
+const material = fc.oneof(fc.constantFrom(...handbookSteels), edgeMaterial, nearHandbook);
+
+const shape = fc.constantFrom('random', 'ties', 'plateaus', 'spike', 'steps');
+const history = fc
+  .tuple(
+    shape,
+    fc.array(fc.integer({ min: -50, max: 50 }), { minLength: 1, maxLength: 60 }),
+    fc.oneof(logUniform(-320, -300), logUniform(-200, 200), logUniform(300, 307.5), fc.constantFrom(1, 100, 300)),
+    fc.oneof(fc.constant(0), fc.integer({ min: -40, max: 40 })),
+  )
+  .map(([kind, base, scale, offset]) => {
+    let h = base;
+    if (kind === 'ties') h = base.map((x, i) => (i % 2 === 0 ? Math.abs(base[0]) : -Math.abs(base[0])));
+    else if (kind === 'plateaus') h = base.flatMap((x) => [x, x, x]);
+    else if (kind === 'spike') h = base.map((x, i) => (i === base.length >> 1 ? x * 40 : x));
+    else if (kind === 'steps') h = base.map((x) => Math.sign(x) * 10);
+    return h.map((x) => (x + offset) * (scale / 50));
+  })
+  .filter((h) => h.every((x) => Number.isFinite(x)));
+
+const job = fc.record({
+  input: fc.constantFrom('nominal', 'nominal', 'pseudo-elastic', 'local-strain'),
+  Kt: fc.double({ min: 1, max: 3, noNaN: true }),
+  rule: fc.constantFrom('neuber', 'glinka', 'linear'),
+  meanStress: fc.constantFrom('none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker'),
+  walkerGamma: fc.option(fc.double({ min: 0.05, max: 1, noNaN: true }), { nil: undefined }),
+  repeating: fc.boolean(),
+  gate: fc.option(fc.double({ min: 0, max: 1, noNaN: true }), { nil: undefined }),
+  criticalDamage: fc.option(fc.oneof(fc.constant(1e-300), fc.double({ min: 0.1, max: 3, noNaN: true })), { nil: undefined }),
+  scatterFactor: fc.option(fc.oneof(fc.constant(1e300), fc.double({ min: 1, max: 20, noNaN: true })), { nil: undefined }),
+});
+
+type Kind = string;
+const failures = new Map<Kind, { count: number; example: string }>();
+function fail(kind: Kind, example: unknown): void {
+  const f = failures.get(kind);
+  if (f) f.count++;
+  else failures.set(kind, { count: 1, example: JSON.stringify(example, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : typeof v === 'bigint' ? String(v) : v)).slice(0, 1500) });
+}
+
+/**
+ * Every leaf of a report: no NaN, no undefined (typed arrays read through). The echo of the
+ * job's optional fields in `report.inputs` (Kf beside Kt, walkerGamma, the material's name)
+ * may be undefined: absent, as JSON writes it.
+ */
+function badLeaf(value: unknown, path = 'report'): string | undefined {
+  if (value === undefined) return path.startsWith('report.inputs.') ? undefined : `${path} is undefined`;
+  if (typeof value === 'number') return value !== value ? `${path} is NaN` : undefined;
+  if (ArrayBuffer.isView(value)) {
+    const a = value as unknown as ArrayLike<number>;
+    for (let i = 0; i < a.length; i++) if (a[i] !== a[i]) return `${path}[${i}] is NaN`;
+    return undefined;
+  }
+  if (value !== null && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      const bad = badLeaf(v, `${path}.${k}`);
+      if (bad) return bad;
+    }
+  }
+  return undefined;
+}
+
+const plain = (r: LifeReport) => JSON.stringify(r, (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : typeof v === 'number' && !Number.isFinite(v) ? String(v) : v));
+
+function errorKind(e: unknown, where: string): Kind | undefined {
+  if (e instanceof LoopwiseError && typeof e.code === 'string' && e.code !== 'not-converged') return undefined;
+  const name = e instanceof Error ? `${e.name}: ${e.message.replace(/[-\d.e+]+/g, '#').slice(0, 80)}` : String(e);
+  return `${where}: undocumented error ${name}`;
+}
+
+function cutsOf(n: number, seed: number): number[] {
+  const cuts: number[] = [];
+  for (let at = (seed % 5) + 1; at < n; at += (seed % 7) + 1) cuts.push(at);
+  return cuts;
+}
+
+function streamed(h: number[], cuts: number[], j: LifeJob): LifeReport {
+  const s = new LifeSession(j);
+  let at = 0;
+  for (const c of [...cuts, h.length]) {
+    s.push(h.slice(at, c));
+    at = c;
+  }
+  let left = s.endFirstPass();
+  for (let i = 0; left > 0; i += 3) {
+    const part = h.slice(i, i + 3);
+    s.pushSecondPass(part);
+    left -= part.length;
+  }
+  return s.finish();
+}
+
+describe('fuzz over rainflow, the notch trackers, assessLife and LifeSession (issue 15)', () => {
+  test(`${RUNS} seeded cases: only documented errors, no NaN or undefined, damage >= 0, lives > 0, stream = batch`, () => {
+    failures.clear();
+    let cases = 0;
+    const documented = new Map<string, number>();
+    fc.assert(
+      fc.property(history, material, job, fc.nat(1000), (h, m, jo, seed) => {
+        cases++;
+        const cuts = cutsOf(h.length, seed);
+        // rainflow, batch and counter in chunks
+        let batchCycles: string | undefined;
+        try {
+          const r = rainflow(h, { residue: jo.repeating ? 'repeat' : 'half' });
+          batchCycles = JSON.stringify(r.cycles!.toJSON());
+        } catch (e) {
+          const k = errorKind(e, 'rainflow');
+          if (k) fail(k, { h });
+        }
+        try {
+          const c = new RainflowCounter({ residue: jo.repeating ? 'repeat' : 'half' });
+          let at = 0;
+          for (const cut of [...cuts, h.length]) {
+            c.push(h.slice(at, cut));
+            at = cut;
+          }
+          const got = JSON.stringify(c.finish().cycles!.toJSON());
+          if (batchCycles !== undefined && got !== batchCycles) fail('RainflowCounter in chunks differs from rainflow', { h, cuts });
+        } catch (e) {
+          const k = errorKind(e, 'RainflowCounter');
+          if (k) fail(k, { h });
+          else if (batchCycles !== undefined) fail('RainflowCounter threw where rainflow did not', { h, cuts, e: String(e) });
+        }
+        // the notch trackers
+        const nominal = jo.input === 'nominal';
+        const trackerOptions = { material: m, input: jo.input as 'nominal', rule: jo.rule as 'neuber', ...(nominal ? { Kt: jo.Kt } : {}) };
+        try {
+          const t = new NotchTracker(trackerOptions);
+          t.push(h);
+          const r = t.end();
+          const bad = badLeaf(r.loops.columns(), 'loops');
+          if (bad) fail(`NotchTracker: ${bad.replace(/\[\d+\]/, '[i]')}`, { h, m, jo });
+          const rep = new RepeatingNotchTracker(trackerOptions);
+          rep.push(h, Float64Array.from(h, (_x, i) => i), 0, h.length, 1);
+        } catch (e) {
+          const k = errorKind(e, 'notch tracker');
+          if (k) fail(k, { h, m, jo });
+        }
+        // the engine, batch and stream
+        const j: LifeJob = {
+          material: m,
+          input: jo.input as 'nominal',
+          rule: jo.rule as 'neuber',
+          ...(nominal ? { notch: { Kt: jo.Kt } } : {}),
+          meanStress: jo.meanStress as 'none',
+          repeating: jo.repeating,
+          ...(jo.meanStress === 'walker' && jo.walkerGamma !== undefined ? { walkerGamma: jo.walkerGamma } : {}),
+          ...(jo.gate !== undefined ? { gate: jo.gate * Math.max(...h.map(Math.abs)) } : {}),
+          ...(jo.criticalDamage !== undefined ? { criticalDamage: jo.criticalDamage } : {}),
+          ...(jo.scatterFactor !== undefined ? { scatterFactor: jo.scatterFactor } : {}),
+        };
+        let batch: LifeReport | undefined;
+        try {
+          batch = assessLife(h, j);
+        } catch (e) {
+          const k = errorKind(e, 'assessLife');
+          if (k) fail(k, { h, m, j });
+          else {
+            const code = (e as LoopwiseError).code;
+            documented.set(code, (documented.get(code) ?? 0) + 1);
+          }
+        }
+        if (batch !== undefined) {
+          const bad = badLeaf(batch);
+          if (bad) fail(`assessLife: ${bad.replace(/\[\d+\]/g, '[i]')}`, { h, m, j });
+          if (!(batch.damage.perRepeat >= 0)) fail('assessLife: damage.perRepeat < 0', { h, m, j });
+          if (!(batch.life.repeats > 0)) fail('assessLife: life.repeats not > 0', { h, m, j, life: batch.life });
+          if (!(batch.life.designRepeats > 0)) fail('assessLife: life.designRepeats not > 0', { life: batch.life, h, m, j });
+        }
+        try {
+          const s = streamed(h, cuts, j);
+          if (batch === undefined) fail('LifeSession gave a report where assessLife threw', { h, cuts, m, j });
+          else if (plain(s) !== plain(batch)) {
+            const a = JSON.parse(plain(s));
+            const b = JSON.parse(plain(batch));
+            const differing = Object.keys(b).filter((k) => JSON.stringify(a[k]) !== JSON.stringify(b[k]));
+            fail(`LifeSession report differs from assessLife in ${differing.join(', ')}`, { h, cuts, m, j });
+          }
+        } catch (e) {
+          const k = errorKind(e, 'LifeSession');
+          if (k) fail(k, { h, cuts, m, j });
+          else if (batch !== undefined) fail('LifeSession threw where assessLife did not', { h, cuts, m, j, e: String(e) });
+        }
+      }),
+      { numRuns: RUNS },
+    );
+    const summary = [...failures.entries()].map(([k, v]) => `${v.count} × ${k}\n    e.g. ${v.example}`);
+    const codes = [...documented.entries()].map(([c, n]) => `${n} ${c}`).join(', ');
+    console.log(`fuzz: ${cases} cases; documented input errors from assessLife: ${codes || 'none'}; ${summary.length} failure kinds${summary.length ? `:\n  ${summary.join('\n  ')}` : ''}`);
+    expect(summary).toEqual([]);
+  });
+});
+
+describe('regressions the fuzz found (issue 15)', () => {
+  test('assessLife([0.24, 0.2]) on local strain with SWT and b = -1e-300 gives a report (solveTwoTermReversals stopped only at its cap: ConvergenceError)', () => {
+    const m = defineMaterial({ E: 999999999999.9264, sigmaF: 1, b: -1e-300, epsilonF: 1, c: -1, K: 1, n: 0.18545695337427173, Su: 22.153010951940615 });
+    const r = assessLife([0.24, 0.2], { material: m, input: 'local-strain', meanStress: 'smithWatsonTopper', repeating: false });
+    expect(r.damage.perRepeat).toBeGreaterThanOrEqual(0);
+  });
+
+  test('assessLife with criticalDamage 1e-300 and scatterFactor 1e300 throws invalid-scatter-factor instead of designRepeats 0', () => {
+    expect(() => assessLife([0, 300, -300, 300], { material: sae1045, notch: { Kt: 2 }, criticalDamage: 1e-300, scatterFactor: 1e300 })).toThrow(
+      expect.objectContaining({ code: 'invalid-scatter-factor', field: 'scatterFactor' }),
+    );
+  });
+
+  test('assessLife([1e-300]) and [0, x, -x, x] from 5e-324 to 1e150 give reports; 1e190 to 1.7e308 the outside-model error naming the sample', () => {
+    expect(assessLife([1e-300], { material: sae1045 }).damage.perRepeat).toBe(0);
+    for (const x of [5e-324, 1e-200, 1e-163, 1e-100, 1, 300, 1e150]) {
+      const r = assessLife([0, x, -x, x], { material: sae1045, notch: { Kt: 2 } });
+      expect(r.life.repeats).toBeGreaterThan(0);
+    }
+    for (const x of [1e190, 1e300, 1.7e308]) {
+      expect(() => assessLife([0, x, -x, x], { material: sae1045, notch: { Kt: 2 } })).toThrow(expect.objectContaining({ code: 'outside-model' }));
+    }
+  });
+
+  test('assessLife on a material with n\' = 1e-9 is refused by validation with the reason, not a ConvergenceError', () => {
+    expect(() => assessLife([0, 300, -300, 300], { material: { ...saeInput, n: 1e-9 }, notch: { Kt: 2 } })).toThrow(expect.objectContaining({ code: 'invalid-material' }));
+  });
+});
