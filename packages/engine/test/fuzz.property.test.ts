@@ -52,7 +52,7 @@ const history = fc
   )
   .map(([kind, base, scale, offset]) => {
     let h = base;
-    if (kind === 'ties') h = base.map((x, i) => (i % 2 === 0 ? Math.abs(base[0]) : -Math.abs(base[0])));
+    if (kind === 'ties') h = base.map((_x, i) => (i % 2 === 0 ? Math.abs(base[0]) : -Math.abs(base[0])));
     else if (kind === 'plateaus') h = base.flatMap((x) => [x, x, x]);
     else if (kind === 'spike') h = base.map((x, i) => (i === base.length >> 1 ? x * 40 : x));
     else if (kind === 'steps') h = base.map((x) => Math.sign(x) * 10);
