@@ -128,3 +128,15 @@ describe('issue 15: every range that overflows a double, and wrong types, are do
     bad(() => levelCrossings([1, 2], null as never), 'invalid-option', 'history');
   });
 });
+
+describe('issue 15: the overflow check after a resume and an append', () => {
+  test('a counter resumed from JSON with -1.7e308 on its stack still throws when a later point overflows against it', async () => {
+    const { RainflowCounter, RangeOverflowError } = await import('@loopwise/rainflow');
+    const c = new RainflowCounter({ residue: 'none' }).push([-1.7e308, 0]);
+    const resumed = RainflowCounter.fromJSON(JSON.parse(JSON.stringify(c.toJSON())));
+    expect(() => resumed.push([1e307, -1e307, 1.5e307]).finish()).toThrow(RangeOverflowError);
+    const a = new RainflowCounter({ residue: 'none' }).push([-1.7e308, 0]);
+    const b = new RainflowCounter({ residue: 'none', startIndex: 2 }).push([1e307, -1e307, 1.5e307]);
+    expect(() => a.append(b).finish()).toThrow(RangeOverflowError);
+  });
+});
