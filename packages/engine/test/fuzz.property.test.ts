@@ -12,7 +12,8 @@ import { rainflow, RainflowCounter } from '@loopwise/rainflow';
 // the edges of the domain defineMaterial accepts; every rule, input and correction; chunked
 // streams. Invented data, for robustness only. Checks: only documented errors (a LoopwiseError
 // with a code), no NaN or undefined in any report field, damage >= 0, lives > 0, design lives
-// > 0, and the streamed session and counters equal the batch results. The run collects every
+// > 0, the same JSON from a second call, and the streamed session and counters equal the batch
+// results. The run collects every
 // failure by kind and fails with the first example of each, so the counts are in the output.
 // LOOPWISE_FUZZ_RUNS sets the number of cases (default 3000, about 6 s on two shared cores).
 const RUNS = Number(process.env.LOOPWISE_FUZZ_RUNS ?? 3000);
@@ -241,6 +242,10 @@ describe('fuzz over rainflow, the notch trackers, assessLife and LifeSession (is
             const code = (e as LoopwiseError).code;
             documented.set(code, (documented.get(code) ?? 0) + 1);
           }
+        }
+        if (batch !== undefined && seed % 10 === 0) {
+          // the same call again gives the same JSON (no result depends on earlier calls)
+          if (plain(assessLife(h, j)) !== plain(batch)) fail('assessLife twice: the JSON differs', { h, m, j });
         }
         if (batch !== undefined) {
           const bad = badLeaf(batch);
