@@ -14,7 +14,7 @@ const FIELDS = ['cutoffReversals', 'maxIterations'] as const;
  * @throws {ArgumentError} naming the field (`options`, the unknown field, or the bad one).
  * @example
  * checkReversalsOptions({ cutoff: 1e7 }, 'reversalsToFailure options')
- * // throws ArgumentError: cutoff = 10000000 (unknown field 'cutoff' in reversalsToFailure options; the fields are cutoffReversals, maxIterations)
+ * // throws ArgumentError: "invalid argument: cutoff = 10000000 (unknown field 'cutoff' in reversalsToFailure options; the fields are cutoffReversals, maxIterations)"
  */
 export function checkReversalsOptions(options: unknown, where: string, extra: readonly string[] = []): void {
   if (options === undefined) return;
