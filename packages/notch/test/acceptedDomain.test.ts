@@ -6,7 +6,7 @@ import {
   solveTwoTermReversals, TwoTermReversalsTable, type Material,
 } from '@loopwise/material';
 import { createWalker, damageParameters } from '@loopwise/mean-stress';
-import { glinka, glinkaRange, linearRule, linearRuleRange, neuber, neuberRange, trackNotch, NotchTracker } from '@loopwise/notch';
+import { glinka, glinkaRange, linearRule, linearRuleRange, neuber, neuberRange, trackNotch, NotchTracker, RepeatingNotchTracker } from '@loopwise/notch';
 import { checkProperty } from '../../../test/property';
 
 const sae1045 = handbookSteels.find((m) => m.name!.startsWith('SAE 1045'))!;
@@ -222,3 +222,29 @@ describe('unknown and mistyped options are documented errors naming the field (i
   });
 });
 
+
+describe('wrong types of history given to the trackers are documented errors (issue 15, item 6)', () => {
+  it('push(null), push(5), string, null and BigInt samples, pushIndexed without indices: NotchOptionError or NotchSampleError, never a TypeError', () => {
+    const o = { material: sae1045, Kt: 2 };
+    const codeOf = (f: () => unknown): string | undefined => {
+      try {
+        f();
+      } catch (e) {
+        if (!(e instanceof LoopwiseError)) throw new Error(`undocumented error: ${String(e)}`);
+        return `${e.code} ${e.field}${e.index === undefined ? '' : ` ${e.index}`}`;
+      }
+      return undefined;
+    };
+    expect(codeOf(() => new NotchTracker(o).push(null as never))).toBe('invalid-option history');
+    expect(codeOf(() => new NotchTracker(o).push(5 as never))).toBe('invalid-option history');
+    expect(codeOf(() => new NotchTracker(o).push([1, '2'] as never))).toBe('non-finite-sample history 1');
+    expect(codeOf(() => new NotchTracker(o).push([1, 2, null] as never))).toBe('non-finite-sample history 2');
+    expect(codeOf(() => new NotchTracker(o).push([1, 2n] as never))).toBe('non-finite-sample history 1');
+    expect(codeOf(() => new NotchTracker(o).push(BigInt64Array.of(1n) as never))).toBe('invalid-option history');
+    expect(codeOf(() => new NotchTracker(o).pushIndexed([1, 2], null as never))).toBe('invalid-option indices');
+    expect(codeOf(() => trackNotch(null as never, o))).toBe('invalid-option history');
+    expect(codeOf(() => new RepeatingNotchTracker(o).push(null as never))).toBe('invalid-option history');
+    // typed arrays and plain arrays of numbers go through as before
+    expect(new NotchTracker(o).push(Float64Array.of(0, 300, -300)).push([300]).end().loops.length).toBe(1);
+  });
+});
