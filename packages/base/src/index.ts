@@ -3,3 +3,5 @@ export { NeumaierAdder, neumaierSum } from './NeumaierAdder';
 export { LoopwiseError, brokenRule, describeValue } from './LoopwiseError';
 export { binIndex } from './binIndex';
 export { widenColumn, grownCapacity, RowShare } from './columnTables';
+export { nearestName } from './nearestName';
+export { unknownField } from './unknownField';

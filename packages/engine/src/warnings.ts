@@ -1,3 +1,4 @@
+import { LoopwiseError } from '@loopwise/base';
 import { CutoffTally, type CutoffReport } from '@loopwise/miner';
 import { branchResponse } from '@loopwise/notch';
 import { evaluateLoops } from './evaluateLoops';
@@ -69,9 +70,18 @@ export function gateBoundAt(job: ResolvedJob, largest: number, gate: number, rem
   if (removed === 0) return 0;
   const options = trackerOptionsOf(job);
   const top = largest + gate;
-  const peak = branchResponse(options, null, top);
-  // only the history difference from the origin enters a branch
-  const low = branchResponse(options, { value: top, stress: peak.stress, strain: peak.strain }, top - gate);
+  let peak: { stress: number; strain: number };
+  let low: { stress: number; strain: number };
+  try {
+    peak = branchResponse(options, null, top);
+    // only the history difference from the origin enters a branch
+    low = branchResponse(options, { value: top, stress: peak.stress, strain: peak.strain }, top - gate);
+  } catch (err) {
+    // the envelope point's local strain overflows a double (loads near the largest double): no
+    // finite bound exists, and the error would name the bound's own inputs, not the history's
+    if (err instanceof LoopwiseError && (err.code === 'invalid-option' || err.code === 'invalid-argument')) return Infinity;
+    throw err;
+  }
   const loop = {
     stressMax: Float64Array.of(peak.stress),
     stressMin: Float64Array.of(low.stress),

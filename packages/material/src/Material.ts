@@ -20,7 +20,7 @@ export interface MaterialInput {
   c: number;
   /** Cyclic strength coefficient K' (stress unit), > 0. */
   K: number;
-  /** Cyclic strain-hardening exponent n', 0 < n' < 1. */
+  /** Cyclic strain-hardening exponent n', 0.01 <= n' <= 0.5 (see docs/material.md, accepted domain). */
   n: number;
   /** Ultimate tensile strength Su (stress unit), optional, > 0. Used by Walker's γ estimate. */
   Su?: number;

@@ -1,4 +1,5 @@
 import { ArgumentError } from './ArgumentError';
+import { checkReversalsOptions } from './checkReversalsOptions';
 import { ConvergenceError } from './ConvergenceError';
 import type { ReversalsOptions } from './reversalsToFailure';
 import { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals } from './solveTwoTermReversals';
@@ -22,6 +23,9 @@ const SPACING = 0.3;
 
 /** Starts closer than this (in ln x) to 0 (one reversal) or to ln cut-off go to the plain solver. */
 const END_MARGIN = 1e-4;
+
+/** Most cells a table has (the spacing widens beyond SPACING when the bracket needs more). */
+const MAX_CELLS = 4096;
 
 /** Cap of the Newton solves at the table nodes (each starts from its neighbour's tangent). */
 const NODE_ITERATIONS = 60;
@@ -121,6 +125,7 @@ export class TwoTermReversalsTable {
    *   minShift > maxShift, or a NaN target bound.
    */
   constructor(lnA: number, p: number, lnB: number, q: number, options: TwoTermReversalsTableOptions = {}) {
+    checkReversalsOptions(options, 'TwoTermReversalsTable options', ['minShift', 'maxShift', 'lnTargetMin', 'lnTargetMax']);
     if (!(p < 0 && p > -Infinity)) throw new ArgumentError('p', p, 'must be a finite number < 0');
     if (!(q < 0 && q > -Infinity)) throw new ArgumentError('q', q, 'must be a finite number < 0');
     if (!Number.isFinite(lnA)) throw new ArgumentError('lnA', lnA, 'must be a finite number');
@@ -165,7 +170,9 @@ export class TwoTermReversalsTable {
       uLast = nodeRoot(lnA, p, lnB, q, c, yMax, bracketLow(lnA, p, lnB, q, yMax));
     }
     const target = SPACING * (p > q ? -p : -q);
-    const cells = wHi > wLo && tHi > tLo && yMin < tHi && yMax > tLo ? Math.ceil((tHi - tLo) / target) : 0;
+    // At most MAX_CELLS cells: an exponent near 0 (b or c of −1e-300) would ask for more cells
+    // than memory holds; a coarser table only gives a start that needs a few more Newton steps.
+    const cells = wHi > wLo && tHi > tLo && yMin < tHi && yMax > tLo ? Math.min(MAX_CELLS, Math.ceil((tHi - tLo) / target)) : 0;
     const h = cells > 0 ? (tHi - tLo) / cells : 1;
     this.cells = cells;
     this.tMin = tLo;
@@ -222,6 +229,8 @@ export class TwoTermReversalsTable {
     const ua = -a / p;
     const ub = -b / q;
     const lo = ua > ub ? ua : ub;
+    // no root below the cut-off (an exponent near 0 keeps its term above the target): as plain
+    if (!(lo < lnCutoff)) return this.plain(lnTarget, shift);
     const ha = ua - Math.LN2 / p;
     const hb = ub - Math.LN2 / q;
     const hi = ha > hb ? ha : hb;
@@ -238,6 +247,10 @@ export class TwoTermReversalsTable {
       const e = s - 1;
       const lnS = e > -1e-3 && e < 1e-3 ? e * (1 - e * (0.5 - e * (1 / 3 - e * (0.25 - e * 0.2)))) : Math.log(s);
       const step = (-lnS * s) / (p * ta + q * tb);
+      // After the first step every exact step is positive (it lands at or below the root of a
+      // convex decreasing function); one that is not is rounding at the root. This stops the
+      // solve where C·step² cannot (an exponent near 0 makes C huge).
+      if ((k > 0 && !(step > 0)) || u + step === u) return u <= 1e-12 ? 1 : Math.exp(u);
       u += step;
       if (u > hi) u = hi;
       if (u >= lnCutoff) return Infinity;

@@ -1,6 +1,6 @@
 import type { Material } from './Material';
 import { MaterialError } from './MaterialError';
-import { materialIssues } from './materialIssues';
+import { materialIssues, N_MAX, N_MIN } from './materialIssues';
 
 /**
  * Throws {@link MaterialError} listing every bad field unless `material` satisfies the rules of
@@ -22,7 +22,7 @@ export function assertMaterial(material: Material): void {
     m.epsilonF! > 0 && m.epsilonF! < Infinity &&
     m.c! < 0 && m.c! > -Infinity &&
     m.K! > 0 && m.K! < Infinity &&
-    m.n! > 0 && m.n! < 1
+    m.n! >= N_MIN && m.n! <= N_MAX
   ) {
     return;
   }

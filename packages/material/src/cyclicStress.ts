@@ -38,12 +38,18 @@ export function cyclicStress(material: Material, strain: number): number {
   // Error after a step is at most C·step² with C = max F'' / (2 min F') = (m − 1)² / 8.
   const c = ((m - 1) * (m - 1)) / 8;
   for (let k = 0; k < MAX_ITERATIONS; k++) {
-    const te = Math.exp(s - lnE - lnEps);
-    const tp = Math.exp(m * (s - lnK) - lnEps);
+    // The larger exponent is factored out: no term overflows or underflows to a NaN step.
+    const ee = s - lnE - lnEps;
+    const ep = m * (s - lnK) - lnEps;
+    const top = ee > ep ? ee : ep;
+    const te = Math.exp(ee - top);
+    const tp = Math.exp(ep - top);
     const sum = te + tp;
-    const step = (Math.log(sum) * sum) / (te + m * tp);
-    s -= step;
-    if (c * step * step <= 1e-15 || step === 0) {
+    const step = ((top + Math.log(sum)) * sum) / (te + m * tp);
+    // Every exact step from above the root is positive; one that is not is rounding at the root.
+    const done = !(step > 0) || s - step === s; // a step below half an ulp leaves s where it is
+    if (!done) s -= step;
+    if (done || c * step * step <= 1e-15) {
       const sigma = Math.exp(s);
       return strain > 0 ? sigma : -sigma;
     }

@@ -13,6 +13,7 @@ export { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals
 export { HANDBOOK_STEELS_PROVENANCE, HANDBOOK_STEELS_SOURCE, handbookSteels } from './handbookSteels';
 export { MaterialError } from './MaterialError';
 export { assertMaterial } from './assertMaterial';
+export { checkReversalsOptions } from './checkReversalsOptions';
 export { compatibleCyclicCurve } from './compatibleCyclicCurve';
 export { cyclicStrain } from './cyclicStrain';
 export { cyclicStress } from './cyclicStress';

@@ -1,5 +1,10 @@
 import type { MaterialIssue } from './MaterialError';
 
+/** Smallest cyclic strain-hardening exponent n' that validation accepts. */
+export const N_MIN = 0.01;
+/** Largest cyclic strain-hardening exponent n' that validation accepts. */
+export const N_MAX = 0.5;
+
 type Rule = readonly [field: string, test: (v: number) => boolean, rule: string];
 
 const REQUIRED: readonly Rule[] = [
@@ -9,7 +14,13 @@ const REQUIRED: readonly Rule[] = [
   ['epsilonF', (v) => v > 0, 'must be a finite number > 0'],
   ['c', (v) => v < 0, 'must be a finite number < 0'],
   ['K', (v) => v > 0, 'must be a finite number > 0'],
-  ['n', (v) => v > 0 && v < 1, 'must be a finite number with 0 < n < 1'],
+  [
+    'n',
+    (v) => v >= N_MIN && v <= N_MAX,
+    `must be a finite number with ${N_MIN} <= n <= ${N_MAX} (metals have about 0.05 to 0.35; below ${N_MIN} the cyclic ` +
+      'curve is nearly a step, elastic-perfectly plastic, that double precision cannot solve; above ' +
+      `${N_MAX} the plastic strain would exceed the elastic one far below any strength of the material)`,
+  ],
 ];
 
 const OPTIONAL_NUMBERS: readonly Rule[] = [
@@ -30,7 +41,8 @@ const KNOWN = new Set<string>([
  * what {@link defineMaterial} throws as one {@link MaterialError}; use it directly to show all
  * problems in a form without catching.
  *
- * Rules: E, σf', εf', K' finite and > 0; b and c finite and < 0; 0 < n' < 1; Su and HB finite
+ * Rules: E, σf', εf', K' finite and > 0; b and c finite and < 0; 0.01 <= n' <= 0.5 (metals
+ * have about 0.05 to 0.35; the rule says why outside is rejected); Su and HB finite
  * and > 0 when given; name, source, note strings when given; no unknown fields (a typo such as
  * `sigmaf` is reported, not ignored). The field `warnings` of an existing material is accepted
  * and recomputed.
@@ -38,7 +50,7 @@ const KNOWN = new Set<string>([
  * @example
  * materialIssues({ E: 0, sigmaF: 900, b: -0.09, epsilonF: 0.5, c: -0.6, K: 1000, n: 1.2 })
  * // returns [{ field: 'E', value: 0, rule: 'must be a finite number > 0' },
- * //          { field: 'n', value: 1.2, rule: 'must be a finite number with 0 < n < 1' }]
+ * //          { field: 'n', value: 1.2, rule: 'must be a finite number with 0.01 <= n <= 0.5 (metals …)' }]
  */
 export function materialIssues(input: unknown): MaterialIssue[] {
   if (input === null || typeof input !== 'object') {

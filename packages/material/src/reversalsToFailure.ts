@@ -1,5 +1,6 @@
 import { ArgumentError } from './ArgumentError';
 import { assertMaterial } from './assertMaterial';
+import { checkReversalsOptions } from './checkReversalsOptions';
 import type { Material } from './Material';
 import { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals } from './solveTwoTermReversals';
 
@@ -60,6 +61,7 @@ export function reversalsToFailure(
   options: ReversalsOptions = {},
 ): ReversalsResult {
   assertMaterial(material);
+  checkReversalsOptions(options, 'reversalsToFailure options');
   if (!(strainAmplitude >= 0 && strainAmplitude < Infinity)) {
     throw new ArgumentError('strainAmplitude', strainAmplitude, 'must be a finite number >= 0');
   }

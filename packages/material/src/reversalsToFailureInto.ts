@@ -1,5 +1,6 @@
 import { ArgumentError } from './ArgumentError';
 import { assertMaterial } from './assertMaterial';
+import { checkReversalsOptions } from './checkReversalsOptions';
 import type { Material } from './Material';
 import type { ReversalsOptions } from './reversalsToFailure';
 import { DEFAULT_CUTOFF_REVERSALS, DEFAULT_MAX_ITERATIONS, solveTwoTermReversals } from './solveTwoTermReversals';
@@ -43,6 +44,11 @@ export function reversalsToFailureInto(
   options: ReversalsOptions = {},
 ): Float64Array {
   assertMaterial(material);
+  checkReversalsOptions(options, 'reversalsToFailureInto options');
+  if (strainAmplitudes === null || typeof strainAmplitudes !== 'object' || typeof strainAmplitudes.length !== 'number') {
+    throw new ArgumentError('strainAmplitudes', strainAmplitudes, 'must be an array or typed array of numbers');
+  }
+  if (!(out instanceof Float64Array)) throw new ArgumentError('out', out, 'must be a Float64Array');
   const count = strainAmplitudes.length;
   if (out.length < count) throw new ArgumentError('out.length', out.length, `length must be >= ${count}`);
   if (flags !== undefined && flags.length < count) {

@@ -79,7 +79,7 @@ export function solveTwoTermReversals(
   const ua = -a / p;
   const ub = -b / q;
   const lo = ua > ub ? ua : ub;
-  if (lo !== lo) {
+  if (ua !== ua || ub !== ub) {
     // one of the logs is NaN, or lnTarget is an infinity that another equal infinity cancels
     const field = lnA !== lnA ? 'lnA' : lnB !== lnB ? 'lnB' : 'lnTarget';
     throw new ArgumentError(
@@ -103,6 +103,10 @@ export function solveTwoTermReversals(
     const g = Math.log(s);
     if (u === 0 && g <= 0) return 1;
     const step = (-g * s) / (p * ta + q * tb);
+    // From the low end of the bracket every exact step is positive (monotone Newton on a convex
+    // decreasing function); one that is not is rounding at the root.
+    // A step below half an ulp of u leaves u where it is: converged as far as binary64 goes.
+    if (!(step > 0) || u + step === u) return u <= 1e-12 ? 1 : Math.exp(u);
     u += step;
     if (u > hi) u = hi;
     if (u >= lnCutoff) return Infinity;

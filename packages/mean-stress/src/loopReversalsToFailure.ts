@@ -1,4 +1,4 @@
-import type { Material, ReversalsOptions } from '@loopwise/material';
+import { checkReversalsOptions, type Material, type ReversalsOptions } from '@loopwise/material';
 import type { DamageParameter, DamageResult } from './DamageParameter';
 import { damageParameter, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from './damageParameters';
 import type { Loop } from './Loop';
@@ -21,7 +21,9 @@ export interface LoopReversalsOptions extends ReversalsOptions {
  * // returns { reversals: 8250.04..., value: 4, flags: [] }   (SWT)
  */
 export function loopReversalsToFailure(material: Material, loop: Loop, options: LoopReversalsOptions = {}): DamageResult {
+  checkReversalsOptions(options, 'loopReversalsToFailure options', ['parameter']);
   const p = options.parameter ?? DEFAULT_DAMAGE_PARAMETER;
   const parameter = typeof p === 'string' ? damageParameter(p) : p;
-  return parameter.reversalsToFailure(material, loop, options);
+  const { parameter: _parameter, ...solve } = options;
+  return parameter.reversalsToFailure(material, loop, solve);
 }

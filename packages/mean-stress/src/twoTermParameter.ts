@@ -1,5 +1,6 @@
 import {
   assertMaterial,
+  checkReversalsOptions,
   DEFAULT_CUTOFF_REVERSALS,
   DEFAULT_MAX_ITERATIONS,
   REVERSALS_TABLE_MIN_COUNT,
@@ -117,6 +118,7 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
     material: Material, loops: LoopColumns, out: Float64Array, flags?: Uint8Array, options: ReversalsOptions = {},
   ): Float64Array {
     assertMaterial(material);
+    checkReversalsOptions(options, `${c.name}.reversalsToFailureInto options`);
     const count = checkColumns(loops, out, flags);
     const t = c.terms(material);
     const cutoff = options.cutoffReversals ?? DEFAULT_CUTOFF_REVERSALS;
@@ -202,6 +204,7 @@ export function twoTermParameter<Name extends string, T extends TwoTermTerms>(c:
 
     reversalsToFailure(material: Material, loop: Loop, options: ReversalsOptions = {}): DamageResult {
       assertMaterial(material);
+      checkReversalsOptions(options, `${c.name}.reversalsToFailure options`);
       const row = oneRow(loop);
       const t = c.terms(material);
       const reversals = new Float64Array(1);

@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import type { Material } from '@loopwise/material';
 import type { DamageParameter } from './DamageParameter';
 import { estimateWalkerGamma } from './estimateWalkerGamma';
@@ -67,6 +68,11 @@ interface WalkerTerms extends TwoTermTerms {
  * // returns { reversals: 9209.21..., value: ..., flags: [] }
  */
 export function createWalker(options: WalkerOptions): DamageParameter<'walker'> {
+  if (options === null || typeof options !== 'object') {
+    throw new MeanStressError('invalid-gamma', 'options', options, 'must be an object { gamma }');
+  }
+  const u = unknownField(options, ['gamma'], 'createWalker options');
+  if (u !== undefined) throw new MeanStressError('invalid-gamma', u.field, u.value, u.rule);
   const gammaOption = options.gamma;
   checkGamma(gammaOption);
   return twoTermParameter({

@@ -75,8 +75,10 @@ export interface LifeEstimate {
  * Special cases: D = 0 gives Infinity repeats (and Infinity service); never NaN.
  *
  * @throws {MinerError} `invalid-argument` for D NaN, ±Infinity or negative; `invalid-critical-damage`
- *   for Dcrit ≤ 0 or not finite; `invalid-scatter-factor` for j < 1 or not finite;
- *   `invalid-amount` for a unit amount that is ≤ 0 or not finite, or an empty label.
+ *   for Dcrit ≤ 0 or not finite, or so small that a positive life underflows to 0;
+ *   `invalid-scatter-factor` for j < 1 or not finite, or so large that the design life
+ *   underflows to 0; `invalid-amount` for a unit amount that is ≤ 0 or not finite, an empty
+ *   label, or an amount so small that the design service underflows to 0.
  * @example
  * lifeFromDamage(0.002, { criticalDamage: 0.5, scatterFactor: 2, unit: { label: 'h', perRepeat: 0.25 } });
  * // returns { damagePerRepeat: 0.002, criticalDamage: 0.5, scatterFactor: 2, repeats: 250,
@@ -96,6 +98,13 @@ export function lifeFromDamage(damagePerRepeat: number, options: LifeOptions = {
   }
   const repeats = damagePerRepeat === 0 ? Infinity : criticalDamage / damagePerRepeat;
   const designRepeats = repeats / scatterFactor;
+  // A positive life that underflows to 0 would read as "fails at once": an input error instead.
+  if (repeats === 0) {
+    throw new MinerError('invalid-critical-damage', 'criticalDamage', criticalDamage, `is so small against the damage per repeat (${damagePerRepeat}) that the life underflows a double`);
+  }
+  if (designRepeats === 0) {
+    throw new MinerError('invalid-scatter-factor', 'scatterFactor', scatterFactor, `is so large against the life (${repeats} repeats) that the design life underflows a double`);
+  }
   const base = { damagePerRepeat, criticalDamage, scatterFactor, repeats, designRepeats };
   const unit = options.unit;
   if (unit === undefined) return base;
@@ -107,5 +116,9 @@ export function lifeFromDamage(damagePerRepeat: number, options: LifeOptions = {
   if (!(perRepeat > 0 && perRepeat < Infinity)) {
     throw new MinerError('invalid-amount', 'unit.perRepeat', perRepeat, 'must be a finite number > 0 (the duration of one repeat)');
   }
-  return { ...base, service: repeats * perRepeat, designService: designRepeats * perRepeat, unit: unit.label, perRepeat };
+  const designService = designRepeats * perRepeat;
+  if (designService === 0) {
+    throw new MinerError('invalid-amount', 'unit.perRepeat', perRepeat, 'is so small that the design life in service units underflows a double');
+  }
+  return { ...base, service: repeats * perRepeat, designService, unit: unit.label, perRepeat };
 }

@@ -34,3 +34,12 @@ describe('lifeFromDamage(damagePerRepeat, {criticalDamage?, scatterFactor?, unit
     expect(Object.values(lifeFromDamage(5e-324, { unit: { label: 'km', perRepeat: 1e-300 } })).some((v) => Number.isNaN(v))).toBe(false);
   });
 });
+
+describe('lifeFromDamage: a positive life never underflows to 0 (issue 15)', () => {
+  test("lifeFromDamage(1.4e-6, { criticalDamage: 1e-300, scatterFactor: 1e300 }) throws invalid-scatter-factor instead of designRepeats 0", () => {
+    expect(() => lifeFromDamage(1.4e-6, { criticalDamage: 1e-300, scatterFactor: 1e300 })).toThrow(expect.objectContaining({ code: 'invalid-scatter-factor', field: 'scatterFactor' }));
+    expect(() => lifeFromDamage(1e10, { criticalDamage: 5e-324 })).toThrow(expect.objectContaining({ code: 'invalid-critical-damage' }));
+    expect(() => lifeFromDamage(1, { criticalDamage: 1e-300, unit: { label: 'km', perRepeat: 1e-30 } })).toThrow(expect.objectContaining({ field: 'unit.perRepeat' }));
+    expect(lifeFromDamage(1.4e-6, { criticalDamage: 1e-300, scatterFactor: 10 }).designRepeats).toBeGreaterThan(0);
+  });
+});

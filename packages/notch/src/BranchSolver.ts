@@ -24,6 +24,14 @@ const CURVE_STRIDE = 6;
  * a call with few reversals never pays for a table and a long one pays at most twice.
  */
 const CURVE_AFTER = 1 << 15;
+/**
+ * Neuber and Glinka solves a solver does by the plain log-space Newton before it takes its
+ * start and answer tables (built once per material and rule, then shared): building them costs
+ * about as many solves as this, so a short call (a few hundred reversals) never pays for them
+ * and a long one pays at most twice. Counted per solver, like CURVE_AFTER, so a result depends on
+ * the solver's own solves only.
+ */
+const TABLES_AFTER = 1 << 15;
 /** Index of the 32-bit word of a binary64 that holds its sign, exponent and leading bits. */
 const HI_WORD = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
 
@@ -34,6 +42,12 @@ export type BranchKind = 'neuber' | 'glinka' | 'linear' | 'local-strain';
  * The first-loading local response as a function of the pseudo-elastic amplitude a >= 0 (for
  * `local-strain`, of the local strain amplitude), fast enough for the tracker's hot path. A
  * Masing branch of range Δ is 2× the response at Δ/2. Internal; not exported from the package.
+ *
+ * Short calls build no table: Neuber and Glinka solve by the pure rules' plain log-space Newton
+ * (to 1e-15, elastic exactly where the plastic term is below 1.1e-16 of the elastic one) until
+ * the solver has done TABLES_AFTER (2^15) solves of its own; only then does it take the start
+ * and answer tables below (built on the first request for a material and rule, then shared).
+ * Counting per solver keeps every result independent of the calls that ran before.
  *
  * Neuber and Glinka: a cubic Hermite table of s = ln σ against a gives a start accurate to
  * about 4e-8 relative, then Newton steps on G(σ) = σ² + w·E·σ·(σ/K')^(1/n') − a² (w = 1 Neuber,
@@ -76,21 +90,28 @@ export class BranchSolver {
   private readonly lnK: number = 0;
   private readonly w: number = 0;
   private readonly wE: number = 0;
-  /** Cell key (leading 12 + CELL_BITS bits of the encoding) of the table's first cell. */
-  private readonly keyLo: number = 0;
-  private readonly cells: number = 0;
+  /** Cell key (leading 12 + CELL_BITS bits of the encoding) of the start table's first cell. */
+  private keyLo = 0;
+  /** Cells of the start table (0 until the solver takes its tables). */
+  private cells = 0;
   /** Per cell: left end, 1 / width, then the cubic's coefficients in the cell fraction. */
-  private readonly tab: Float64Array;
+  private tab: Float64Array = new Float64Array(0);
+  /** Amplitudes up to this are elastic to rounding (plastic term below 1.1e-16 of the elastic one). */
+  private readonly aElastic: number = 0;
+  /** Neuber or Glinka solves done by plain Newton so far; -1 once the tables were taken. */
+  private tableSolves = 0;
+  /** Solves after which the tables are taken (TABLES_AFTER; tests of the tables pass 0). */
+  private readonly tablesAfter: number = 0;
   /** Scratch for reading the encoding of an amplitude (the high word holds exponent and leading bits). */
   private readonly bits = new Float64Array(1);
   private readonly bitsHi = new Uint32Array(this.bits.buffer, HI_WORD * 4, 1);
   private readonly tol: number = 0;
   private readonly maxIterations: number = 0;
   /** The answer table in use (empty when the tolerance needs Newton steps), its first cell key, cells and cell bits. */
-  private readonly ans: Float64Array;
-  private readonly ansKeyLo: number = 0;
-  private readonly ansCells: number = 0;
-  private readonly ansShift: number = 0;
+  private ans: Float64Array = new Float64Array(0);
+  private ansKeyLo = 0;
+  private ansCells = 0;
+  private ansShift = 0;
   /** The curve table in use (empty until built or when none serves), its first cell key and cells. */
   private curve: Float64Array = new Float64Array(0);
   private curveKeyLo = 0;
@@ -103,6 +124,7 @@ export class BranchSolver {
     readonly kind: BranchKind,
     tolerance: number,
     maxIterations: number,
+    tablesAfter: number = TABLES_AFTER,
   ) {
     this.E = material.E;
     this.m = 1 / material.n;
@@ -112,55 +134,48 @@ export class BranchSolver {
     this.tol = tolerance;
     this.maxIterations = maxIterations;
     const m = this.m;
-    const lnE = Math.log(this.E);
-    const lnW = Math.log(this.w);
-    // t* = ln a where the elastic and plastic terms are equal; the table spans from where the
-    // plastic term is 1e-6 of the elastic one to e^12 above t*, whole binades of a.
-    const tStar = (m * this.lnK - lnW - lnE) / (m - 1);
-    const tLo = tStar + Math.log(1e-6) / (m - 1);
-    const tHi = tStar + 12;
-    const binLo = Math.max(-1020, Math.min(1020, Math.floor(tLo / Math.LN2)));
-    const binHi = Math.max(binLo, Math.min(1020, Math.ceil(tHi / Math.LN2)));
-    const table = kind === 'neuber' || kind === 'glinka';
-    const cells = table ? (binHi - binLo) << CELL_BITS : 0;
-    this.cells = cells;
-    this.keyLo = (binLo + 1023) << CELL_BITS;
-    this.tab = new Float64Array(STRIDE * cells);
-    const perBinade = 1 << CELL_BITS;
-    let aL = 0;
-    let sL = 0;
-    let dL = 0;
-    for (let j = 0; j <= cells; j++) {
-      const a = Math.pow(2, binLo + (j >> CELL_BITS)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
-      const sj = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * this.lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
-      const q = Math.exp((m - 1) * sj + lnW - m * this.lnK + lnE);
-      const dj = (2 * (1 + q)) / (2 + (1 + m) * q); // ds/dt at the node, t = ln a
-      if (j > 0) {
-        // Cubic Hermite on cell j − 1 = [aL, a] in its fraction f = (a' − aL) / width, with
-        // ds/df = ds/dt · width / a' at either end.
-        const width = a - aL;
-        const d0 = (dL * width) / aL;
-        const d1 = (dj * width) / a;
-        const k = STRIDE * (j - 1);
-        this.tab[k] = aL;
-        this.tab[k + 1] = 1 / width;
-        this.tab[k + 2] = sL;
-        this.tab[k + 3] = d0;
-        this.tab[k + 4] = 3 * (sj - sL) - 2 * d0 - d1;
-        this.tab[k + 5] = 2 * (sL - sj) + d0 + d1;
-      }
-      aL = a;
-      sL = sj;
-      dL = dj;
-    }
-    const answers = table ? answerTableFor(material, kind, tolerance) : null;
-    this.ans = answers !== null ? answers.tab : new Float64Array(0);
-    this.ansKeyLo = answers !== null ? answers.keyLo : 0;
-    this.ansCells = answers !== null ? answers.cells : 0;
-    this.ansShift = answers !== null ? 20 - answers.bits : 0;
+    // ln a where the plastic term w·E·(a/K')^m / a is 1.1e-16 of the elastic one (as the pure rules)
+    this.aElastic = Math.exp((Math.log(1.1e-16) - Math.log(this.w) - Math.log(this.E) + m * this.lnK) / (m - 1));
+    this.tablesAfter = tablesAfter;
+    if (kind !== 'neuber' && kind !== 'glinka') this.tableSolves = -1;
+    else if (tablesAfter <= 0) this.useTables();
+    // The start and answer tables come later: after TABLES_AFTER solves of this solver's own.
     // No shortcut to a curve table another solver already built: a solver switches after its
     // own CURVE_AFTER solves, so its results depend on its own solves only, never on which
     // calls ran before in the process (the cache only saves the build).
+  }
+
+  /** Takes the material's start table and, if one serves the tolerance, its answer table. */
+  private useTables(): void {
+    this.tableSolves = -1;
+    const start = startTableFor(this.material, this.kind);
+    this.tab = start.tab;
+    this.keyLo = start.keyLo;
+    this.cells = start.cells;
+    const answers = answerTableFor(this.material, this.kind, this.tol);
+    if (answers !== null) {
+      this.ans = answers.tab;
+      this.ansKeyLo = answers.keyLo;
+      this.ansCells = answers.cells;
+      this.ansShift = 20 - answers.bits;
+    }
+  }
+
+  /** Plain log-space Newton of the energy equation (the rule functions' method) into stress, strain. */
+  private solvePlain(a: number): void {
+    if (a <= this.aElastic) {
+      this.stress = a;
+      this.strain = a / this.E;
+      return;
+    }
+    const m = this.m;
+    const lnK = this.lnK;
+    const lnE = Math.log(this.E);
+    // to rounding (1e-15), whatever the tolerance: a short call gets the pure rule's answer
+    const s = solveEnergyEquation(2, -lnE, 1 + m, Math.log(this.w) - m * lnK, 2 * Math.log(a) - lnE, 1e-15, this.maxIterations, 'BranchSolver');
+    const sigma = Math.exp(s);
+    this.stress = sigma;
+    this.strain = sigma / this.E + Math.exp(m * (s - lnK));
   }
 
   /** Takes `table` as the curve table if it serves this solver's tolerance; asks only once. */
@@ -206,13 +221,21 @@ export class BranchSolver {
     if (kind === 'linear') {
       const e = a / this.E;
       this.strain = e;
-      this.stress = this.curveStress(e);
+      // a strain that overflows leaves Infinity for the tracker to report with its sample
+      this.stress = e < Infinity ? this.curveStress(e) : e;
       return;
     }
     if (a === 0) {
       this.stress = a;
       this.strain = a / this.E;
       return;
+    }
+    if (this.tableSolves >= 0) {
+      if (++this.tableSolves < this.tablesAfter) {
+        this.solvePlain(a);
+        return;
+      }
+      this.useTables();
     }
     this.bits[0] = a;
     if (this.ansCells > 0) {
@@ -267,7 +290,9 @@ export class BranchSolver {
       const err = (gpp * delta * delta) / (2 * gp * sigma);
       const next = sigma + delta;
       const e2 = m * m * r * r;
-      if ((err < 0 ? -err : err) <= tol && e2 <= tol) {
+      // delta = 0 is the root itself; it also stops the subnormal amplitudes, where gp·σ
+      // underflows and err is 0/0
+      if (delta === 0 || ((err < 0 ? -err : err) <= tol && e2 <= tol)) {
         this.stress = next;
         this.strain = next / this.E + p * (1 + m * r);
         return;
@@ -427,4 +452,79 @@ function hermite(tab: Float64Array, k: number, y0: number, y1: number, d0: numbe
   tab[k + 1] = d0;
   tab[k + 2] = 3 * (y1 - y0) - 2 * d0 - d1;
   tab[k + 3] = 2 * (y0 - y1) + d0 + d1;
+}
+
+/** A start table of s = ln σ against the amplitude (see {@link BranchSolver}). */
+interface StartTable {
+  keyLo: number;
+  cells: number;
+  tab: Float64Array;
+}
+
+/** Start tables by material and rule (built on first request, then shared). */
+const startTables = new WeakMap<Material, Map<BranchKind, StartTable>>();
+
+/** The start table of a material and rule, built on first request and shared. */
+function startTableFor(material: Material, kind: BranchKind): StartTable {
+  let byKind = startTables.get(material);
+  if (byKind === undefined) {
+    byKind = new Map();
+    startTables.set(material, byKind);
+  }
+  let t = byKind.get(kind);
+  if (t === undefined) {
+    t = buildStartTable(material, kind);
+    byKind.set(kind, t);
+  }
+  return t;
+}
+
+/**
+ * Cubic Hermite table of s = ln σ against the amplitude a, 2^CELL_BITS cells per binade, from
+ * where the plastic term is 1e-6 of the elastic one to e^12 above the amplitude where the two
+ * are equal; nodes solved to 1e-15, slopes ds/dt = 2/F'(s) (t = ln a).
+ */
+function buildStartTable(material: Material, kind: BranchKind): StartTable {
+  const E = material.E;
+  const m = 1 / material.n;
+  const lnK = Math.log(material.K);
+  const lnE = Math.log(E);
+  const lnW = Math.log(kind === 'glinka' ? 2 / (1 + material.n) : 1);
+  // t* = ln a where the elastic and plastic terms are equal; the table spans from where the
+  // plastic term is 1e-6 of the elastic one to e^12 above t*, whole binades of a.
+  const tStar = (m * lnK - lnW - lnE) / (m - 1);
+  const tLo = tStar + Math.log(1e-6) / (m - 1);
+  const tHi = tStar + 12;
+  const binLo = Math.max(-1020, Math.min(1020, Math.floor(tLo / Math.LN2)));
+  const binHi = Math.max(binLo, Math.min(1020, Math.ceil(tHi / Math.LN2)));
+  const cells = (binHi - binLo) << CELL_BITS;
+  const tab = new Float64Array(STRIDE * cells);
+  const perBinade = 1 << CELL_BITS;
+  let aL = 0;
+  let sL = 0;
+  let dL = 0;
+  for (let j = 0; j <= cells; j++) {
+    const a = Math.pow(2, binLo + (j >> CELL_BITS)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
+    const sj = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
+    const q = Math.exp((m - 1) * sj + lnW - m * lnK + lnE);
+    const dj = (2 * (1 + q)) / (2 + (1 + m) * q); // ds/dt at the node, t = ln a
+    if (j > 0) {
+      // Cubic Hermite on cell j − 1 = [aL, a] in its fraction f = (a' − aL) / width, with
+      // ds/df = ds/dt · width / a' at either end.
+      const width = a - aL;
+      const d0 = (dL * width) / aL;
+      const d1 = (dj * width) / a;
+      const k = STRIDE * (j - 1);
+      tab[k] = aL;
+      tab[k + 1] = 1 / width;
+      tab[k + 2] = sL;
+      tab[k + 3] = d0;
+      tab[k + 4] = 3 * (sj - sL) - 2 * d0 - d1;
+      tab[k + 5] = 2 * (sL - sj) + d0 + d1;
+    }
+    aL = a;
+    sL = sj;
+    dL = dj;
+  }
+  return { keyLo: (binLo + 1023) << CELL_BITS, cells, tab };
 }

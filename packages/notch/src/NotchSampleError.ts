@@ -1,4 +1,4 @@
-import { LoopwiseError } from '@loopwise/base';
+import { describeValue, LoopwiseError } from '@loopwise/base';
 
 /**
  * Thrown when a history sample is NaN or ±Infinity. Names the sample index (the index the
@@ -14,10 +14,10 @@ export class NotchSampleError extends LoopwiseError {
   declare readonly field: 'history';
   /** Sample index of the bad value. */
   declare readonly index: number;
-  /** The value (NaN, Infinity or -Infinity). */
+  /** The value (NaN, Infinity or -Infinity; in a plain array also a value that is not a number). */
   declare readonly value: number;
 
-  constructor(index: number, value: number) {
-    super('non-finite-sample', 'history', value, `history[${index}] = ${String(value)} (samples must be finite numbers)`, index);
+  constructor(index: number, value: unknown) {
+    super('non-finite-sample', 'history', value, `history[${index}] = ${describeValue(value)} (samples must be finite numbers)`, index);
   }
 }

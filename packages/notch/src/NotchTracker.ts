@@ -1,3 +1,5 @@
+import { NotchOptionError } from './NotchOptionError';
+import { checkSamples } from './checkSamples';
 import type { NotchTrackerOptions, ResolvedTrackerOptions } from './NotchTrackerOptions';
 import { TrackerCore, type NotchTrackerState, type NotchTrackResult } from './TrackerCore';
 
@@ -60,6 +62,7 @@ export class NotchTracker {
 
   /** Pushes a chunk of samples (indices count on from {@link nextIndex}); returns this. */
   push(chunk: ArrayLike<number>): this {
+    checkSamples(chunk, null, 0, Infinity, this.core.nextIndex);
     this.core.pushRange(chunk, 0, chunk.length);
     return this;
   }
@@ -83,8 +86,10 @@ export class NotchTracker {
    * tracker.pushIndexed(tp.values, tp.indices, 0, tp.values.length);
    * // same σ and ε, start and turn indices as tracker.push(history)
    */
-  pushIndexed(values: ArrayLike<number>, indices: ArrayLike<number>, from = 0, to = values.length): this {
-    this.core.pushIndexed(values, indices, from, to);
+  pushIndexed(values: ArrayLike<number>, indices: ArrayLike<number>, from = 0, to?: number): this {
+    checkSamples(values, indices ?? null, from, to ?? Infinity, 0);
+    if (indices == null) throw new NotchOptionError('indices', indices, 'must be an array or typed array of sample indices');
+    this.core.pushIndexed(values, indices, from, to ?? values.length);
     return this;
   }
 

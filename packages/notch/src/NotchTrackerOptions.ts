@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import { assertMaterial, defineMaterial, type Material } from '@loopwise/material';
 import type { BranchKind } from './BranchSolver';
 import { NotchOptionError } from './NotchOptionError';
@@ -83,12 +84,19 @@ function finite(field: string, v: unknown): number {
   return v;
 }
 
+/** The fields of {@link NotchTrackerOptions}; any other is an error naming the nearest of these. */
+const TRACKER_FIELDS: readonly string[] = [
+  'material', 'input', 'rule', 'Kt', 'Kf', 'loadToStress', 'initial', 'offset', 'strainLimit', 'recordReversals', 'tolerance', 'maxIterations',
+];
+
 /** Default relative tolerance of the tracker's branch solves (the verified answer-table path). */
 export const DEFAULT_TRACKER_TOLERANCE = 1e-10;
 
 /** Checks and defaults tracker options; every error names its field (internal). */
 export function resolveTrackerOptions(options: NotchTrackerOptions): ResolvedTrackerOptions {
   if (options == null || typeof options !== 'object') throw new NotchOptionError('options', options, 'must be an object');
+  const u = unknownField(options, TRACKER_FIELDS, 'notch tracker options');
+  if (u !== undefined) throw new NotchOptionError(u.field, u.value, u.rule);
   const material = options.material;
   if (material == null) throw new NotchOptionError('material', material, 'is required');
   assertMaterial(material);

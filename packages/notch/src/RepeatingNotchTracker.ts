@@ -1,3 +1,5 @@
+import { checkSamples } from './checkSamples';
+import { NotchOptionError } from './NotchOptionError';
 import type { LoopTable } from './LoopTable';
 import { NotchStateError } from './NotchStateError';
 import type { NotchTrackerOptions, ResolvedTrackerOptions } from './NotchTrackerOptions';
@@ -151,7 +153,11 @@ export class RepeatingNotchTracker {
   private finished = false;
 
   constructor(options: RepeatingTrackerOptions) {
-    const { expectedPoints, ...rest } = options ?? ({} as RepeatingTrackerOptions);
+    if (options === null || typeof options !== 'object') throw new NotchOptionError('options', options, 'must be an object');
+    const { expectedPoints, ...rest } = options;
+    if (expectedPoints !== undefined && !(Number.isInteger(expectedPoints) && expectedPoints >= 0)) {
+      throw new NotchOptionError('expectedPoints', expectedPoints, 'must be an integer >= 0');
+    }
     this.core = new TrackerCore(rest);
     this.expected = expectedPoints ?? 0;
   }
@@ -168,7 +174,9 @@ export class RepeatingNotchTracker {
    * event of a duty cycle); its loops are counted as described in the class comment. NaN or
    * ±Infinity throws NotchSampleError naming the sample index.
    */
-  push(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, to = values.length, repeats = 1): this {
+  push(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, end?: number, repeats = 1): this {
+    checkSamples(values, indices, from, end ?? Infinity, this.base);
+    const to = end ?? values.length;
     if (this.stage !== 'first') throw new NotchStateError('push', this.finished ? 'the tracking has finished' : 'the first pass has ended; use pushAgain or finish');
     if (to <= from) return this;
     checkRepeats(repeats);
@@ -206,7 +214,9 @@ export class RepeatingNotchTracker {
    * indices and repeats), in any chunks, from the start of the history. Points past the need
    * of {@link endFirstPass} are ignored, so a caller may push the whole history again.
    */
-  pushAgain(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, to = values.length, repeats = 1): this {
+  pushAgain(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, end?: number, repeats = 1): this {
+    checkSamples(values, indices, from, end ?? Infinity, this.base);
+    const to = end ?? values.length;
     if (this.stage === 'first') throw new NotchStateError('pushAgain', 'call endFirstPass first');
     if (this.finished) throw new NotchStateError('pushAgain', 'the tracking has finished');
     if (this.stage === 'done' || to <= from) return this;

@@ -356,8 +356,8 @@ export class TrackerCore {
     solver.solve();
     const s = solver.stress;
     const e = solver.strain;
-    if (s === Infinity) throw new NotchValidityError(index, 'stress', s);
-    if (e === Infinity) throw new NotchValidityError(index, 'strain', e);
+    if (!(s < Infinity)) throw new NotchValidityError(index, 'stress', s);
+    if (!(e < Infinity)) throw new NotchValidityError(index, 'strain', e);
     if (flag && e > this.strainLimit && !this.beyond) {
       this.beyond = true;
       this.firstBeyond = index;
@@ -365,12 +365,14 @@ export class TrackerCore {
     if (k === 0) {
       this.outStress = v < 0 ? -s : s;
       this.outStrain = v < 0 ? -e : e;
-    } else if (this.dir > 0) {
-      this.outStress = this.ss[k - 1] + 2 * s;
-      this.outStrain = this.se[k - 1] + 2 * e;
     } else {
-      this.outStress = this.ss[k - 1] - 2 * s;
-      this.outStrain = this.se[k - 1] - 2 * e;
+      // The branch's end from its origin: finite parts can still add up to ±Infinity.
+      const os = this.dir > 0 ? this.ss[k - 1] + 2 * s : this.ss[k - 1] - 2 * s;
+      const oe = this.dir > 0 ? this.se[k - 1] + 2 * e : this.se[k - 1] - 2 * e;
+      if (!(os - os === 0)) throw new NotchValidityError(index, 'stress', os);
+      if (!(oe - oe === 0)) throw new NotchValidityError(index, 'strain', oe);
+      this.outStress = os;
+      this.outStrain = oe;
     }
   }
 

@@ -1,6 +1,6 @@
 import { assertMaterial, type Material } from '@loopwise/material';
 import type { LocalRangeResponse, LocalResponse, NotchSolveOptions } from './LocalResponse';
-import { energyRule } from './neuber';
+import { energyRule, rangeOf } from './neuber';
 import { checkFinite, resolveSolveOptions } from './resolveSolveOptions';
 
 /**
@@ -53,6 +53,6 @@ export function glinkaRange(material: Material, pseudoRange: number, options?: N
   assertMaterial(material);
   checkFinite('pseudoRange', pseudoRange);
   const { tolerance, maxIterations } = resolveSolveOptions(options);
-  const r = energyRule(material, pseudoRange / 2, 2 / (1 + material.n), tolerance, maxIterations, 'glinkaRange');
-  return { stressRange: 2 * r.stress, strainRange: 2 * r.strain };
+  const r = energyRule(material, pseudoRange / 2, 2 / (1 + material.n), tolerance, maxIterations, 'glinkaRange', 'pseudoRange');
+  return rangeOf(r, pseudoRange);
 }

@@ -1,5 +1,7 @@
 import { assertMaterial, cyclicStress, masingStressRange, type Material } from '@loopwise/material';
 import type { LocalRangeResponse, LocalResponse } from './LocalResponse';
+import { LOCAL_STRAIN_OVERFLOWS } from './neuber';
+import { NotchOptionError } from './NotchOptionError';
 import { checkFinite } from './resolveSolveOptions';
 
 /**
@@ -15,6 +17,7 @@ import { checkFinite } from './resolveSolveOptions';
  *
  * @param material a valid material
  * @param pseudoStress pseudo-elastic local stress Kt·S (finite)
+ * @throws {NotchOptionError} when `pseudoStress` is not finite or Kt·S/E overflows a double.
  * @example
  * linearRule(material, 600).strain
  * // returns 600 / material.E
@@ -23,6 +26,7 @@ export function linearRule(material: Material, pseudoStress: number): LocalRespo
   assertMaterial(material);
   checkFinite('pseudoStress', pseudoStress);
   const strain = pseudoStress / material.E;
+  if (!(strain - strain === 0)) throw new NotchOptionError('pseudoStress', pseudoStress, LOCAL_STRAIN_OVERFLOWS);
   return { stress: cyclicStress(material, strain), strain };
 }
 
@@ -40,5 +44,6 @@ export function linearRuleRange(material: Material, pseudoRange: number): LocalR
   assertMaterial(material);
   checkFinite('pseudoRange', pseudoRange);
   const strainRange = pseudoRange / material.E;
+  if (!(strainRange - strainRange === 0)) throw new NotchOptionError('pseudoRange', pseudoRange, LOCAL_STRAIN_OVERFLOWS);
   return { stressRange: masingStressRange(material, strainRange), strainRange };
 }

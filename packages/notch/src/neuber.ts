@@ -1,5 +1,6 @@
 import { assertMaterial, type Material } from '@loopwise/material';
 import type { LocalRangeResponse, LocalResponse, NotchSolveOptions } from './LocalResponse';
+import { NotchOptionError } from './NotchOptionError';
 import { checkFinite, resolveSolveOptions } from './resolveSolveOptions';
 import { solveEnergyEquation } from './solveEnergyEquation';
 
@@ -25,7 +26,8 @@ import { solveEnergyEquation } from './solveEnergyEquation';
  *
  * @param material a valid material (see `defineMaterial`)
  * @param pseudoStress pseudo-elastic local stress Kt·S (finite)
- * @throws {NotchOptionError} when `pseudoStress` is not finite or an option is bad.
+ * @throws {NotchOptionError} when `pseudoStress` is not finite, so large that the local strain
+ * overflows a double, or an option is bad.
  * @throws {ConvergenceError} when `maxIterations` is reached (only with a cap set far too low).
  * @example
  * const r = neuber(material, 600);
@@ -59,8 +61,8 @@ export function neuberRange(material: Material, pseudoRange: number, options?: N
   assertMaterial(material);
   checkFinite('pseudoRange', pseudoRange);
   const { tolerance, maxIterations } = resolveSolveOptions(options);
-  const r = energyRule(material, pseudoRange / 2, 1, tolerance, maxIterations, 'neuberRange');
-  return { stressRange: 2 * r.stress, strainRange: 2 * r.strain };
+  const r = energyRule(material, pseudoRange / 2, 1, tolerance, maxIterations, 'neuberRange', 'pseudoRange');
+  return rangeOf(r, pseudoRange);
 }
 
 /**
@@ -74,6 +76,7 @@ export function energyRule(
   tolerance: number,
   maxIterations: number,
   solver: string,
+  field = 'pseudoStress',
 ): LocalResponse {
   const E = material.E;
   if (pseudo === 0) return { stress: pseudo, strain: pseudo / E };
@@ -94,5 +97,16 @@ export function energyRule(
     stress = Math.exp(s);
     strain = stress / E + Math.exp(m * (s - lnK));
   }
+  if (!(strain < Infinity)) throw new NotchOptionError(field, pseudo, LOCAL_STRAIN_OVERFLOWS);
   return pseudo > 0 ? { stress, strain } : { stress: -stress, strain: -strain };
+}
+
+/** The rule a pseudo-elastic input breaks when its local strain overflows a double. */
+export const LOCAL_STRAIN_OVERFLOWS = 'must be small enough that the local strain stays finite (it overflows a double here)';
+
+/** Twice a first-loading response (a Masing range); a strain range that overflows is an input error. */
+export function rangeOf(r: LocalResponse, pseudoRange: number): LocalRangeResponse {
+  const strainRange = 2 * r.strain;
+  if (!(strainRange - strainRange === 0)) throw new NotchOptionError('pseudoRange', pseudoRange, LOCAL_STRAIN_OVERFLOWS);
+  return { stressRange: 2 * r.stress, strainRange };
 }

@@ -1,3 +1,4 @@
+import { checkSamples } from './checkSamples';
 import type { NotchTrackResult } from './NotchTracker';
 import { TrackerCore } from './TrackerCore';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
@@ -20,6 +21,7 @@ import type { NotchTrackerOptions } from './NotchTrackerOptions';
  */
 export function trackNotch(history: ArrayLike<number>, options: NotchTrackerOptions): NotchTrackResult {
   const t = new TrackerCore(options);
+  checkSamples(history, null, 0, Infinity, 0);
   t.pushRange(history, 0, history.length);
   return t.takeResult(16, 16); // the tracker is discarded: its tables need no copy
 }

@@ -1,3 +1,4 @@
+import { checkSamples } from './checkSamples';
 import { LoopTable } from './LoopTable';
 import type { NotchTrackResult } from './NotchTracker';
 import type { NotchTrackerOptions } from './NotchTrackerOptions';
@@ -40,6 +41,7 @@ export interface NotchRepeatingResult {
  * // returns 2 (360/-240 and 300/-100 close in the stabilised pass)
  */
 export function trackNotchRepeating(block: ArrayLike<number>, options: NotchTrackerOptions): NotchRepeatingResult {
+  checkSamples(block, null, 0, Infinity, 0);
   const n = block.length;
   const t = new RepeatingNotchTracker({ ...options, expectedPoints: n });
   t.push(block);

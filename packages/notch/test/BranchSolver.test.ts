@@ -15,13 +15,40 @@ const solveWith = (s: BranchSolver, a: number) => {
 };
 const caseArb = realisticMaterial.chain((m) => fc.tuple(fc.constant(m), fc.constantFrom<'neuber' | 'glinka'>('neuber', 'glinka'), amplitude(m)));
 
-describe('BranchSolver(material, kind, tolerance, maxIterations)', () => {
+describe('BranchSolver(material, kind, tolerance, maxIterations, tablesAfter)', () => {
+  it('a new solver solves by plain Newton to rounding (the pure rules\' answer) until its own tablesAfter solves, then from its tables within the tolerance', () => {
+    checkProperty(
+      'tables after N solves',
+      fc.property(caseArb, fc.array(fc.double({ min: 0.01, max: 3000, noNaN: true }), { minLength: 1, maxLength: 8 }), ([m, kind, a], more) => {
+        const rule = kind === 'neuber' ? neuber : glinka;
+        // another solver of the same material takes (and builds) the tables first: this one still waits for its own solves
+        solveWith(new BranchSolver(m, kind, 1e-10, 60, 0), a);
+        const s = new BranchSolver(m, kind, 1e-10, 60, 3);
+        for (const [k, x] of [a, ...more, a].entries()) {
+          const want = rule(m, x);
+          solveWith(s, x);
+          const bound = k < 2 ? 2e-14 : 1e-10 + 1e-14; // solves 1 and 2 plain, from the third on the tables
+          expect(Math.abs(s.stress / want.stress - 1)).toBeLessThanOrEqual(bound);
+          expect(Math.abs(s.strain / want.strain - 1)).toBeLessThanOrEqual(bound);
+        }
+        // the default waits 2^15 solves: a new solver's first answer is the plain one, every time
+        const fresh = new BranchSolver(m, kind, 1e-10, 60);
+        solveWith(fresh, a);
+        const again = new BranchSolver(m, kind, 1e-10, 60);
+        solveWith(again, a);
+        expect(again.stress).toBe(fresh.stress);
+        expect(Math.abs(fresh.stress / rule(m, a).stress - 1)).toBeLessThanOrEqual(2e-14);
+      }),
+      { numRuns: 40 },
+    );
+  });
+
   it('solve() agrees with neuber() and glinka() within its tolerance: 1e-10 (answer table), 1e-12 and 1e-14 (Newton)', () => {
     checkProperty(
       'solver == pure rule',
       fc.property(caseArb, fc.constantFrom(1e-10, 1e-12, 1e-14), ([m, kind, a], tol) => {
         // Arrange
-        const s = new BranchSolver(m, kind, tol, 60);
+        const s = new BranchSolver(m, kind, tol, 60, 0);
         const want = kind === 'neuber' ? neuber(m, a) : glinka(m, a);
         // Act
         s.amplitude = a;
@@ -46,7 +73,7 @@ describe('BranchSolver(material, kind, tolerance, maxIterations)', () => {
     checkProperty(
       'answer table range',
       fc.property(wide, ([m, kind, a]) => {
-        const s = new BranchSolver(m, kind, 1e-10, 60);
+        const s = new BranchSolver(m, kind, 1e-10, 60, 0);
         const want = kind === 'neuber' ? neuber(m, a) : glinka(m, a);
         solveWith(s, a);
         expect(Math.abs(s.stress / want.stress - 1)).toBeLessThanOrEqual(1e-10);
@@ -65,8 +92,8 @@ describe('BranchSolver(material, kind, tolerance, maxIterations)', () => {
       fc.property(caseArb, ([m, kind, a]) => {
         // A cap of 1 (or 2) throws ConvergenceError if the solve needs more steps. (At 1e-10 the
         // answer table usually serves and takes no step; where it does not, one step does.)
-        expect(() => solveWith(new BranchSolver(m, kind, 1e-10, 1), a)).not.toThrow();
-        expect(() => solveWith(new BranchSolver(m, kind, 1e-15, 2), a)).not.toThrow();
+        expect(() => solveWith(new BranchSolver(m, kind, 1e-10, 1, 0), a)).not.toThrow();
+        expect(() => solveWith(new BranchSolver(m, kind, 1e-15, 2, 0), a)).not.toThrow();
       }),
     );
   });
@@ -74,11 +101,13 @@ describe('BranchSolver(material, kind, tolerance, maxIterations)', () => {
   it('a cap below what a solve needs throws ConvergenceError, never a wrong value', () => {
     // Nearly elastic, 3 MPa on SAE 1045 (below the table, start σ = a): at the tolerance 1e-15
     // the strain's linearisation needs a second step, so a cap of 1 must throw.
-    expect(() => solveWith(new BranchSolver(sae1045, 'neuber', 1e-15, 1), 3)).toThrow(ConvergenceError);
-    expect(() => solveWith(new BranchSolver(sae1045, 'neuber', 1e-15, 2), 3)).not.toThrow();
+    expect(() => solveWith(new BranchSolver(sae1045, 'neuber', 1e-15, 1, 0), 3)).toThrow(ConvergenceError);
+    expect(() => solveWith(new BranchSolver(sae1045, 'neuber', 1e-15, 2, 0), 3)).not.toThrow();
+    // A short call solves by plain Newton from the bracket: 3000 MPa (far into plasticity)
+    // needs more than one step there.
     const o = { material: sae1045, Kt: 1, tolerance: 1e-15 };
-    expect(() => trackNotch([0, 3, 0], { ...o, maxIterations: 1 })).toThrow(ConvergenceError);
-    expect(trackNotch([0, 3, 0], { ...o, maxIterations: 2 }).reversals.length).toBe(1);
+    expect(() => trackNotch([0, 3000, 0], { ...o, maxIterations: 1 })).toThrow(ConvergenceError);
+    expect(trackNotch([0, 3000, 0], { ...o, maxIterations: 60 }).reversals.length).toBe(1);
   });
 
   it('local strain and the linear rule agree with cyclicStress before and after the curve table takes over (tolerance 1e-10)', () => {

@@ -1,7 +1,8 @@
 import { decodeArray, encodeArray, type EncodedNumber } from '@loopwise/base';
 import type { CycleSink } from './CycleSink';
 import { CycleTable, type CycleTableState } from './CycleTable';
-import { CounterStateError, InvalidOptionError } from './errors';
+import { checkHistory, checkOptionFields } from './checkHistory';
+import { CounterStateError, InvalidOptionError, RangeOverflowError } from './errors';
 import { closeRepeatingResidue } from './closeRepeatingResidue';
 import { ReversalFilter, type ReversalFilterState } from './ReversalFilter';
 
@@ -70,6 +71,8 @@ export interface RainflowCounterState {
 }
 
 const BLOCK = 65536;
+/** Half the largest double: a difference of two values below it in magnitude never overflows. */
+const HALF_MAX = Number.MAX_VALUE / 2;
 const POLICIES: readonly ResiduePolicy[] = ['half', 'repeat', 'none'];
 
 /**
@@ -102,6 +105,8 @@ export class RainflowCounter {
   private readonly bufV = new Float64Array(BLOCK + 2);
   private readonly bufI = new Float64Array(BLOCK + 2);
   private finished = false;
+  /** Whether a point with |value| above HALF_MAX was ever stacked (then ranges can overflow). */
+  private huge = false;
   /**
    * True for a count that starts the history (startIndex 0) with the 'half' or 'none' policy:
    * ranges from the starting point that the next range reaches are final and leave the stack at
@@ -110,6 +115,7 @@ export class RainflowCounter {
   private readonly trimStart: boolean;
 
   constructor(options: RainflowCounterOptions = {}) {
+    checkOptionFields(options, ['residue', 'gate', 'startIndex', 'sink'], 'RainflowCounter options');
     const residue = options.residue ?? 'half';
     if (!POLICIES.includes(residue)) {
       throw new InvalidOptionError('residue', residue, "must be 'half', 'repeat' or 'none'");
@@ -158,6 +164,7 @@ export class RainflowCounter {
   /** Pushes the next samples of the history. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     this.assertOpen();
+    checkHistory(chunk, this.filter.nextIndex);
     const n = chunk.length;
     for (let s = 0; s < n; s += BLOCK) {
       const e = Math.min(n, s + BLOCK);
@@ -301,6 +308,7 @@ export class RainflowCounter {
     c.sv.set(v);
     c.si.set(i);
     c.top = v.length;
+    for (let k = 0; k < v.length; k++) if (v[k] > HALF_MAX || v[k] < -HALF_MAX) c.huge = true;
     return c;
   }
 
@@ -318,8 +326,24 @@ export class RainflowCounter {
     const si = this.si;
     const sink = this.sink;
     let top = this.top;
+    // A range overflows only if one of its ends has |value| above half the largest double: until
+    // such a value reaches the stack (sticky, rare) the per-point checks below are skipped.
+    let huge = this.huge;
+    if (!huge) {
+      for (let j = 0; j < k; j++) {
+        const v = values[j];
+        if (v > HALF_MAX || v < -HALF_MAX) {
+          huge = this.huge = true;
+          break;
+        }
+      }
+    }
     for (let j = 0; j < k; j++) {
-      sv[top] = values[j];
+      const v = values[j];
+      // Every pair of neighbours on the stack has a finite range (checked where a pair forms: here
+      // and after a close), so every cycle and every residue half cycle does.
+      if (huge && top > 0 && !(v - sv[top - 1] - (v - sv[top - 1]) === 0)) throw new RangeOverflowError(si[top - 1], indices[j], sv[top - 1], v);
+      sv[top] = v;
       si[top] = indices[j];
       top++;
       while (top >= 4) {
@@ -333,6 +357,7 @@ export class RainflowCounter {
           sv[top - 3] = d;
           si[top - 3] = si[top - 1];
           top -= 2;
+          if (huge && !(d - a - (d - a) === 0)) throw new RangeOverflowError(si[top - 2], si[top - 1], a, d);
         } else break;
       }
       if (top === 3 && this.trimStart) {
@@ -373,6 +398,7 @@ export class RainflowCounter {
     this.sv.set(later.sv.subarray(0, later.top));
     this.si.set(later.si.subarray(0, later.top));
     this.top = later.top;
+    this.huge = this.huge || later.huge;
     if (this.table && later.table) this.table.appendTable(later.table);
     later.finished = true;
   }

@@ -93,7 +93,7 @@ export class ReversalFilter {
 
   constructor(options: ReversalFilterOptions = {}) {
     const gate = options.gate ?? 0;
-    if (!(gate >= 0) || gate === Infinity) {
+    if (typeof gate !== 'number' || !(gate >= 0) || gate === Infinity) {
       throw new InvalidOptionError('gate', gate, 'must be a finite number >= 0');
     }
     const startIndex = options.startIndex ?? 0;

@@ -1,4 +1,5 @@
 import type { CycleSink } from './CycleSink';
+import { RangeOverflowError } from './errors';
 import { ReversalFilter } from './ReversalFilter';
 
 /**
@@ -42,6 +43,7 @@ export function closeRepeatingResidue(values: Float64Array, indices: Float64Arra
     tv[top] = tv[k];
     ti[top] = ti[k];
     top++;
+    if (top >= 2) checkRange(tv, ti, top);
     while (top >= 3) {
       const x = Math.abs(tv[top - 1] - tv[top - 2]);
       const y = Math.abs(tv[top - 2] - tv[top - 3]);
@@ -50,6 +52,13 @@ export function closeRepeatingResidue(values: Float64Array, indices: Float64Arra
       tv[top - 3] = tv[top - 1];
       ti[top - 3] = ti[top - 1];
       top -= 2;
+      if (top >= 2) checkRange(tv, ti, top);
     }
   }
+}
+
+/** The range between the last two points of the list (a pair that just formed) must be finite. */
+function checkRange(tv: Float64Array, ti: Float64Array, top: number): void {
+  const r = tv[top - 1] - tv[top - 2];
+  if (!(r - r === 0)) throw new RangeOverflowError(ti[top - 2], ti[top - 1], tv[top - 2], tv[top - 1]);
 }

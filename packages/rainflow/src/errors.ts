@@ -7,14 +7,15 @@ import { describeValue, LoopwiseError } from '@loopwise/base';
  */
 
 /**
- * A sample is NaN or ±Infinity. Code `'non-finite-sample'`, field `'history'`, `value` the
- * sample, `index` its index in the whole history (counted from the count's `startIndex`).
+ * A sample is NaN or ±Infinity, or in a plain array not a number at all (a string, null, a
+ * BigInt). Code `'non-finite-sample'`, field `'history'`, `value` the sample, `index` its index
+ * in the whole history (counted from the count's `startIndex`).
  */
 export class NonFiniteSampleError extends LoopwiseError {
   declare readonly index: number;
 
-  constructor(index: number, value: number) {
-    super('non-finite-sample', 'history', value, `sample ${index} is ${String(value)}: histories must hold finite numbers only`, index);
+  constructor(index: number, value: unknown) {
+    super('non-finite-sample', 'history', value, `sample ${index} is ${describeValue(value)}: histories must hold finite numbers only`, index);
     this.name = 'NonFiniteSampleError';
   }
 }

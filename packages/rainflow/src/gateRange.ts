@@ -1,4 +1,4 @@
-import { InvalidOptionError, NonFiniteSampleError } from './errors';
+import { InvalidOptionError, NonFiniteSampleError, RangeOverflowError } from './errors';
 
 /** How a gate is given: an absolute range, or a fraction of a full scale. */
 export interface GateOptions {
@@ -27,6 +27,9 @@ export interface GateOptions {
  */
 export function gateRange(options: GateOptions, history?: ArrayLike<number>): number {
   const { gate, gateFraction, fullScale } = options;
+  for (const [field, v] of [['gate', gate], ['gateFraction', gateFraction], ['fullScale', fullScale]] as const) {
+    if (v !== undefined && typeof v !== 'number') throw new InvalidOptionError(field, v, 'must be a number');
+  }
   if (gate !== undefined && gateFraction !== undefined) {
     throw new InvalidOptionError('gateFraction', gateFraction, 'give either gate or gateFraction, not both');
   }
@@ -62,5 +65,7 @@ export function gateRange(options: GateOptions, history?: ArrayLike<number>): nu
     if (x < lo) lo = x;
     if (x > hi) hi = x;
   }
-  return history.length === 0 ? 0 : gateFraction * (hi - lo);
+  const range = hi - lo;
+  if (range === Infinity) throw new RangeOverflowError(-1, -1, lo, hi);
+  return history.length === 0 ? 0 : gateFraction * range;
 }

@@ -1,3 +1,4 @@
+import { checkHistory } from './checkHistory';
 import { InvalidOptionError } from './errors';
 import type { GateOptions } from './gateRange';
 import { turningPoints } from './turningPoints';
@@ -29,6 +30,7 @@ export interface LevelCrossings {
  * levelCrossings([0, 3, -1, 2], [0, 1, 2, 3]).down; // returns Float64Array [1, 1, 1, 1]
  */
 export function levelCrossings(history: ArrayLike<number>, levels: ArrayLike<number>, options: GateOptions = {}): LevelCrossings {
+  checkHistory(levels as ArrayLike<number>, 0);
   const L = Float64Array.from(levels);
   for (let i = 0; i < L.length; i++) {
     if (!Number.isFinite(L[i])) throw new InvalidOptionError(`levels[${i}]`, L[i], 'levels must be finite');

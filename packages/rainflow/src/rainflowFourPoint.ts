@@ -1,3 +1,4 @@
+import { checkHistory, checkOptionFields } from './checkHistory';
 import type { CycleSink } from './CycleSink';
 import { gateRange, type GateOptions } from './gateRange';
 import { RainflowCounter, type RainflowResult, type ResiduePolicy } from './RainflowCounter';
@@ -36,6 +37,8 @@ export function rainflowFourPoint(
   history: ArrayLike<number>,
   options: RainflowOptions = {},
 ): RainflowResult {
+  checkOptionFields(options, ['gate', 'gateFraction', 'fullScale', 'residue', 'startIndex', 'sink'], 'rainflow options');
+  checkHistory(history, options.startIndex ?? 0);
   const gate = gateRange(options, history);
   const counter = new RainflowCounter({
     gate,

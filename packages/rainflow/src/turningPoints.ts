@@ -1,3 +1,4 @@
+import { checkHistory, checkOptionFields } from './checkHistory';
 import { gateRange, type GateOptions } from './gateRange';
 import { ReversalFilter, type ReversalFilterOptions } from './ReversalFilter';
 
@@ -37,6 +38,8 @@ const BLOCK = 65536;
  * turningPoints([0, 2, 1.5, 3], { gate: 1 }).values; // returns Float64Array [0, 3]
  */
 export function turningPoints(history: ArrayLike<number>, options: TurningPointOptions = {}): TurningPoints {
+  checkOptionFields(options, ['gate', 'gateFraction', 'fullScale', 'keepLeadingExtremes'], 'turningPoints options');
+  checkHistory(history);
   const gate = gateRange(options, history);
   const filter = new ReversalFilter({ gate, keepLeadingExtremes: options.keepLeadingExtremes === true });
   let values = new Float64Array(Math.min(history.length + 1, BLOCK));

@@ -1,5 +1,5 @@
 import { excerpt } from '../ingest/excerpt';
-import { nearestName } from './nearestName';
+import { nearestName } from '@loopwise/base';
 
 /** A field of a job (or material) file that breaks its rule; `field` is its path (`channels[0].column`). */
 export class JobFieldError extends Error {
