@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import { defineMaterial, type Material, type MaterialInput } from '@loopwise/material';
 import { damageParameters, DEFAULT_DAMAGE_PARAMETER, type DamageParameterName } from '@loopwise/mean-stress';
 import type { ServiceUnit } from '@loopwise/miner';
@@ -135,6 +136,31 @@ export interface ResolvedJob {
   tolerance: number;
 }
 
+/** Every field a job may have (an unknown one is an error with the nearest name). */
+const JOB_FIELDS: readonly (keyof LifeJob)[] = [
+  'material',
+  'stressLife',
+  'input',
+  'notch',
+  'rule',
+  'loadToStress',
+  'meanStress',
+  'walkerGamma',
+  'gate',
+  'gateFraction',
+  'fullScale',
+  'repeating',
+  'cutoffCycles',
+  'criticalDamage',
+  'scatterFactor',
+  'unit',
+  'initial',
+  'offset',
+  'timelineBins',
+  'worstLoopCount',
+  'tolerance',
+];
+
 function bad(field: string, value: unknown, rule: string): never {
   throw new EngineError('invalid-job', field, value, `${describe(value)} is invalid: ${rule}`);
 }
@@ -160,7 +186,17 @@ function positive(field: string, v: unknown, fallback: number): number {
  * job (a job file, a form) before any history is read.
  */
 export function resolveLifeJob(job: LifeJob): ResolvedJob {
-  if (job === null || typeof job !== 'object') bad('job', job, 'must be an object');
+  if (job === null || typeof job !== 'object' || Array.isArray(job)) bad('job', job, 'must be an object');
+  const unknown = unknownField(job, JOB_FIELDS, 'the job');
+  if (unknown !== undefined) throw new EngineError('invalid-job', unknown.field, unknown.value, unknown.rule);
+  if (job.notch !== undefined && job.notch !== null && typeof job.notch === 'object') {
+    const u = unknownField(job.notch, ['Kt', 'Kf', 'rule'], 'notch');
+    if (u !== undefined) throw new EngineError('invalid-job', `notch.${u.field}`, u.value, u.rule);
+  }
+  if (job.unit !== undefined && job.unit !== null && typeof job.unit === 'object') {
+    const u = unknownField(job.unit, ['label', 'perRepeat'], 'unit');
+    if (u !== undefined) throw new EngineError('invalid-job', `unit.${u.field}`, u.value, u.rule);
+  }
   if (job.stressLife !== undefined) return resolveStressLifeJob(job);
   if (job.material === undefined || job.material === null) bad('material', job.material, 'is required (or give stressLife for the stress-life route)');
   const material = materialOf(job.material);
@@ -279,9 +315,8 @@ function resolveStressLifeJob(job: LifeJob): ResolvedJob {
     }
   }
   if (job.initial !== undefined && job.initial !== 0) bad('initial', job.initial, 'the stress-life route counts cycles from the first sample; an initial value applies to the strain-life route only');
-  for (const k of Object.keys(spec)) {
-    if (!['curve', 'meanStress', 'kf', 'stressFactor'].includes(k)) bad(`stressLife.${k}`, (spec as unknown as Record<string, unknown>)[k], 'unknown field (known: curve, meanStress, kf, stressFactor)');
-  }
+  const u = unknownField(spec, ['curve', 'meanStress', 'kf', 'stressFactor'], 'stressLife');
+  if (u !== undefined) throw new EngineError('invalid-job', `stressLife.${u.field}`, u.value, u.rule);
   const c = spec.curve as SnCurve & SnCurveInput;
   if (c === null || typeof c !== 'object') bad('stressLife.curve', c, 'must be an S-N curve or { stress, cycles, slope, knees, cutoffCycles, measure }');
   let curve: SnCurve;

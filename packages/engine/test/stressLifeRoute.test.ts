@@ -201,3 +201,22 @@ describe('the stress-life route — corrections side by side and bad input', () 
     expect(() => assessLife([500, 700, 500], { stressLife: { curve, meanStress: { method: 'goodman', ultimateStrength: 600 } } })).toThrow(expect.objectContaining({ code: 'invalid-stress-cycle' }));
   });
 });
+
+describe('resolveLifeJob: unknown fields are errors (issue 15)', () => {
+  test('a misspelt job field, notch field or unit field names the nearest known one', () => {
+    const err = (job: unknown) => {
+      try {
+        assessLife([0, 100, 0], job as LifeJob);
+      } catch (e) {
+        return `${(e as EngineError).field}: ${(e as Error).message}`;
+      }
+      return 'no error';
+    };
+    const material = { E: 206000, sigmaF: 948, b: -0.092, epsilonF: 0.26, c: -0.445, K: 1258, n: 0.208 }; // SAE 1045 constants (Dowling, Table 14.1; value from memory)
+    expect(err({ material, Kt: 2 })).toMatch(/^Kt: .*unknown field 'Kt' in the job/);
+    expect(err({ material, notch: { kt: 2 } })).toMatch(/^notch\.kt: .*did you mean 'Kt'\?/);
+    expect(err({ material, unit: { label: 'h', perRepat: 2 } })).toMatch(/^unit\.perRepat: .*did you mean 'perRepeat'\?/);
+    expect(err({ material, meanstress: 'none' })).toMatch(/did you mean 'meanStress'\?/);
+    expect(err({ stressLife: { curve: iiwFatCurve(90), kF: 2 } })).toMatch(/^stressLife\.kF: .*did you mean 'kf'\?/);
+  });
+});
