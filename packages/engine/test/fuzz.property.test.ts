@@ -294,7 +294,10 @@ describe('fuzz over rainflow, the notch trackers, assessLife and LifeSession (is
         try {
           const s = streamed(h, cuts, j);
           if (batch === undefined) fail('LifeSession gave a report where assessLife threw', { h, cuts, m, j });
-          else if (plain(s) !== plain(batch) && knownGateOffset) gateOffsetDiffering++;
+          else if (plain(s) !== plain(batch) && knownGateOffset) {
+            gateOffsetDiffering++;
+            if (process.env.LOOPWISE_FUZZ_DUMP) appendFileSync(process.env.LOOPWISE_FUZZ_DUMP, `${JSON.stringify({ kind: 'gate: stream differs from batch', example: JSON.parse(JSON.stringify({ h, cuts, m, j }, exampleValue)) })}\n`);
+          }
           else if (plain(s) !== plain(batch)) {
             const a = JSON.parse(plain(s));
             const b = JSON.parse(plain(batch));
