@@ -72,6 +72,14 @@ export class LifeSession {
   private largestKept = 0;
   private secondNeeded = 0;
   private secondSeen = 0;
+  /**
+   * Per block of the first pass that emitted turning points: the samples read when it ended and
+   * the index of its last point. The second read must go on until the gate has settled the
+   * points up to the tracker's need (a leading extreme pending at the need may be dropped by a
+   * later sample): to the end of the first block that emitted a point past the need.
+   */
+  private emittedAt: number[] = [];
+  private emittedLast: number[] = [];
 
   private readonly keepLoops: boolean;
   private readonly binSize: number;
@@ -148,6 +156,7 @@ export class LifeSession {
     for (let s = 0; s < chunk.length; s += BLOCK) {
       const e = Math.min(chunk.length, s + BLOCK);
       const k = this.gated(chunk, s, e);
+      this.noteEmitted(this.samples + e, k);
       this.feed(k, false);
     }
     this.samples += chunk.length;
@@ -167,14 +176,18 @@ export class LifeSession {
       return 0;
     }
     // the last extreme is a turning point too
-    this.feed(this.filter.pendingInto(this.tv, this.ti, 0), false);
+    const last = this.filter.pendingInto(this.tv, this.ti, 0);
+    this.noteEmitted(this.samples, last);
+    this.feed(last, false);
     this.removed = this.filter.removedCount;
     if (this.samples === 0 || !this.job.repeating) {
       this.stage = 'done';
       return 0;
     }
     const need = (this.tracker as RepeatingNotchTracker).endFirstPass();
-    this.secondNeeded = need.whole ? this.samples : need.throughIndex + 1;
+    this.secondNeeded = need.whole ? this.samples : this.settledThrough(need.throughIndex);
+    this.emittedAt = [];
+    this.emittedLast = [];
     this.filter = new ReversalFilter({ gate: this.gate, keepLeadingExtremes: true });
     this.stage = 'second';
     return this.secondNeeded;
@@ -191,8 +204,9 @@ export class LifeSession {
     }
     this.secondSeen += want;
     if (this.secondSeen === this.secondNeeded) {
-      // the read ends at the last needed sample: its pending extremes are turning points too
-      this.feed(this.filter.pendingInto(this.tv, this.ti, 0), true);
+      // at the history's end its pending extremes are turning points too; a read that ends
+      // earlier has settled every point the tracker needs, and what is pending lies past them
+      if (this.secondNeeded === this.samples) this.feed(this.filter.pendingInto(this.tv, this.ti, 0), true);
       this.stage = 'done';
     }
     return this;
@@ -225,6 +239,24 @@ export class LifeSession {
       largestKept: this.removed > 0 ? Math.max(this.largestKept, Math.abs(this.job.initial)) : 0,
     });
     return reportFromTracked(tracked, events, this.job);
+  }
+
+  /** Notes a first-pass block that emitted `k` points (tv/ti[0..k)) when `samplesRead` had been read. */
+  private noteEmitted(samplesRead: number, k: number): void {
+    if (k === 0) return;
+    this.emittedAt.push(samplesRead);
+    this.emittedLast.push(this.ti[k - 1]);
+  }
+
+  /**
+   * Samples the second read needs for the points through sample index `through`: up to the end
+   * of the first block of the first pass that emitted a point past it (the gate had settled
+   * every point up to `through` by then, as it will again on the same samples), or all of them.
+   */
+  private settledThrough(through: number): number {
+    if (through < 0) return through + 1;
+    for (let b = 0; b < this.emittedLast.length; b++) if (this.emittedLast[b] > through) return this.emittedAt[b];
+    return this.samples;
   }
 
   private aggregate(): LoopAggregate {

@@ -48,13 +48,27 @@ describe('LifeSession', () => {
     expect(plain(streamed(history, [50000, 120000], job))).toBe(plain(assessLife(history, job)));
   });
 
-  test('the second pass needs only the samples up to the largest |value|', () => {
-    const history = [0, 100, -50, 300, -120, 80, -60, 40];
-    const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } });
+  test('the second pass needs only the samples up to the largest |value|, and the block in which the gate settles it', () => {
+    // 300 000 samples, the largest |value| at sample 3: the second read ends with the first
+    // block of 65 536 samples (in which the point after it was confirmed), not at the history's end
+    const history = Array.from({ length: 300000 }, (_, i) => (i === 3 ? 300 : 100 * Math.sin(i / 9)));
+    const job = { material: sae1045, notch: { Kt: 2 } };
+    const s = new LifeSession(job);
     s.push(history);
-    expect(s.endFirstPass()).toBe(4); // samples 0 … 3; 300 is the largest |value|
+    expect(s.endFirstPass()).toBe(65536);
     s.pushSecondPass(history);
-    expect(s.finish().damage.reusedFirstPass).toBe(true);
+    const r = s.finish();
+    expect(r.damage.reusedFirstPass).toBe(true);
+    expect(plain(r)).toBe(plain(assessLife(history, job)));
+  });
+
+  test('a gate as large as the history\'s range: the second read goes on until the gate has settled the largest |value| (fuzz case)', () => {
+    // found by the fuzz (issue 15): read only up to the largest |value|, the gate still held
+    // sample 1 as a leading extreme, which the full read drops; tiny values as found
+    const history = [-4.400000000004607e-201, -3.8000000000039785e-201, -1.340000000001403e-200, -8.0000000000083765e-202, -1.2000000000012565e-200, -6.400000000006701e-201];
+    const job = { material: sae1045, notch: { Kt: 2.92 }, gate: 1.3400000000014027e-200 };
+    expect(plain(streamed(history, [3], job))).toBe(plain(assessLife(history, job)));
+    expect(plain(streamed(history.map((x) => x * 1e202), [3], { ...job, gate: job.gate * 1e202 }))).toBe(plain(assessLife(history.map((x) => x * 1e202), { ...job, gate: job.gate * 1e202 })));
   });
 
   test('an initial value beyond the history needs the whole history again', () => {
@@ -95,7 +109,7 @@ describe('LifeSession', () => {
     expect(plain(streamed(history, [], job))).toBe(plain(assessLife(history, job)));
     const s = new LifeSession(job);
     s.push(history);
-    expect(s.endFirstPass()).toBe(3);
+    expect(s.endFirstPass()).toBe(4); // the whole (short) history: its one block settles the points
   });
 
   test('misuse and bad input get clear errors', () => {
@@ -105,7 +119,7 @@ describe('LifeSession', () => {
     s.push([0, 200, -100]);
     void s.endFirstPass();
     expect(() => s.push([1])).toThrow(EngineError);
-    expect(() => s.finish()).toThrow(/samples 0 to 1 again/);
+    expect(() => s.finish()).toThrow(/samples 0 to 2 again/);
     expect(() => new LifeSession(job).push([0, NaN])).toThrow(/sample 1/);
     expect(() => new LifeSession(job).finish()).toThrow(/no samples/);
   });

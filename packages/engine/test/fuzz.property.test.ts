@@ -267,13 +267,12 @@ describe('fuzz over rainflow, the notch trackers, assessLife and LifeSession (is
           const k = errorKind(e, 'assessDutyCycle');
           if (k) fail(k, { h, m, j });
         }
-        // Known engine defect, reported to the engine's owner (issue 15, item 2): with a gate the
-        // session's second read, which ends at the tracker's need and turns the gate's pending
-        // extremes into turning points there, can differ from the batch route's full second read
-        // (6 of 20000 cases, most with an offset; one chunk too). With a gate, stream = batch is
-        // counted, not failed, until it is fixed.
-        const knownGateOffset = j.gate !== undefined && j.gate > 0;
-        if (knownGateOffset) gateOffsetCases++;
+        // With a gate, stream = batch failed in 6 of 20000 cases until the session's second read
+        // went on until the gate had settled the largest |value| (LifeSession.settledThrough);
+        // gated cases are counted and checked like the others now.
+        const gated = j.gate !== undefined && j.gate > 0;
+        if (gated) gateOffsetCases++;
+        const knownGateOffset = false;
         // the session without kept loops: the same damage, life and warnings
         if (batch !== undefined && !knownGateOffset) {
           try {
@@ -314,7 +313,7 @@ describe('fuzz over rainflow, the notch trackers, assessLife and LifeSession (is
     );
     const summary = [...failures.entries()].map(([k, v]) => `${v.count} × ${k}\n    e.g. ${v.example}`);
     const codes = [...documented.entries()].map(([c, n]) => `${n} ${c}`).join(', ');
-    console.log(`fuzz: ${cases} cases; documented input errors from assessLife: ${codes || 'none'}; with a gate (stream = batch counted, not failed: known): ${gateOffsetDiffering} of ${gateOffsetCases} differ; ${summary.length} failure kinds${summary.length ? `:\n  ${summary.join('\n  ')}` : ''}`);
+    console.log(`fuzz: ${cases} cases; documented input errors from assessLife: ${codes || 'none'}; with a gate: ${gateOffsetCases} cases (stream = batch checked; ${gateOffsetDiffering} differ); ${summary.length} failure kinds${summary.length ? `:\n  ${summary.join('\n  ')}` : ''}`);
     expect(summary).toEqual([]);
   }, Math.max(60_000, RUNS * 5));
 });
