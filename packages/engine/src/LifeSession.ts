@@ -10,6 +10,13 @@ import { StressCycleStream } from './StressCycleStream';
 import { trackedFrom, trackerOptionsOf, type RowRange } from './trackHistory';
 import { gateBoundAt, warningsOf } from './warnings';
 
+/** A chunk must be an array or typed array of samples (its values are checked as they are read). */
+function checkChunk(chunk: unknown, method: string): void {
+  if (chunk === null || typeof chunk !== 'object' || !Number.isInteger((chunk as { length?: unknown }).length)) {
+    throw new EngineError('invalid-event', method, typeof chunk === 'object' ? String(chunk) : chunk, 'expects an array or typed array of samples');
+  }
+}
+
 /** Samples per block through the gate (the turning points of a block stay in cache). */
 const BLOCK = 65536;
 
@@ -148,6 +155,7 @@ export class LifeSession {
   /** Pushes the next samples of the first pass. NaN or ±Infinity throws with the sample index. */
   push(chunk: ArrayLike<number>): this {
     if (this.stage !== 'first') throw new EngineError('session-state', 'push', undefined, 'the first pass has ended; use pushSecondPass or finish');
+    checkChunk(chunk, 'push');
     if (this.stress !== null) {
       this.stress.push(chunk);
       this.samples += chunk.length;
@@ -197,6 +205,7 @@ export class LifeSession {
   pushSecondPass(chunk: ArrayLike<number>): this {
     this.endFirstPass();
     if (this.stage !== 'second') throw new EngineError('session-state', 'pushSecondPass', undefined, 'no second pass is open');
+    checkChunk(chunk, 'pushSecondPass');
     const want = Math.min(chunk.length, this.secondNeeded - this.secondSeen);
     for (let s = 0; s < want; s += BLOCK) {
       const e = Math.min(want, s + BLOCK);

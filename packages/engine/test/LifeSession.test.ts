@@ -222,3 +222,14 @@ describe('LifeSession({ onLoops })', () => {
     expect(() => new LifeSession({ material: sae1045 }, { keepLoops: true, onLoops: () => {} })).toThrow(EngineError);
   });
 });
+
+describe('LifeSession chunks', () => {
+  test('a chunk that is not an array of samples is an input error naming the method (fuzz report, issue 15)', () => {
+    const s = new LifeSession({ material: sae1045, notch: { Kt: 2 } });
+    expect(() => s.push(5 as unknown as number[])).toThrow(expect.objectContaining({ code: 'invalid-event', field: 'push' }));
+    expect(() => s.push(null as unknown as number[])).toThrow(EngineError);
+    expect(() => s.push('123' as unknown as number[])).toThrow(/push: .*array or typed array/);
+    s.push([0, 100, -50]);
+    expect(s.sampleCount).toBe(3);
+  });
+});
