@@ -7,6 +7,7 @@ import { LoopAggregate } from './LoopAggregate';
 import { reportFromTracked, reportHead, type ReportEvent } from './reportAssembly';
 import { emptyColumns, evaluatedColumns, residueHalfColumns } from './reportColumns';
 import { StressCycleStream } from './StressCycleStream';
+import { sampleText } from './schedule';
 import { trackedFrom, trackerOptionsOf, type RowRange } from './trackHistory';
 import { gateBoundAt, warningsOf } from './warnings';
 
@@ -300,7 +301,7 @@ export class LifeSession {
       }
     } catch (err) {
       if (err instanceof NotchSampleError) {
-        throw new EngineError('non-finite-sample', 'history', err.value, `sample ${err.index} of event 'history' is ${err.value}`, err.index);
+        throw new EngineError('non-finite-sample', 'history', err.value, `sample ${err.index} of event 'history' ${sampleText(err.value, off)}`, err.index);
       }
       throw err;
     }

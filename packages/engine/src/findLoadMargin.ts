@@ -13,7 +13,7 @@ export interface MarginOptions {
   minFactor?: number;
   /** Largest load factor scanned; default 20. */
   maxFactor?: number;
-  /** Scan points, log-spaced from minFactor to maxFactor; default 48. */
+  /** Scan points, log-spaced from minFactor to maxFactor; default 48, at most 10 000 (each is one assessment). */
   scanPoints?: number;
   /** Relative tolerance of the factor after bracketing; default 1e-6. */
   tolerance?: number;
@@ -50,6 +50,9 @@ export interface MarginResult {
  * one grid interval, with the life rising again inside it, can be missed; `nonMonotone` reports
  * whether the scan saw damage fall anywhere, and `scan` shows the whole curve.
  */
+/** The most scan points a margin search takes (each is one assessment of the whole schedule). */
+const MAX_SCAN_POINTS = 10000;
+
 export function findLoadMargin(events: DutyEvent[], job: LifeJob, options: MarginOptions): MarginResult {
   const resolved = resolveLifeJob(job);
   checkEvents(events);
@@ -63,7 +66,7 @@ export function findLoadMargin(events: DutyEvent[], job: LifeJob, options: Margi
     throw new EngineError('invalid-margin', 'minFactor', [minFactor, maxFactor], 'needs 0 < minFactor < maxFactor < Infinity');
   }
   const points = options.scanPoints ?? 48;
-  if (!Number.isInteger(points) || points < 2) throw new EngineError('invalid-margin', 'scanPoints', points, 'must be an integer >= 2');
+  if (!Number.isInteger(points) || points < 2 || points > MAX_SCAN_POINTS) throw new EngineError('invalid-margin', 'scanPoints', points, `must be an integer from 2 to ${MAX_SCAN_POINTS} (each point is one assessment of the whole schedule)`);
   const tolerance = options.tolerance ?? 1e-6;
   if (!(tolerance > 0 && tolerance < 0.1)) throw new EngineError('invalid-margin', 'tolerance', tolerance, 'must be in (0, 0.1)');
 

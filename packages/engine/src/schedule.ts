@@ -64,8 +64,13 @@ export function eventOfSample(starts: readonly number[], index: number): number 
 }
 
 /** The non-finite sample error of an event, naming the event and its own sample index. */
-export function sampleError(events: readonly DutyEvent[], k: number, index: number, value: number): EngineError {
-  return new EngineError('non-finite-sample', `events[${k}].history`, value, `sample ${index} of event '${events[k].name}' is ${value}`, index);
+export function sampleError(events: readonly DutyEvent[], k: number, index: number, value: number, offset = 0): EngineError {
+  return new EngineError('non-finite-sample', `events[${k}].history`, value, `sample ${index} of event '${events[k].name}' ${sampleText(value, offset)}`, index);
+}
+
+/** What is wrong with a sample: it is not finite, or (a finite value) it overflows with the job's offset added. */
+export function sampleText(value: number, offset: number): string {
+  return Number.isFinite(value) ? `is ${value}, which with the offset ${offset} added is beyond the largest number` : `is ${value}`;
 }
 
 /** The absolute gate of a job over the whole schedule (a fraction of the largest range needs a scan, or a declared full scale). */

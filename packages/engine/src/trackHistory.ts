@@ -113,7 +113,7 @@ export function trackDutyCycle(events: DutyEvent[], job: ResolvedJob): TrackedHi
     // turning points are finite; kept for safety: name the event and its own sample index
     if (err instanceof NotchSampleError) {
       const k = Math.max(0, starts.findIndex((_, j) => j === starts.length - 1 || starts[j + 1] > err.index));
-      throw sampleError(events, k, err.index - starts[k], err.value);
+      throw sampleError(events, k, err.index - starts[k], err.value, job.offset);
     }
     throw err;
   }

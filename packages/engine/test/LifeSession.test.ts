@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { assessLife, EngineError, LifeSession, type LifeReport } from '@loopwise/engine';
+import { assessLife, EngineError, findLoadMargin, LifeSession, type LifeReport } from '@loopwise/engine';
 import { checkProperty } from '../../../test/property';
 import { sae1045 } from './support';
 
@@ -231,5 +231,21 @@ describe('LifeSession chunks', () => {
     expect(() => s.push('123' as unknown as number[])).toThrow(/push: .*array or typed array/);
     s.push([0, 100, -50]);
     expect(s.sampleCount).toBe(3);
+  });
+});
+
+describe('messages of samples that overflow with the offset', () => {
+  test('a finite sample that overflows once the offset is added says so, in the session and the batch route', () => {
+    const job = { material: sae1045, notch: { Kt: 2 }, offset: 1e308 };
+    const s = new LifeSession(job);
+    expect(() => {
+      s.push([0, 1e308, 0]);
+      s.endFirstPass();
+    }).toThrow(/sample 1 of event 'history' is 1e\+308, which with the offset 1e\+308 added is beyond the largest number/);
+    expect(() => assessLife([0, 1e308, 0], job)).toThrow(/sample 1 of event 'history' is 1e\+308, which with the offset 1e\+308 added/);
+  });
+
+  test('the margin search bounds its scan points', () => {
+    expect(() => findLoadMargin([{ name: 'h', history: [0, 100, 0], repeats: 1 }], { material: sae1045 }, { targetRepeats: 1e5, scanPoints: 1e6 })).toThrow(/scanPoints: .*from 2 to 10000/);
   });
 });
