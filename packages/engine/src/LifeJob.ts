@@ -166,7 +166,12 @@ function bad(field: string, value: unknown, rule: string): never {
 }
 
 function describe(v: unknown): string {
-  return typeof v === 'number' ? String(v) : JSON.stringify(v) ?? String(v);
+  if (typeof v === 'bigint') return `${v}n (a BigInt)`;
+  try {
+    return typeof v === 'number' ? String(v) : JSON.stringify(v) ?? String(v);
+  } catch {
+    return String(v); // an object holding a BigInt or a cycle
+  }
 }
 
 function finite(field: string, v: unknown, fallback: number): number {
@@ -189,6 +194,10 @@ export function resolveLifeJob(job: LifeJob): ResolvedJob {
   if (job === null || typeof job !== 'object' || Array.isArray(job)) bad('job', job, 'must be an object');
   const unknown = unknownField(job, JOB_FIELDS, 'the job');
   if (unknown !== undefined) throw new EngineError('invalid-job', unknown.field, unknown.value, unknown.rule);
+  for (const k of JOB_FIELDS) {
+    if (job[k] === null) bad(k, null, 'must not be null (leave the field out for its default)');
+    if (typeof job[k] === 'bigint') bad(k, job[k], 'must be a number, not a BigInt');
+  }
   if (job.notch !== undefined && job.notch !== null && typeof job.notch === 'object') {
     const u = unknownField(job.notch, ['Kt', 'Kf', 'rule'], 'notch');
     if (u !== undefined) throw new EngineError('invalid-job', `notch.${u.field}`, u.value, u.rule);
@@ -294,6 +303,9 @@ export function strainLifeMaterial(job: ResolvedJob): Material {
 }
 
 function materialOf(m: Material | MaterialInput): Material {
+  if (typeof m !== 'object') {
+    bad('material', m, typeof m === 'string' ? 'must be a material object: look a handbook name up in handbookSteels of @loopwise/material' : 'must be a material object');
+  }
   return Object.isFrozen(m) && 'warnings' in m ? (m as Material) : defineMaterial(m);
 }
 

@@ -249,3 +249,21 @@ describe('messages of samples that overflow with the offset', () => {
     expect(() => findLoadMargin([{ name: 'h', history: [0, 100, 0], repeats: 1 }], { material: sae1045 }, { targetRepeats: 1e5, scanPoints: 1e6 })).toThrow(/scanPoints: .*from 2 to 10000/);
   });
 });
+
+describe('job fields of the wrong kind (issue 15, item 6)', () => {
+  test('a material by name, a BigInt or a null field is an invalid-job error naming the field, never a TypeError', () => {
+    const field = (job: unknown) => {
+      try {
+        assessLife([0, 100, 0], job as Parameters<typeof assessLife>[1]);
+      } catch (e) {
+        expect(e).toBeInstanceOf(EngineError);
+        return `${(e as EngineError).field}: ${(e as Error).message}`;
+      }
+      return 'no error';
+    };
+    expect(field({ material: 'SAE 1045' })).toMatch(/^material: .*handbookSteels/);
+    expect(field({ material: sae1045, gate: BigInt(10) })).toMatch(/^gate: .*BigInt/);
+    expect(field({ material: sae1045, notch: null })).toMatch(/^notch: .*must not be null/);
+    expect(field({ material: sae1045, meanStress: null })).toMatch(/^meanStress: .*must not be null/);
+  });
+});
