@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import { NotchSampleError, RepeatingNotchTracker } from '@loopwise/notch';
 import { NonFiniteSampleError, ReversalFilter } from '@loopwise/rainflow';
 import { EngineError } from './EngineError';
@@ -105,6 +106,9 @@ export class LifeSession {
   constructor(job: LifeJob, options: LifeSessionOptions = {}) {
     this.job = resolveLifeJob(job);
     const j = this.job;
+    if (options === null || typeof options !== 'object') throw new EngineError('invalid-job', 'options', String(options), 'must be { keepLoops, timelineBinSize, onLoops }');
+    const unknown = unknownField(options, ['keepLoops', 'timelineBinSize', 'onLoops'], 'the session options');
+    if (unknown !== undefined) throw new EngineError('invalid-job', unknown.field, unknown.value, unknown.rule);
     this.onLoops = options.onLoops ?? null;
     if (this.onLoops !== null && typeof this.onLoops !== 'function') throw new EngineError('invalid-job', 'onLoops', String(this.onLoops), 'must be a function');
     this.keepLoops = options.keepLoops ?? this.onLoops === null;

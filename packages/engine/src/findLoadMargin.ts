@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
 import { reportEvents, reportFromTracked, stressReportFromCounted } from './reportAssembly';
@@ -56,7 +57,10 @@ const MAX_SCAN_POINTS = 10000;
 export function findLoadMargin(events: DutyEvent[], job: LifeJob, options: MarginOptions): MarginResult {
   const resolved = resolveLifeJob(job);
   checkEvents(events);
-  const target = options?.targetRepeats;
+  if (options === null || typeof options !== 'object') throw new EngineError('invalid-margin', 'options', String(options), 'must be { targetRepeats, minFactor, maxFactor, scanPoints, tolerance }');
+  const unknown = unknownField(options, ['targetRepeats', 'minFactor', 'maxFactor', 'scanPoints', 'tolerance'], 'the margin options');
+  if (unknown !== undefined) throw new EngineError('invalid-margin', unknown.field, unknown.value, unknown.rule);
+  const target = options.targetRepeats;
   if (!(typeof target === 'number' && target > 0 && target < Infinity)) {
     throw new EngineError('invalid-margin', 'targetRepeats', target, 'must be a finite number > 0');
   }

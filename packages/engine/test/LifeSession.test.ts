@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { assessLife, EngineError, findLoadMargin, LifeSession, type LifeReport } from '@loopwise/engine';
+import { cycleLivesInto, defineSnCurve } from '@loopwise/stress-life';
 import { checkProperty } from '../../../test/property';
 import { sae1045 } from './support';
 
@@ -265,5 +266,15 @@ describe('job fields of the wrong kind (issue 15, item 6)', () => {
     expect(field({ material: sae1045, gate: BigInt(10) })).toMatch(/^gate: .*BigInt/);
     expect(field({ material: sae1045, notch: null })).toMatch(/^notch: .*must not be null/);
     expect(field({ material: sae1045, meanStress: null })).toMatch(/^meanStress: .*must not be null/);
+  });
+});
+
+describe('unknown option fields of the session, the margin search and the stress-life route', () => {
+  test('each names the nearest known field', () => {
+    const job = { material: sae1045 };
+    expect(() => new LifeSession(job, { keeploops: false } as never)).toThrow(/unknown field 'keeploops' in the session options; did you mean 'keepLoops'\?/);
+    expect(() => findLoadMargin([{ name: 'h', history: [0, 100, 0], repeats: 1 }], job, { targetRepeats: 1e5, scanpoints: 10 } as never)).toThrow(/did you mean 'scanPoints'\?/);
+    expect(() => defineSnCurve({ stress: 100, cycles: 2e6, slope: 3, cutoff: 1e8 } as never)).toThrow(/unknown field 'cutoff' in the curve/);
+    expect(() => cycleLivesInto(defineSnCurve({ stress: 100, cycles: 2e6, slope: 3 }), [10], [0], new Float64Array(1), { Kf: 2 } as never)).toThrow(/did you mean 'kf'\?/);
   });
 });

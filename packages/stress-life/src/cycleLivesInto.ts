@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import type { AmplitudeCorrection } from './AmplitudeCorrection';
 import { checkColumn } from './checks';
 import { checkedLife, cyclesAt } from './cyclesToFailure';
@@ -22,6 +23,8 @@ export interface CycleLifeOptions {
 /** Checks the options of the cycle route and returns [the correction with its defaults, the stress scale Kf·f]; errors name the option. */
 export function resolveCycleOptions(options: CycleLifeOptions): [AmplitudeCorrection, number] {
   if (options === null || typeof options !== 'object') throw new StressLifeError('invalid-option', 'options', options, 'must be an options object');
+  const unknown = unknownField(options, ['meanStress', 'kf', 'stressFactor'], 'the cycle options');
+  if (unknown !== undefined) throw new StressLifeError('invalid-option', unknown.field, unknown.value, unknown.rule);
   const c = resolveCorrection(options.meanStress);
   const kf = options.kf ?? 1;
   const sf = options.stressFactor ?? 1;

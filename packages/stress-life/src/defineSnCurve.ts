@@ -1,3 +1,4 @@
+import { unknownField } from '@loopwise/base';
 import { checkPositive } from './checks';
 import type { SnCurve, SnCurveInput, StressMeasure } from './SnCurve';
 import { StressLifeError } from './StressLifeError';
@@ -31,6 +32,8 @@ import { StressLifeError } from './StressLifeError';
  */
 export function defineSnCurve(input: SnCurveInput): SnCurve {
   if (input === null || typeof input !== 'object') throw new StressLifeError('invalid-curve', 'curve', input, 'must be { stress, cycles, slope, knees?, cutoffCycles? }');
+  const unknown = unknownField(input, ['measure', 'stress', 'cycles', 'slope', 'knees', 'cutoffCycles'], 'the curve');
+  if (unknown !== undefined) throw new StressLifeError('invalid-curve', unknown.field, unknown.value, unknown.rule);
   const measure: StressMeasure = input.measure ?? 'range';
   if (measure !== 'range' && measure !== 'amplitude') throw new StressLifeError('invalid-curve', 'measure', measure, "must be 'range' or 'amplitude'");
   checkPositive(input.stress, 'stress', 'invalid-curve');
