@@ -3,6 +3,7 @@ import { CAUTION } from '@loopwise/engine';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
 import { cyclesCsvRow } from './cyclesCsvRow';
+import { signalWarningsOf } from './renderChannelsHtml';
 import type { OutputSink } from './OutputSet';
 
 /** Version of the JSON report format written by `--json` (documented in the CLI README). */
@@ -83,6 +84,11 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
         corrections: r.corrections,
         report: r.report,
       })),
+      // every channel's warnings in one list: about the measured signal, then the assessment's
+      warnings: results.flatMap((r) => [
+        ...signalWarningsOf(r).map((w) => ({ channel: r.name, source: 'signal', code: w.kind, message: w.message })),
+        ...r.report.warnings.map((w) => ({ channel: r.name, source: 'assessment', code: w.code, message: w.message })),
+      ]),
       caution: CAUTION,
     }) + '\n'
   );
@@ -154,7 +160,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
         );
       }
     }
-    for (const s of r.sources) for (const w of s.warnings) out.push(`  warning (signal): ${w.message}`);
+    for (const w of signalWarningsOf(r)) out.push(`  warning (signal): ${w.message}`);
     for (const w of rep.warnings) out.push(`  warning: ${w.message}`);
     if (r.corrections) {
       out.push('  all corrections');

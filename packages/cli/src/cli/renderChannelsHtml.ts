@@ -17,6 +17,7 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
     const spectrum = r.report.damage.route === 'stress-life' && loops !== null ? await spectrumOf(r, loops.rows) : null;
     channels.push({
       spectrum,
+      signalWarnings: signalWarningsOf(r),
       name: r.name,
       unit: r.unit,
       report: r.report,
@@ -26,6 +27,16 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
     });
   }
   return renderHtmlReport({ title, generatedBy, channels });
+}
+
+/**
+ * The signal warnings of a channel: those of its own column, and those of no assessed column
+ * (the time column); a source's list holds every channel's.
+ */
+export function signalWarningsOf(r: ChannelResult): { kind: string; message: string }[] {
+  return r.sources.flatMap((s) =>
+    s.warnings.filter((w) => w.channel === r.name || !s.channels.some((c) => c.name === w.channel)).map((w) => ({ kind: w.kind, message: w.message })),
+  );
 }
 
 /**

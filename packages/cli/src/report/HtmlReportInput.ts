@@ -43,6 +43,11 @@ export interface HtmlChannel {
    */
   loopTotals?: { cycles: number; rows: number } | null;
   /**
+   * Warnings about the measured signal of this channel (spikes, flat runs, clipping, offset, the
+   * time column), shown beside the assessment's warnings; default none.
+   */
+  signalWarnings?: readonly { kind: string; message: string }[];
+  /**
    * The counted cycles of a stress-life report as equivalent stress on the curve and count per
    * repeat (for the S-N plot's spectrum); absent or null: the plot shows the curve and the worst cycles.
    */

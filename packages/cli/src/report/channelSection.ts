@@ -53,7 +53,7 @@ export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit
     figure(eventsPlot(channel, `${id}-events`), 'Damage per repeat of the schedule by event, with its share.'),
     eventsTable(r.events),
     '<h3>Warnings</h3>',
-    warningsList(r.warnings),
+    warningsList(r.warnings, channel.signalWarnings ?? []),
     '<h3>Inputs</h3>',
     inputsList(r.inputs, stressUnit),
     '</section>',

@@ -6,6 +6,7 @@ import { escapeHtml } from './escapeHtml.js';
 import type { HtmlReportInput } from './HtmlReportInput.js';
 import { REPORT_STYLE } from './reportStyle.js';
 import { resultsTable } from './resultsTable.js';
+import { allWarningsList } from './warningsList.js';
 
 const INVENTED = /\b(invented|synthetic|demo data|not a measurement)\b/i;
 
@@ -68,6 +69,7 @@ export function renderHtmlReport(input: HtmlReportInput): string {
     '</header>',
     ...cautions.map((c) => `<aside class="caution" role="note"><strong>Caution.</strong> ${escapeHtml(c)}</aside>`),
     resultsTable(channels),
+    `<section class="warnings-all" id="warnings"><h2>Warnings</h2>${allWarningsList(channels)}</section>`,
     channels.length > 1 ? `<nav><ul>${toc}</ul></nav>` : '',
     ...channels.map((c, i) => channelSection(c, i, stressUnit)),
     '<section class="assumptions">',
