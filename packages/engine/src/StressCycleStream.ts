@@ -5,7 +5,7 @@ import type { LifeLoopColumns, LifeReport } from './LifeReport';
 import { LoopAggregate } from './LoopAggregate';
 import { reportHead, stressReportFromCounted, type ReportEvent } from './reportAssembly';
 import { emptyColumns } from './reportColumns';
-import { stressLoopColumns, stressResidueHalves, stressTallies, stressWarnings, type StressWarningFacts } from './stressLifeRoute';
+import { residueHalfRows, stressLoopColumns, stressTallies, stressWarnings, type StressWarningFacts } from './stressLifeRoute';
 import type { RowRange } from './trackHistory';
 import { cutoffWarning } from './warnings';
 
@@ -87,7 +87,7 @@ export class StressCycleStream {
       const closedRows = this.table.length;
       const r = this.counter.finish();
       return stressReportFromCounted(
-        { cycles: this.table.columns(), closedRows, residue: r.residue, eventStarts: [0], totalSamples: samples, gate: this.gate, removed, largest: this.largest },
+        { cycles: this.table.columns(), closedRows, residueHalves: residueHalfRows(r.residue.values, r.residue.indices), eventStarts: [0], totalSamples: samples, gate: this.gate, removed, largest: this.largest },
         events,
         this.job,
       );
@@ -103,7 +103,7 @@ export class StressCycleStream {
     if (job.repeating) {
       const first = this.aggregate();
       first.merge(this.closed as LoopAggregate);
-      first.add(stressResidueHalves(r.residue, job, [0]));
+      first.add(stressLoopColumns(residueHalfRows(r.residue.values, r.residue.indices), job, [0]));
       firstPass = first.total();
     }
     const damage = stab.total();

@@ -7,7 +7,7 @@ import type { CorrectionName, EventDamage, LifeLoopColumns, LifeReport, LifeWarn
 import { loopColumnsOf, withResidueHalves } from './reportColumns';
 import { servicePerRepeat, type DutyEvent } from './schedule';
 import type { TrackedHistory } from './trackHistory';
-import { stressLoopColumns, stressResidueHalves, stressTallies, stressWarnings, type CountedSchedule } from './stressLifeRoute';
+import { stressLoopColumns, stressTallies, stressWarnings, type CountedSchedule } from './stressLifeRoute';
 import { cutoffReport, cutoffWarning, gateBoundAt, warningsOf } from './warnings';
 
 const PARAMETER_UNITS: Record<string, string> = {
@@ -110,7 +110,7 @@ export function stressReportFromCounted(counted: CountedSchedule, events: readon
   const damage = neumaierSum(loops.damage);
   let firstDamage = damage;
   if (job.repeating) {
-    const halves = stressResidueHalves(counted.residue, job, starts);
+    const halves = stressLoopColumns(counted.residueHalves, job, starts);
     firstDamage = neumaierSum(loops.damage.subarray(0, counted.closedRows)) + neumaierSum(halves.damage);
   }
   const warnings = stressWarnings(

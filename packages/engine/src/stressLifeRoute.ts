@@ -1,4 +1,4 @@
-import { damageInto } from '@loopwise/miner';
+import { damageInto, residueHalfCycles } from '@loopwise/miner';
 import { CycleTable, NonFiniteSampleError, RainflowCounter, type CycleColumns, type CycleSink } from '@loopwise/rainflow';
 import { cycleLivesInto, equivalentAmplitudeInto, StressLifeError } from '@loopwise/stress-life';
 import { EngineError } from './EngineError';
@@ -21,8 +21,8 @@ export interface CountedSchedule {
   cycles: CycleColumns;
   /** Rows of `cycles` closed before the end (the rest close the residue of a repeating schedule). */
   closedRows: number;
-  /** The residue at the end of the first pass, as schedule sample indices (its half cycles give the first pass's damage). */
-  residue: { values: Float64Array; indices: Float64Array };
+  /** The half cycles of the residue at the end of the first pass (they give the first pass's damage), schedule sample indices. */
+  residueHalves: HalfCycleRows;
   eventStarts: number[];
   totalSamples: number;
   gate: number;
@@ -142,14 +142,11 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
   }
   const closedRows = all.length;
   const result = counter.finish();
-  const residue = {
-    values: result.residue.values,
-    indices: Float64Array.from(result.residue.indices, (o) => ordinals.map(o)),
-  };
+  const residueHalves = residueHalfRows(result.residue.values, result.residue.indices, (o) => ordinals.map(o));
   return {
     cycles: all.columns(),
     closedRows,
-    residue,
+    residueHalves,
     eventStarts: starts,
     totalSamples: starts[starts.length - 1] + events[events.length - 1].history.length,
     gate,
@@ -226,25 +223,20 @@ export function stressLoopColumns(
   return c;
 }
 
-/** The residue's half cycles as report columns (the first pass's end, ASTM E1049-85 5.4.4). */
-export function stressResidueHalves(residue: { values: Float64Array; indices: Float64Array }, job: ResolvedJob, starts: readonly number[]): LifeLoopColumns {
-  // consecutive residue points pair up as half cycles; indices may fall back where the
-  // residue spans an event's repeats (the schedule's indices count each event once)
-  const m = Math.max(0, residue.values.length - 1);
-  const v = residue.values;
-  const x = residue.indices;
-  return stressLoopColumns(
-    {
-      from: v.subarray(0, m),
-      to: v.subarray(1, m + 1),
-      count: new Float64Array(m).fill(0.5),
-      startIndex: x.subarray(0, m),
-      turnIndex: x.subarray(1, m + 1),
-      closeIndex: x.subarray(1, m + 1),
-    },
-    job,
-    starts,
-  );
+/** A residue's half cycles as cycle rows, with its indices mapped by `index` (the counter's to the schedule's). */
+export type HalfCycleRows = Pick<CycleColumns, 'from' | 'to' | 'count' | 'startIndex' | 'turnIndex' | 'closeIndex'>;
+
+/**
+ * The half cycles of a rainflow residue (values with the counter's increasing indices) by
+ * miner's residueHalfCycles (ASTM E1049-85 5.4.4), their indices then mapped by `index`: on a
+ * schedule they may fall back where the residue spans an event's repeats, since the schedule's
+ * indices count each event once.
+ */
+export function residueHalfRows(values: Float64Array, indices: Float64Array, index: (o: number) => number = (o) => o): HalfCycleRows {
+  const h = residueHalfCycles({ index: indices, stress: values, strain: new Float64Array(values.length) });
+  const map = (a: Float64Array) => Float64Array.from(a, index);
+  // the stress columns are the pair's larger and smaller value: from and to for the curve
+  return { from: h.stressMax, to: h.stressMin, count: h.count, startIndex: map(h.startIndex), turnIndex: map(h.turnIndex), closeIndex: map(h.closeIndex) };
 }
 
 /** Facts behind the stress route's warnings (batch and stream alike). */

@@ -338,22 +338,44 @@ function answerTableFor(material: Material, kind: BranchKind, tolerance: number)
 }
 
 /** Builds and verifies an answer table with 2^bits cells per binade (null if the range is unusable). */
-function buildAnswerTable(material: Material, kind: BranchKind, bits: number): AnswerTable | null {
+/** Constants of the energy equation σ² + w·E·σ·(σ/K')^m = a² (m = 1/n') of a material and rule, for the tables. */
+interface EnergyConstants {
+  E: number;
+  m: number;
+  lnK: number;
+  lnE: number;
+  lnW: number;
+  /** t* = ln a where the elastic and plastic terms are equal. */
+  tStar: number;
+}
+
+function energyConstants(material: Material, kind: BranchKind): EnergyConstants {
   const E = material.E;
   const m = 1 / material.n;
   const lnK = Math.log(material.K);
   const lnE = Math.log(E);
   const lnW = Math.log(kind === 'glinka' ? 2 / (1 + material.n) : 1);
-  const tStar = (m * lnK - lnW - lnE) / (m - 1);
+  return { E, m, lnK, lnE, lnW, tStar: (m * lnK - lnW - lnE) / (m - 1) };
+}
+
+/** s = ln σ at amplitude a, solved to 1e-15, and ds/dt (t = ln a) = 2(1 + q)/(2 + (1 + m)q), q the plastic-to-elastic ratio. */
+function energyRoot(c: EnergyConstants, a: number): { s: number; slope: number } {
+  const s = solveEnergyEquation(2, -c.lnE, 1 + c.m, c.lnW - c.m * c.lnK, 2 * Math.log(a) - c.lnE, 1e-15, 100, 'BranchSolver');
+  const q = Math.exp((c.m - 1) * s + c.lnW - c.m * c.lnK + c.lnE);
+  return { s, slope: (2 * (1 + q)) / (2 + (1 + c.m) * q) };
+}
+
+function buildAnswerTable(material: Material, kind: BranchKind, bits: number): AnswerTable | null {
+  const c = energyConstants(material, kind);
+  const { E, m, lnK, tStar } = c;
   const binLo = Math.floor((tStar + Math.log(1e-17) / (m - 1)) / Math.LN2);
   const binHi = Math.ceil((tStar + 12) / Math.LN2);
   // exact σ, ε at amplitude a, then their slopes in a
   return hermiteTable(binLo, binHi, bits, 2, (a, out) => {
-    const s = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
+    const { s, slope } = energyRoot(c, a);
     const sg = Math.exp(s);
     const plastic = Math.exp(m * (s - lnK));
-    const q = Math.exp((m - 1) * s + lnW - m * lnK + lnE);
-    const dsg = (sg * ((2 * (1 + q)) / (2 + (1 + m) * q))) / a; // dσ/da from ds/dt, t = ln a
+    const dsg = (sg * slope) / a; // dσ/da from ds/dt, t = ln a
     out[0] = sg;
     out[1] = sg / E + plastic;
     out[2] = dsg;
@@ -485,14 +507,10 @@ function startTableFor(material: Material, kind: BranchKind): StartTable {
  * are equal; nodes solved to 1e-15, slopes ds/dt = 2/F'(s) (t = ln a).
  */
 function buildStartTable(material: Material, kind: BranchKind): StartTable {
-  const E = material.E;
-  const m = 1 / material.n;
-  const lnK = Math.log(material.K);
-  const lnE = Math.log(E);
-  const lnW = Math.log(kind === 'glinka' ? 2 / (1 + material.n) : 1);
-  // t* = ln a where the elastic and plastic terms are equal; the table spans from where the
-  // plastic term is 1e-6 of the elastic one to e^12 above t*, whole binades of a.
-  const tStar = (m * lnK - lnW - lnE) / (m - 1);
+  const c = energyConstants(material, kind);
+  // the table spans from where the plastic term is 1e-6 of the elastic one to e^12 above t*,
+  // whole binades of a.
+  const { m, tStar } = c;
   const tLo = tStar + Math.log(1e-6) / (m - 1);
   const tHi = tStar + 12;
   const binLo = Math.max(-1020, Math.min(1020, Math.floor(tLo / Math.LN2)));
@@ -505,9 +523,7 @@ function buildStartTable(material: Material, kind: BranchKind): StartTable {
   let dL = 0;
   for (let j = 0; j <= cells; j++) {
     const a = Math.pow(2, binLo + (j >> CELL_BITS)) * (1 + (j & (perBinade - 1)) / perBinade); // exact
-    const sj = solveEnergyEquation(2, -lnE, 1 + m, lnW - m * lnK, 2 * Math.log(a) - lnE, 1e-15, 100, 'BranchSolver');
-    const q = Math.exp((m - 1) * sj + lnW - m * lnK + lnE);
-    const dj = (2 * (1 + q)) / (2 + (1 + m) * q); // ds/dt at the node, t = ln a
+    const { s: sj, slope: dj } = energyRoot(c, a); // ds/dt at the node, t = ln a
     if (j > 0) {
       // Cubic Hermite on cell j − 1 = [aL, a] in its fraction f = (a' − aL) / width, with
       // ds/df = ds/dt · width / a' at either end.
