@@ -114,13 +114,16 @@ export class OutputSet {
         if (p.target.kind !== 'file') continue;
         const t = p.target;
         const temp = join(dirname(t.path), `.${basename(t.path)}.${process.pid}-${randomBytes(4).toString('hex')}.loopwise-tmp`);
+        // noted before the open: the file exists as soon as the system has made it, before the
+        // open's promise settles, and a signal in between must still find it to remove
+        holdTemporary(temp);
         let handle: FileHandle;
         try {
           handle = await open(temp, 'wx', 0o600);
         } catch (error) {
+          releaseTemporary(temp);
           throw fileErrorOf(error, t.shown, 'write');
         }
-        holdTemporary(temp);
         temps.push({ temp, target: t });
         try {
           await p.content(fileSink(handle, t.shown));
