@@ -4,6 +4,7 @@ import { describe, expect, test } from 'vitest';
 import * as base from '@loopwise/base';
 import * as rainflow from '@loopwise/rainflow';
 import * as signal from '@loopwise/signal';
+import * as ingest from '@loopwise/ingest';
 import * as material from '@loopwise/material';
 import * as meanStress from '@loopwise/mean-stress';
 import * as miner from '@loopwise/miner';
@@ -19,6 +20,7 @@ const modules: Record<string, unknown> = {
   '@loopwise/base': base,
   '@loopwise/rainflow': rainflow,
   '@loopwise/signal': signal,
+  '@loopwise/ingest': ingest,
   '@loopwise/material': material,
   '@loopwise/mean-stress': meanStress,
   '@loopwise/miner': miner,

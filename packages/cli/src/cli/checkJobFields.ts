@@ -1,4 +1,4 @@
-import { excerpt } from '../ingest/excerpt';
+import { excerpt } from '@loopwise/ingest';
 import { nearestName } from '@loopwise/base';
 
 /** A field of a job (or material) file that breaks its rule; `field` is its path (`channels[0].column`). */

@@ -1,7 +1,7 @@
 // Worker entry of readDelimitedParallel: reads a delimited file with readDelimited and posts its
 // chunks to the thread that started it, at most IN_FLIGHT_LIMIT chunks ahead of it.
 import { parentPort, workerData } from 'node:worker_threads';
-import { IngestError, IngestOptionError } from './IngestError';
+import { IngestError, IngestOptionError } from '@loopwise/ingest';
 import { readDelimited, type IngestOptions } from './readDelimited';
 
 /** Chunks the worker may have posted but the reader not yet consumed (memory stays bounded). */

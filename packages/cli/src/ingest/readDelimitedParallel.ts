@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { IngestError, IngestOptionError, type IngestErrorCode } from './IngestError';
+import { IngestError, IngestOptionError, type IngestErrorCode } from '@loopwise/ingest';
 import { readDelimited, type IngestChunk, type IngestOptions, type IngestReport } from './readDelimited';
 
 /**

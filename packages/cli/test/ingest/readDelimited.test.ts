@@ -2,8 +2,7 @@ import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { MPA_PER_KSI } from '../../src/ingest/channelConversion.js';
-import { IngestError } from '../../src/ingest/IngestError.js';
+import { IngestError, MPA_PER_KSI } from '@loopwise/ingest';
 import { readDelimited, readDelimitedColumns, type IngestOptions } from '../../src/ingest/readDelimited.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'loopwise-ingest-'));
@@ -60,15 +59,15 @@ describe('readDelimited(path, options): dialects', () => {
     expect(r.report.dialect).toMatchObject({ bom: true, lineEnd: 'CRLF', header: true });
   });
 
-  it('hands quoted fields to csv-parse and reports where it switched', async () => {
+  it('hands quoted fields to the quoted-field reader and reports where it switched', async () => {
     const quotedFromStart = await values(file('"time","stress"\n"0","1.5"\n1,"2"\n'));
     expect(quotedFromStart.x).toEqual([1.5, 2]);
-    expect(quotedFromStart.report.reader).toBe('csv-parse');
+    expect(quotedFromStart.report.reader).toBe('quoted');
     const lines = ['t,s'];
     for (let i = 0; i < 3000; i++) lines.push(`${i},${i / 4}`);
     lines.push('3000,"750"');
     const late = await values(file(lines.join('\n') + '\n'), { ...plain(), detectionBytes: 256 });
-    expect(late.report.reader).toBe('fast, then csv-parse from line 3002');
+    expect(late.report.reader).toBe('fast, then quoted from line 3002');
     expect(late.x.length).toBe(3001);
     expect(late.x[3000]).toBe(750);
     const semicolon = await values(file('t;s\n0;"1,5"\n1;2,5\n'));
@@ -262,7 +261,7 @@ describe('readDelimited(path, options): bad input names file, line and column', 
     expect(p).toBeTruthy();
   });
 
-  it('errors in the csv-parse path name line and column too', async () => {
+  it('errors in the quoted-field path name line and column too', async () => {
     const p = file('"t","s"\n"0","1"\n"1","x"\n');
     const e = await failure(p);
     expect(e.message).toBe(`${p}, line 3, column 2 ("s"): non-numeric cell "x"`);

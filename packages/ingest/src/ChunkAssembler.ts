@@ -1,6 +1,6 @@
 /**
  * Collects parsed rows into fixed-size Float64Array columns and hands each full chunk to a
- * callback. Internal to ingestion: both readers (the fast one and the csv-parse one) write rows
+ * callback. Internal to ingestion: every reader (the fast one, the quoted-field one, records from csv-parse) writes rows
  * into the same assembler, so a file can switch reader mid-way without the consumer noticing.
  * Each delivered chunk owns fresh arrays: the consumer may keep them.
  */

@@ -1,4 +1,5 @@
 import type { ChunkAssembler } from './ChunkAssembler.js';
+import { utf8Decoder } from './textDecoding.js';
 import type { DelimiterName } from './detectDialect.js';
 import { firstInvalidUtf8 } from './detectDialect.js';
 import { excerpt } from './excerpt.js';
@@ -16,7 +17,7 @@ const BLANK = 6;
 
 /** What {@link FastNumericScanner.scan} stopped at. */
 export const SCAN_DONE = 0;
-/** A quote character: the rest of the file, from `stopOffset` (a line start), needs csv-parse. */
+/** A quote character: the rest of the file, from `stopOffset` (a line start), needs the quoted-field reader. */
 export const SCAN_QUOTED = 1;
 
 /** The fixed part of a scan: dialect, selected fields and their conversions. */
@@ -45,7 +46,7 @@ export interface ScannerLayout {
  * The caller passes only complete lines: `bytes[start, end)` must end with a line feed. Blank
  * lines and comment lines are skipped; the first content line is skipped while `headerPending`.
  * A quote character stops the scan at the start of its line (SCAN_QUOTED) so the caller can
- * hand the rest to csv-parse. Every other problem throws an {@link IngestError} naming the file,
+ * hand the rest to the quoted-field reader. Every other problem throws an {@link IngestError} naming the file,
  * the 1-based line and the 1-based field number.
  */
 export class FastNumericScanner {
@@ -213,7 +214,9 @@ export class FastNumericScanner {
   }
 }
 
-/** The error for a cell that is not a finite decimal number (shared with the csv-parse reader via text). */
+const UTF8 = utf8Decoder(false);
+
+/** The error for a cell that is not a finite decimal number (shared with the quoted reader). */
 export function classifyBadCell(
   bytes: Uint8Array,
   s: number,
@@ -227,7 +230,7 @@ export function classifyBadCell(
   if (s === e) return new IngestError('LW_INGEST_EMPTY_CELL', file, line, column, 'empty cell where a number is expected', name);
   if (firstInvalidUtf8(bytes, s, e) >= 0)
     return new IngestError('LW_INGEST_INVALID_UTF8', file, line, column, 'invalid UTF-8 text (binary data, or a file in another encoding)', name);
-  const text = Buffer.from(bytes.buffer, bytes.byteOffset + s, e - s).toString('utf8');
+  const text = UTF8.decode(bytes.subarray(s, e));
   return classifyBadText(text, file, line, column, decimalComma, name);
 }
 

@@ -1,4 +1,5 @@
 import { IngestError } from './IngestError.js';
+import { utf8Decoder } from './textDecoding.js';
 import { parseDecimalText } from './parseDecimal.js';
 
 /** Field delimiters: `whitespace` means any run of spaces and tabs. */
@@ -38,7 +39,7 @@ export interface Dialect {
   readonly bom: boolean;
   /** Line ends of the first lines: 'LF' or 'CRLF' (both are accepted everywhere). */
   readonly lineEnd: 'LF' | 'CRLF';
-  /** A quote character appears in the first lines: the csv-parse reader handles the file. */
+  /** A quote character appears in the first lines: the quoted-field reader handles the file. */
   readonly quoted: boolean;
   /** Fields per row, from the first content lines. */
   readonly fieldCount: number;
@@ -65,7 +66,7 @@ interface SampleLine {
  * comma, header, BOM, line ends, quoting, field count and column names. Parts given in
  * `override` are taken as they are.
  *
- * Method (our own, documented in docs/cli-ingestion.md): the first 50 content lines (not blank,
+ * Method (our own, documented in docs/ingest.md): the first 50 content lines (not blank,
  * not comments) are split with each candidate delimiter (tab, semicolon, comma, whitespace runs;
  * quote-aware for the first three). The candidate whose most common field count is at least 2
  * and is shared by the most lines wins; ties go to the earlier candidate, so `1,5;2,5` is
@@ -80,7 +81,7 @@ interface SampleLine {
  * @throws IngestError LW_INGEST_BINARY_DATA (NUL or control bytes), LW_INGEST_INVALID_UTF8
  *
  * @example
- * detectDialect(Buffer.from('t;x\n0;1,5\n0,01;2,5\n')).decimalComma;
+ * detectDialect(new TextEncoder().encode('t;x\n0;1,5\n0,01;2,5\n')).decimalComma;
  * // returns true
  */
 export function detectDialect(sample: Uint8Array, override: DialectOverride = {}, file = '<input>'): Dialect {
@@ -243,7 +244,7 @@ function fieldOfByte(bytes: Uint8Array, index: number): number {
   return field;
 }
 
-const STRICT_UTF8 = new TextDecoder('utf-8', { fatal: true });
+const STRICT_UTF8 = utf8Decoder(true);
 
 function decodeUtf8(bytes: Uint8Array, file: string): string {
   const bad = firstInvalidUtf8(bytes, 0, bytes.length);

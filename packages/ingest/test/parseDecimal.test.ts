@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { checkProperty } from '../../../../test/property.js';
-import { parseDecimal, parseDecimalText } from '../../src/ingest/parseDecimal.js';
+import { checkProperty } from '../../../test/property.js';
+import { parseDecimal, parseDecimalText } from '../src/parseDecimal.js';
 
 const parse = (text: string, comma = false) => {
   const b = Buffer.from(text, 'latin1');

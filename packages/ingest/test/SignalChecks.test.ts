@@ -1,8 +1,8 @@
 // Constructed signals (invented for the tests) against the documented rules; thresholds are the
 // defaults, `common practice, no source`.
 import { describe, expect, it } from 'vitest';
-import { SignalChecks } from '../../src/ingest/SignalChecks.js';
-import { TimeAxisCheck } from '../../src/ingest/TimeAxisCheck.js';
+import { SignalChecks } from '../src/SignalChecks.js';
+import { TimeAxisCheck } from '../src/TimeAxisCheck.js';
 
 const sine = (n: number, amplitude = 100, period = 40 * Math.SQRT2) => Float64Array.from({ length: n }, (_, i) => amplitude * Math.sin((2 * Math.PI * i) / period));
 function run(x: Float64Array, chunk = x.length, thresholds = {}) {

@@ -37,7 +37,7 @@ for (let k = 0; k < 23; k++) POW10[k] = Number(`1e${k}`);
  * @returns the value, or NaN when the text is not a plain decimal number
  *
  * @example
- * parseDecimal(Buffer.from('-12,5e-1'), 0, 8, true);
+ * parseDecimal(new TextEncoder().encode('-12,5e-1'), 0, 8, true);
  * // returns -1.25
  */
 export function parseDecimal(bytes: Uint8Array, start: number, end: number, decimalComma: boolean): number {
@@ -111,8 +111,8 @@ const DECIMAL_POINT_TEXT = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DECIMAL_COMMA_TEXT = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 
 /**
- * The string form of {@link parseDecimal}, for fields that arrive as strings (the csv-parse
- * path): the same grammar, the same result, NaN for text outside the grammar. Surrounding spaces
+ * The string form of {@link parseDecimal}, for fields that arrive as strings (records split by
+ * csv-parse in the CLI): the same grammar, the same result, NaN for text outside the grammar. Surrounding spaces
  * and tabs are trimmed first.
  *
  * @example
