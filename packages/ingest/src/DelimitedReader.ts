@@ -131,7 +131,10 @@ export class DelimitedReader {
   private scanner: FastNumericScanner | null = null;
   private quoted: QuotedRecordReader | null = null;
   private readerName = 'fast';
-  private headerPending = false;
+  /** Content lines still to skip (header, units row). */
+  private headerLinesPending = 0;
+  /** Raw lines at the top still to drop (`dialect.skipLines`). */
+  private linesToDrop = 0;
   /** Bytes of the input seen so far (the BOM is skipped by offset). */
   private offset = 0;
   private work = new Uint8Array(0);
@@ -234,11 +237,13 @@ export class DelimitedReader {
       divisor,
       names: dialect.names,
     };
-    this.headerPending = dialect.header;
+    this.headerLinesPending = (dialect.header ? 1 : 0) + (dialect.unitsLine > 0 ? 1 : 0);
+    this.linesToDrop = dialect.skipLines;
     this.dialectFound = dialect;
     this.head = null;
-    if (dialect.quoted && dialect.delimiter !== 'whitespace') this.startQuoted(1);
-    else this.scanner = new FastNumericScanner(this.layout, this.assembler, 1, this.headerPending);
+    const firstLine = dialect.skipLines + 1;
+    if (dialect.quoted && dialect.delimiter !== 'whitespace') this.startQuoted(firstLine);
+    else this.scanner = new FastNumericScanner(this.layout, this.assembler, firstLine, this.headerLinesPending);
     return dialect;
   }
 
@@ -287,8 +292,9 @@ export class DelimitedReader {
     if (this.stoppedFlag) return;
     this.readerName = 'csv-parse';
     if (record.length === 1 && record[0].trim() === '') return;
-    if (this.headerPending) {
-      this.headerPending = false;
+    if (line <= this.dialectFound.skipLines) return;
+    if (this.headerLinesPending > 0) {
+      this.headerLinesPending--;
       return;
     }
     const { file, fieldCount: nf, slotOfField, multiplier, divisor, decimalComma, names } = this.layout;
@@ -399,6 +405,13 @@ export class DelimitedReader {
     let from = 0;
     if (this.offset < 3 && this.dialectFound!.bom) from = Math.min(bytes.length, 3 - this.offset);
     this.offset += bytes.length;
+    // the lines before the table (a logger's preamble), dropped whole
+    while (this.linesToDrop > 0 && from < bytes.length) {
+      const lf = bytes.indexOf(10, from);
+      if (lf < 0) return;
+      from = lf + 1;
+      this.linesToDrop--;
+    }
     if (from >= bytes.length) return;
     this.guard(() => {
       if (this.quoted) {
@@ -438,7 +451,7 @@ export class DelimitedReader {
   private switchToQuoted(): void {
     const scanner = this.scanner as FastNumericScanner;
     if (this.dialectFound!.delimiter === 'whitespace') throw new IngestError('LW_INGEST_MALFORMED_QUOTES', this.file, scanner.line, 0, 'quoted fields are not supported in the whitespace dialect');
-    this.headerPending = scanner.headerPending;
+    this.headerLinesPending = scanner.headerLinesPending;
     this.startQuoted(scanner.line);
     this.readerName = `fast, then quoted from line ${scanner.line}`;
     this.scanner = null;
@@ -453,8 +466,8 @@ export class DelimitedReader {
 
   /** One record from the quoted reader. */
   private record(bytes: Uint8Array, bounds: Int32Array, n: number, line: number): void {
-    if (this.headerPending) {
-      this.headerPending = false;
+    if (this.headerLinesPending > 0) {
+      this.headerLinesPending--;
       return;
     }
     const { file, fieldCount: nf, slotOfField, multiplier, divisor, decimalComma, names } = this.layout as ScannerLayout;

@@ -44,7 +44,8 @@ export interface ScannerLayout {
  * No allocation or closure per sample.
  *
  * The caller passes only complete lines: `bytes[start, end)` must end with a line feed. Blank
- * lines and comment lines are skipped; the first content line is skipped while `headerPending`.
+ * lines and comment lines are skipped; the first `headerLinesPending` content lines (a header, a
+ * units row) are skipped.
  * A quote character stops the scan at the start of its line (SCAN_QUOTED) so the caller can
  * hand the rest to the quoted-field reader. Every other problem throws an {@link IngestError} naming the file,
  * the 1-based line and the 1-based field number.
@@ -52,7 +53,8 @@ export interface ScannerLayout {
 export class FastNumericScanner {
   /** 1-based number of the next line to scan. */
   line: number;
-  headerPending: boolean;
+  /** Content lines still to skip (header and units row). */
+  headerLinesPending: number;
   /** Index in the last scanned buffer where a SCAN_QUOTED stop happened (a line start). */
   stopOffset = 0;
   private readonly cls = new Uint8Array(256);
@@ -62,10 +64,10 @@ export class FastNumericScanner {
     private readonly layout: ScannerLayout,
     private readonly out: ChunkAssembler,
     firstLine: number,
-    headerPending: boolean,
+    headerLines: number,
   ) {
     this.line = firstLine;
-    this.headerPending = headerPending;
+    this.headerLinesPending = headerLines;
     const cls = this.cls;
     for (let b = 0; b < 32; b++) cls[b] = CONTROL;
     cls[127] = ORDINARY;
@@ -112,11 +114,11 @@ export class FastNumericScanner {
           line++;
           continue; // blank line
         }
-        if (this.headerPending) {
+        if (this.headerLinesPending > 0) {
           while (bytes[p] !== 10) p++;
           p++;
           line++;
-          this.headerPending = false;
+          this.headerLinesPending--;
           continue;
         }
         let field = 0;

@@ -1,4 +1,4 @@
-import { IngestError } from './IngestError.js';
+import { IngestError, IngestOptionError } from './IngestError.js';
 import { utf8Decoder } from './textDecoding.js';
 import { parseDecimalText } from './parseDecimal.js';
 
@@ -23,6 +23,10 @@ export interface DialectOverride {
   header?: boolean;
   /** A line whose first character is this one is a comment. Default `'#'`; `''` for none. */
   commentPrefix?: string;
+  /** Lines at the top of the file before the table (a logger's preamble), ignored whatever they hold. Default 0. */
+  skipLines?: number;
+  /** The content line after the header holds the columns' units. Default: detected (only with a header). */
+  unitsRow?: boolean;
 }
 
 /** How each part of a {@link Dialect} was decided. */
@@ -47,8 +51,19 @@ export interface Dialect {
   readonly names: readonly string[];
   /** 1-based line of the header, or 0 without one. */
   readonly headerLine: number;
-  /** How delimiter, decimal separator and header were decided. */
-  readonly source: { readonly delimiter: DialectSource; readonly decimalComma: DialectSource; readonly header: DialectSource };
+  /** Lines skipped at the top before the table. */
+  readonly skipLines: number;
+  /** 1-based line of the units row, or 0 without one. */
+  readonly unitsLine: number;
+  /**
+   * Each column's unit as the file writes it (`'µε'`, `'MPa'`, `'s'`…; `''` when it gives none):
+   * from the units row, or from a bracketed suffix of the header name (`SG1 [µε]`, `F (kN)`).
+   */
+  readonly units: readonly string[];
+  /** Where the units came from. */
+  readonly unitsSource: 'row' | 'names' | 'none';
+  /** How delimiter, decimal separator, header and units row were decided. */
+  readonly source: { readonly delimiter: DialectSource; readonly decimalComma: DialectSource; readonly header: DialectSource; readonly unitsRow: DialectSource };
 }
 
 /** Content lines of the sample looked at for detection. */
@@ -90,11 +105,14 @@ export function detectDialect(sample: Uint8Array, override: DialectOverride = {}
   checkBinary(bytes, file);
   const text = decodeUtf8(bytes, file);
   const commentPrefix = override.commentPrefix ?? '#';
+  const skipLines = override.skipLines ?? 0;
+  if (!Number.isInteger(skipLines) || skipLines < 0) throw new IngestOptionError('dialect.skipLines', skipLines, 'a whole number of lines >= 0');
   const lines: SampleLine[] = [];
   let crlf = false;
   let lineNo = 0;
   for (const raw of text.split('\n')) {
     lineNo++;
+    if (lineNo <= skipLines) continue;
     if (lines.length >= DETECTION_LINES) break;
     if (raw.endsWith('\r')) crlf = true;
     const t = raw.endsWith('\r') ? raw.slice(0, -1) : raw;
@@ -136,17 +154,39 @@ export function detectDialect(sample: Uint8Array, override: DialectOverride = {}
     decimalComma = comma && !point;
   } else decimalComma = false;
 
+  const numeric = (f: string | undefined) => f !== undefined && !Number.isNaN(parseDecimalText(f, decimalComma));
   let header: boolean;
   if (override.header !== undefined) header = override.header;
   else if (split.length === 0) header = false;
   else {
+    // compared with the next line that holds a number (a units row may sit between)
     const first = split[0];
-    const second = split[1];
-    const numeric = (f: string | undefined) => f !== undefined && !Number.isNaN(parseDecimalText(f, decimalComma));
-    header = second === undefined ? !first.every((f) => numeric(f)) : first.some((f, k) => !numeric(f) && numeric(second[k]));
+    const next = split.slice(1, 3).find((l) => l.some((f) => numeric(f)));
+    header = next === undefined ? !first.every((f) => numeric(f)) : first.some((f, k) => !numeric(f) && numeric(next[k]));
   }
-  const names =
-    header && split.length > 0 ? split[0].map((n) => n.trim()) : Array.from({ length: fieldCount }, (_, k) => `column ${k + 1}`);
+  // a units row: right under the header, no field a number, a numeric line after it
+  let unitsRow = false;
+  if (override.unitsRow !== undefined) unitsRow = override.unitsRow && header;
+  else if (header && split.length >= 3) {
+    const row = split[1];
+    unitsRow = row.every((f) => !numeric(f)) && row.some((f) => f.trim() !== '') && split[2].some((f, k) => numeric(f) && !numeric(row[k]));
+  }
+  if (override.unitsRow === true && !header) throw new IngestOptionError('dialect.unitsRow', true, 'a units row needs a header row above it');
+  const rawNames = header && split.length > 0 ? split[0].map((n) => n.trim()) : Array.from({ length: fieldCount }, (_, k) => `column ${k + 1}`);
+  let units: string[] = rawNames.map(() => '');
+  let unitsSource: Dialect['unitsSource'] = 'none';
+  let names = rawNames;
+  if (unitsRow && split.length > 1) {
+    units = rawNames.map((_, k) => unwrapUnit((split[1][k] ?? '').trim()));
+    unitsSource = 'row';
+  } else if (header) {
+    const suffix = rawNames.map((n) => /^(.*?\S)\s*[[(]([^[\]()]{1,16})[\])]$/.exec(n));
+    if (suffix.some((m) => m !== null)) {
+      units = suffix.map((m) => (m ? m[2].trim() : ''));
+      unitsSource = 'names';
+    }
+  }
+  if (names.length < fieldCount) names = [...names, ...Array.from({ length: fieldCount - names.length }, (_, k) => `column ${names.length + k + 1}`)];
   return {
     delimiter,
     decimalComma,
@@ -158,12 +198,23 @@ export function detectDialect(sample: Uint8Array, override: DialectOverride = {}
     fieldCount,
     names,
     headerLine: header && lines.length > 0 ? lines[0].line : 0,
+    skipLines,
+    unitsLine: unitsRow && lines.length > 1 ? lines[1].line : 0,
+    units,
+    unitsSource,
     source: {
       delimiter: override.delimiter !== undefined ? 'option' : 'detected',
       decimalComma: override.decimalComma !== undefined ? 'option' : 'detected',
       header: override.header !== undefined ? 'option' : 'detected',
+      unitsRow: override.unitsRow !== undefined ? 'option' : 'detected',
     },
   };
+}
+
+/** A unit as written in a units row, without enclosing brackets: `[µε]` → `µε`. */
+function unwrapUnit(text: string): string {
+  const m = /^[[(](.*)[\])]$/.exec(text);
+  return m ? m[1].trim() : text;
 }
 
 /**

@@ -6,6 +6,8 @@ export type { RecordSink } from './QuotedRecordReader.js';
 export { detectDialect, splitFields, firstInvalidUtf8, DELIMITER_CHARACTERS } from './detectDialect.js';
 export type { Dialect, DialectOverride, DialectSource, DelimiterName } from './detectDialect.js';
 export { parseDecimal, parseDecimalText } from './parseDecimal.js';
+export { surveyColumns, recognizeUnit } from './surveyColumns.js';
+export type { ColumnSurvey, UnitReading } from './surveyColumns.js';
 export { channelConversion, MPA_PER_KSI, MICROSTRAIN_PER_STRAIN } from './channelConversion.js';
 export type { ChannelConversion, ChannelQuantity } from './channelConversion.js';
 export { SignalChecks, DEFAULT_SIGNAL_CHECK_THRESHOLDS } from './SignalChecks.js';
