@@ -161,7 +161,7 @@ export function detectDialect(sample: Uint8Array, override: DialectOverride = {}
   else {
     // compared with the next line that holds a number (a units row may sit between)
     const first = split[0];
-    const next = split.slice(1, 3).find((l) => l.some((f) => numeric(f)));
+    const next = split.slice(1, 3).find((l) => l.some((f) => numeric(f))) ?? split[1];
     header = next === undefined ? !first.every((f) => numeric(f)) : first.some((f, k) => !numeric(f) && numeric(next[k]));
   }
   // a units row: right under the header, no field a number, a numeric line after it

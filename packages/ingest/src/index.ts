@@ -7,6 +7,7 @@ export { detectDialect, splitFields, firstInvalidUtf8, DELIMITER_CHARACTERS } fr
 export type { Dialect, DialectOverride, DialectSource, DelimiterName } from './detectDialect.js';
 export { parseDecimal, parseDecimalText } from './parseDecimal.js';
 export { surveyColumns, recognizeUnit } from './surveyColumns.js';
+export { describeDialect } from './describeDialect.js';
 export type { ColumnSurvey, UnitReading } from './surveyColumns.js';
 export { channelConversion, MPA_PER_KSI, MICROSTRAIN_PER_STRAIN } from './channelConversion.js';
 export type { ChannelConversion, ChannelQuantity } from './channelConversion.js';

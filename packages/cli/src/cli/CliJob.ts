@@ -2,7 +2,7 @@ import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
 import type { IiwResidualCategory, SnCurve, SnCurveInput } from '@loopwise/stress-life';
-import type { ChannelSelection, TimeSource } from '../ingest';
+import type { ChannelSelection, DialectOverride, TimeSource } from '../ingest';
 import { UsageError } from './CliError';
 import { checkJobFields, JobFieldError } from './checkJobFields';
 import { FileAccess, parseJsonText } from './FileAccess';
@@ -75,6 +75,10 @@ export interface CliJob {
   /** The job file, when the request came from one (messages name it). */
   jobShown?: string;
   time?: TimeSource;
+  /** Parts of the files' layout fixed instead of detected (preamble lines, delimiter, decimal mark, header and units rows, comment prefix). */
+  dialect?: DialectOverride;
+  /** How the command chose columns, units and the time base from the file (for the summary). */
+  notes?: string[];
   initial?: number;
   offset?: number;
 }
@@ -100,6 +104,7 @@ export interface JobFile {
   file?: string;
   events?: CliEvent[];
   time?: TimeSource;
+  dialect?: DialectOverride;
   initial?: number;
   offset?: number;
 }
@@ -158,7 +163,7 @@ export function readJobFile(path: string, inputs: InputFiles = new InputFiles(),
     events: events ?? null,
     jobShown: path,
   };
-  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'initial', 'offset'] as const) {
+  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'dialect', 'initial', 'offset'] as const) {
     if (json[k] !== undefined) (job as unknown as Record<string, unknown>)[k] = json[k];
   }
   checkRoute(job, path);

@@ -77,6 +77,11 @@ export const positive = number({ test: (x) => x > 0, says: '> 0' });
 export const nonNegative = number({ test: (x) => x >= 0, says: '>= 0' });
 export const wholeFromOne = number({ test: (x) => Number.isInteger(x) && x >= 1, says: 'a whole number >= 1' });
 
+/** Any string, the empty one included. */
+const text0: FieldCheck = (value, path) => {
+  if (typeof value !== 'string') throw new JobFieldError(path, `expected a string, got ${shown(value)}`);
+};
+
 export const boolean: FieldCheck = (value, path) => {
   if (typeof value !== 'boolean') throw new JobFieldError(path, `expected true or false, got ${shown(value)}`);
 };
@@ -216,6 +221,14 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
   file: text,
   events: listOf(event, 'events'),
   time,
+  dialect: objectOf({
+    skipLines: number({ test: (x) => Number.isInteger(x) && x >= 0, says: 'a whole number >= 0' }),
+    delimiter: oneOfText(['comma', 'semicolon', 'tab', 'whitespace']),
+    decimalComma: boolean,
+    header: boolean,
+    unitsRow: boolean,
+    commentPrefix: text0,
+  }),
   initial: number(),
   offset: number(),
 };

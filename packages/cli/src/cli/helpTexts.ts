@@ -27,11 +27,21 @@ The measured file is delimited text (comma, semicolon, tab or whitespace; header
 A repeating history (the default) is read twice: the second read goes up to its largest value.
 
 Channel:
-  --column <name|n>        column to assess (1-based number or header name); repeat for several
-  --quantity <q>           stress (default), strain or load
-  --unit <u>               MPa (default) or ksi for stress; strain or microstrain for strain
+  --column <name|n>        column to assess (1-based number or header name); repeat for several.
+                           Default: the one numeric column that is not a time; with several, choose
+  --quantity <q>           stress, strain or load (default: from the file's unit, else stress)
+  --unit <u>               MPa or ksi for stress; strain or microstrain for strain (default: the
+                           file's units row or bracketed header unit, else MPa / strain)
   --mpa-per-unit <x>       nominal stress in MPa per unit of a load channel
-  --sample-rate <Hz>       sample rate, or --time-column <name|n>
+  --sample-rate <Hz>       sample rate, or --time-column <name|n> (default: a strictly increasing
+                           column named or measured as time)
+File layout (detected unless given; the summary prints what was found):
+  --skip-lines <n>         lines before the table (a logger's preamble) to ignore
+  --delimiter <d>          comma, semicolon, tab or whitespace
+  --decimal-mark <m>       point or comma
+  --header-row yes|no      the first table line holds column names
+  --units-row yes|no       the line under the header holds units (µε, ue, MPa, ksi, kN, V, s…)
+  --comment-prefix <c>     lines starting with it are comments (default #; none for no comments)
 Model:
   --material <m>           handbook name (e.g. "SAE 1045") or a .json file of constants
   --su <MPa>               or estimate the material from tensile strength (Uniform Material Law, steel)
@@ -73,9 +83,11 @@ Examples:
 
 Usage: loopwise count <file> [options]
 
-  --column <name|n>        column (1-based number or header name); default the first
+  --column <name|n>        column (1-based number or header name); default as for assess
   --quantity, --unit       as for assess (values are reported in engine units: MPa or strain)
   --sample-rate <Hz>       or --time-column <name|n>
+  --skip-lines, --delimiter, --decimal-mark, --header-row, --units-row, --comment-prefix
+                           the file's layout, as for assess
   --gate <x>               gate range; or --gate-fraction <f> of the channel's range
   --residue <r>            half (default, ASTM E1049 half cycles), repeat or none
   --range-bins <n>         range bins of the matrix (default 32); --mean-bins <n> (default 32)

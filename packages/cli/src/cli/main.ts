@@ -5,7 +5,7 @@ import { parseArgs } from 'node:util';
 import { findLoadMargin, type DutyEvent } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
-import { readDelimited, readDelimitedColumns, type ChannelSelection, type TimeSource } from '../ingest';
+import { readDelimited, readDelimitedColumns, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
 import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
 import { parseSnCurveSpec } from './snCurveSpec';
@@ -17,6 +17,7 @@ import { spoolStdin } from './spoolStdin';
 import { SpoolFile } from './SpoolFile';
 import { formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
+import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
 import { lifeJobOf, mainCorrection, runAssessment, type ChannelResult } from './runAssessment';
@@ -61,6 +62,7 @@ const CHANNEL = {
   gate: { type: 'string' },
   'gate-fraction': { type: 'string' },
   'full-scale': { type: 'string' },
+  ...LAYOUT_OPTIONS,
 } as const;
 
 const MODEL = {
@@ -172,28 +174,6 @@ function num(values: Record<string, unknown>, name: string): number | undefined 
   return x;
 }
 
-function channelsOf(values: Record<string, unknown>): CliChannel[] {
-  const columns = (values.column as string[] | undefined) ?? ['1'];
-  const quantity = (values.quantity as string | undefined) ?? 'stress';
-  let base: ChannelSelection;
-  if (quantity === 'stress') {
-    const unit = (values.unit as string | undefined) ?? 'MPa';
-    if (unit !== 'MPa' && unit !== 'ksi') throw new UsageError(`--unit: stress is in MPa or ksi, got "${unit}"`);
-    base = { quantity, unit, column: 1 };
-  } else if (quantity === 'strain') {
-    const unit = (values.unit as string | undefined) ?? 'strain';
-    if (unit !== 'strain' && unit !== 'microstrain') throw new UsageError(`--unit: strain is plain strain or microstrain, got "${unit}"`);
-    base = { quantity, unit, column: 1 };
-  } else if (quantity === 'load') {
-    const f = num(values, 'mpa-per-unit');
-    if (f === undefined) throw new UsageError('--mpa-per-unit: a load channel needs its nominal stress in MPa per unit of load');
-    base = { quantity, mpaPerUnit: f, column: 1 };
-  } else {
-    throw new UsageError(`--quantity: stress, strain or load, got "${quantity}"`);
-  }
-  return columns.map((c) => ({ ...base, column: /^\d+$/.test(c) ? Number(c) : c }));
-}
-
 function timeOf(values: Record<string, unknown>): TimeSource | undefined {
   const rate = num(values, 'sample-rate');
   const col = values['time-column'] as string | undefined;
@@ -247,11 +227,16 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
     meanStress,
     scatterFactor: num(values, 'scatter-factor') ?? 1,
     repeating: !values['one-off'],
-    channels: channelsOf(values),
+    channels: [],
     file: data.path,
     fileShown: data.shown,
     events: null,
   };
+  const dialect = dialectOf(values);
+  if (dialect) job.dialect = dialect;
+  const layout = chooseColumns(values, surveyFile(data.path, dialect, data.shown), timeOf(values), data.shown);
+  job.channels = layout.channels;
+  job.notes = layout.notes;
   const kt = num(values, 'kt');
   const kf = num(values, 'kf');
   const rule = oneOf(values, 'rule', ['neuber', 'glinka', 'linear'] as const);
@@ -291,8 +276,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   opt('criticalDamage', 'critical-damage');
   const service = serviceOf(values);
   if (service) job.service = service;
-  const time = timeOf(values);
-  if (time) job.time = time;
+  if (layout.time) job.time = layout.time;
   checkRoute(job, null);
   return job;
 }
@@ -368,8 +352,13 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   } finally {
     for (const r of results) r.loopStream?.remove();
   }
-  if (!outputs.usesStdout) io.stdout(values.json ? jsonReport(command, TOOL, results) : summaryText(results, null));
+  if (!outputs.usesStdout) io.stdout(values.json ? jsonReport(command, TOOL, results) : notesText(job) + summaryText(results, null));
   return 0;
+}
+
+/** How the command chose columns, units and the time base, one `input:` line each (empty when it chose nothing). */
+function notesText(job: CliJob): string {
+  return (job.notes ?? []).map((n) => `input: ${n}\n`).join('') + ((job.notes ?? []).length > 0 ? '\n' : '');
 }
 
 /** The outputs of assess and demo, checked now and written by `commit()` from `box.results`. */
@@ -416,7 +405,7 @@ async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, gu
 }
 
 async function eventsOf(job: CliJob, channel: CliChannel): Promise<DutyEvent[]> {
-  const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}) };
+  const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   if (job.events) {
     const out: DutyEvent[] = [];
     for (const e of job.events) {
@@ -446,7 +435,9 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   const guard = guardOf(values);
   const data = await dataFile(positionals[0], inputs, new FileAccess(inputs, null, true));
   const file = data.path;
-  const channels = channelsOf(values);
+  const dialect = dialectOf(values);
+  const layout = chooseColumns(values, surveyFile(file, dialect, data.shown), timeOf(values), data.shown);
+  const channels = layout.channels;
   if (channels.length !== 1) throw new UsageError('--column: count takes one column');
   const residue = (values.residue as string | undefined) ?? 'half';
   if (!['half', 'repeat', 'none'].includes(residue)) throw new UsageError(`--residue: half, repeat or none, got "${residue}"`);
@@ -455,8 +446,8 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   for (const [k, v] of [['range-bins', rangeBins], ['mean-bins', meanBins]] as const) {
     if (!Number.isInteger(v) || v < 1 || v > 4096) throw new UsageError(`--${k}: an integer from 1 to 4096, got ${v}`);
   }
-  const time = timeOf(values);
-  const opts = { channels, name: data.shown, ...(time ? { time } : {}) };
+  const time = layout.time;
+  const opts = { channels, name: data.shown, ...(time ? { time } : {}), ...(dialect ? { dialect } : {}) };
   const outputs = new OutputSet(inputs, io.stdoutWrite ?? (async (t) => io.stdout(t)));
   const box: { matrix: RangeMeanMatrix | null } = { matrix: null };
   if (values['matrix-out'] !== undefined) outputs.add('--matrix-out', values['matrix-out'] as string, (sink) => sink.write(JSON.stringify((box.matrix as RangeMeanMatrix).toJSON()) + '\n'));

@@ -1,5 +1,6 @@
 import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
+import { describeDialect } from '@loopwise/ingest';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
 import { cyclesCsvRow } from './cyclesCsvRow';
@@ -78,6 +79,7 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
           reader: s.reader,
           delimiter: s.dialect.delimiter,
           header: s.dialect.header,
+          layout: describeDialect(s.dialect),
           channels: s.channels.map((c) => ({ name: c.name, column: c.column, conversion: c.conversion.statement })),
           warnings: s.warnings.map((w) => w.message),
         })),
@@ -139,6 +141,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const rep: LifeReport = r.report;
     const life = rep.life;
     out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
+    for (const src of r.sources) out.push(`  read                   ${src.file}: ${src.samples} rows, ${describeDialect(src.dialect)}, ${src.reader} reader`);
     if (rep.damage.route === 'stress-life') out.push(`  route                  stress-life, S-N curve ${r.curveLabel ?? '(given)'} (cycles on the curve; no local strain)`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
     out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.service as number)} ${life.unit}` : ''}`);

@@ -159,7 +159,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
   const file = job.file as string;
   const name = job.fileShown ?? file;
-  const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}) };
+  const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   const at = (chunk: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${chunk.firstSample + chunk.length})`;
   // a gate fraction without a declared full scale: a first read finds each channel's range
   const fullScales: (number | undefined)[] = job.channels.map(() => job.fullScale);
@@ -256,7 +256,7 @@ async function runDutyCycle(job: CliJob, main: CliCorrection, guard: MemoryGuard
   if (events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
   guard.checkInMemory(events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })), job.channels.length, 'a duty cycle');
   const read: Awaited<ReturnType<typeof readDelimitedColumns>>[] = [];
-  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}) }));
+  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) }));
   guard.check(() => 'after reading the events');
   return job.channels.map((c, k) => {
     const duty: DutyEvent[] = events.map((e, j) => {

@@ -9,6 +9,9 @@ export {
   DELIMITER_CHARACTERS,
   parseDecimal,
   parseDecimalText,
+  surveyColumns,
+  describeDialect,
+  recognizeUnit,
   channelConversion,
   MPA_PER_KSI,
   MICROSTRAIN_PER_STRAIN,
@@ -38,6 +41,8 @@ export type {
   SignalWarningKind,
   TimeAxisSummary,
   IngestErrorCode,
+  ColumnSurvey,
+  UnitReading,
 } from '@loopwise/ingest';
 export { readDelimited, readDelimitedColumns, DEFAULT_CHUNK_BYTES } from './readDelimited.js';
 export type { IngestOptions } from './readDelimited.js';

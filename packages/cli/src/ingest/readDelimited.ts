@@ -106,7 +106,7 @@ export async function readDelimited(path: string, options: IngestOptions): Promi
       const { bytesRead } = await handle.read(head, 0, head.length, 0);
       const dialect = reader.detect(head.subarray(0, bytesRead), bytesRead >= size);
       if (dialect.delimiter !== 'whitespace') {
-        await readWithCsvParse(path, file, dialect.bom, dialect.delimiter, dialect.commentPrefix, reader, chunkBytes);
+        await readWithCsvParse(path, file, dialect.bom, dialect.delimiter, dialect.commentPrefix, dialect.skipLines, reader, chunkBytes);
         return reader.finish();
       }
     }
@@ -229,10 +229,11 @@ async function readWithCsvParse(
   bom: boolean,
   delimiter: keyof typeof DELIMITER_CHARACTERS,
   commentPrefix: string,
+  skipLines: number,
   reader: DelimitedReader,
   chunkBytes: number,
 ): Promise<void> {
-  const parser = createReadStream(path, { highWaterMark: Math.max(chunkBytes, 16) }).pipe(parse(csvParseOptions(delimiter, commentPrefix, bom)));
+  const parser = createReadStream(path, { highWaterMark: Math.max(chunkBytes, 16) }).pipe(parse({ ...csvParseOptions(delimiter, commentPrefix, bom), from_line: skipLines + 1 }));
   try {
     for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
       reader.pushRecord(item.record, item.info.lines);

@@ -77,7 +77,7 @@ describe('readDelimited(path, options): dialects', () => {
   it('takes dialect overrides and reports them as options', async () => {
     const r = await values(file('1;2\n3;4\n'), { ...plain(1), dialect: { delimiter: 'semicolon', header: false } });
     expect(r.x).toEqual([1, 3]);
-    expect(r.report.dialect.source).toEqual({ delimiter: 'option', decimalComma: 'detected', header: 'option' });
+    expect(r.report.dialect.source).toEqual({ delimiter: 'option', decimalComma: 'detected', header: 'option', unitsRow: 'detected' });
     expect((await values(file('% x\n1,2\n'), { ...plain(2), dialect: { commentPrefix: '%' } })).x).toEqual([2]);
   });
 
