@@ -32,7 +32,7 @@ export function resolveColumn(ref: ColumnReference, dialect: Dialect, file: stri
   if (k < 0) {
     const detail = dialect.header
       ? `unknown column "${ref}"; the columns are ${listNames(dialect)}`
-      : `unknown column "${ref}": the file has no header, so select columns by 1-based index (1 to ${dialect.fieldCount})`;
+      : `unknown column "${ref}": the file has no header, so select columns by 1-based index (1 to ${dialect.fieldCount}), or, if the header sits below other lines, skip those (dialect.skipLines; --skip-lines on the command line)`;
     throw new IngestError('LW_INGEST_UNKNOWN_COLUMN', file, dialect.headerLine, 0, detail);
   }
   return k;

@@ -8,45 +8,27 @@ import {
   IngestOptionError,
   type ChannelSelection,
   type ColumnReference,
-  type DialectOverride,
   type IngestChunk,
   type IngestReport,
   type IngestedChannel,
-  type SignalCheckThresholds,
+  type ReaderOptions,
   type TimeSource,
 } from '@loopwise/ingest';
 
 export type { ChannelSelection, ColumnReference, IngestChunk, IngestReport, IngestedChannel, TimeSource };
 
-/** Options of {@link readDelimited}. Every field documents its default. */
-export interface IngestOptions {
-  /** The channels to read (at least one). */
-  channels: readonly ChannelSelection[];
-  /** A time column or a sample rate. Default: none (samples only). */
-  time?: TimeSource;
-  /** Parts of the dialect to fix instead of detecting them. Default: all detected. */
-  dialect?: DialectOverride;
+/**
+ * Options of {@link readDelimited}: those of the reader ({@link ReaderOptions}) and how the file
+ * is read. Every field documents its default.
+ */
+export interface IngestOptions extends ReaderOptions {
   /** 'auto' (default): the fast reader for plain numeric text, the quoted-field reader once quotes appear; 'csv-parse': csv-parse splits every record. */
   reader?: 'auto' | 'csv-parse';
   /** Bytes read at a time. Default 1 MiB (1,048,576). Any size from 1 works (for tests). */
   chunkBytes?: number;
-  /** Samples per delivered chunk. Default 65,536. */
-  chunkSamples?: number;
-  /** Bytes looked at for dialect detection. Default 64 KiB. */
-  detectionBytes?: number;
-  /** Thresholds of the signal checks, or false to skip them. Default: the documented defaults. */
-  checks?: Partial<SignalCheckThresholds> | false;
-  /** Called with each chunk as it is read. Default: none (only the report). */
-  onChunk?: (chunk: IngestChunk) => void;
-  /**
-   * Stop reading once this many samples have been delivered (the chunk that reaches it is
-   * delivered whole); default: read the whole file. For a second read of a prefix.
-   */
-  stopAfterSamples?: number;
   /** The file's name in messages and in the report. Default: `path`. */
   name?: string;
 }
-
 
 /** 1 MiB. */
 export const DEFAULT_CHUNK_BYTES = 1 << 20;
