@@ -1,0 +1,67 @@
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { makeFleet, SETTINGS } from './support/makeFleet';
+import { runFleet } from './support/runFleet';
+
+// Issue 14, first test: with no server, 60 generated files (several assets, several channels,
+// different lengths; invented data) give the same fleet result on 1 and 2 workers as one
+// sequential run. Through the built binary (pnpm test builds first).
+let root = '';
+let manifest = '';
+beforeAll(() => {
+  root = mkdtempSync(join(tmpdir(), 'loopwise-fleet-local-'));
+  manifest = makeFleet(join(root, 'fleet'), 60, 7, 1500, 12000).manifest;
+});
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+const read = (out: string, name: string) => readFileSync(join(out, name));
+
+describe('loopwise-fleet run on the local pool', () => {
+  test('run <manifest> --workers 1 and --workers 2 equal --sequential: fleet.json, spectra.json and the Parquet files byte for byte', () => {
+    const outs: Record<string, string> = {};
+    for (const [name, args] of [['sequential', ['--sequential']], ['one', ['--workers', '1']], ['two', ['--workers', '2']]] as const) {
+      const out = join(root, `out-${name}`);
+      const r = runFleet(['run', manifest, '--out', out, ...SETTINGS, ...args], root);
+      expect(r.stderr).toBe('');
+      expect(r.code).toBe(0);
+      expect(r.stdout).toMatch(/^60 files listed: 60 assessed, 0 failed/);
+      outs[name] = out;
+    }
+    const fleet = JSON.parse(read(outs.sequential, 'fleet.json').toString());
+    expect(fleet.counts).toEqual({ rows: 60, assessed: 60, failed: 0 });
+    expect(fleet.channels.map((c: { channel: string }) => c.channel)).toEqual(['left', 'right']);
+    expect(fleet.channels[0].assets).toBe(7);
+    expect(fleet.channels[0].files).toBe(60);
+    expect(fleet.channels[1].files).toBe(48); // every fifth row lists the left channel only
+    for (const other of ['one', 'two']) {
+      // exact merge: the matrices bit-identical (spectra.json holds them in the exact encoding),
+      // the damages equal (the 1e-12 relative of the issue holds a fortiori: they are equal)
+      for (const f of ['fleet.json', 'spectra.json', 'files.parquet', 'assets.parquet', 'fleet.html']) expect(read(outs[other], f).equals(read(outs.sequential, f)), `${other}: ${f}`).toBe(true);
+    }
+  });
+
+  test('the fleet sums are the sums of the files: asset damage = Σ file damage, fleet damage per unit = Σ damage ÷ Σ usage', () => {
+    const out = join(root, 'out-sequential');
+    const fleet = JSON.parse(read(out, 'fleet.json').toString());
+    const files = readFileSync(manifest, 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
+    const usageOf = new Map<string, number>();
+    for (const f of files) usageOf.set(f[1], (usageOf.get(f[1]) ?? 0) + Number(f[3]));
+    for (const a of fleet.assets.filter((x: { channel: string }) => x.channel === 'left')) expect(a.usage).toBeCloseTo(usageOf.get(a.asset)!, 9);
+    const left = fleet.channels[0];
+    const d = fleet.assets.filter((x: { channel: string }) => x.channel === 'left').reduce((s: number, a: { damage: number }) => s + a.damage, 0);
+    const u = fleet.assets.filter((x: { channel: string }) => x.channel === 'left').reduce((s: number, a: { usage: number }) => s + a.usage, 0);
+    expect(Math.abs(left.damagePerUnit - d / u) / (d / u)).toBeLessThan(1e-12);
+    expect(left.distribution.p50).toBeLessThanOrEqual(left.distribution.p95);
+    expect(left.distribution.p95).toBeLessThanOrEqual(left.distribution.max);
+  });
+
+  test('a rerun into the same folder redoes no file and gives the same result', () => {
+    const out = join(root, 'out-two');
+    const before = read(out, 'fleet.json');
+    const r = runFleet(['run', manifest, '--out', out, ...SETTINGS, '--workers', '2'], root);
+    expect(r.code).toBe(0);
+    expect(read(out, 'fleet.json').equals(before)).toBe(true);
+  });
+});
