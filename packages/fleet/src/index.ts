@@ -18,5 +18,5 @@ export { matrixExceedance } from './matrixExceedance';
 export { fleetReport, spectraJson, fleetJson, FLEET_CAUTION, FLEET_REPORT_VERSION } from './fleetReport';
 export { filesParquet, assetsParquet } from './fleetParquet';
 export { renderFleetHtml } from './renderFleetHtml';
-export { writeFleetOutputs, removeFleetTemporaries, type FleetOutput } from './writeFleetOutputs';
+export { writeFleetOutputs, checkFleetOutputs, removeFleetTemporaries, FLEET_OUTPUT_NAMES, type FleetOutput } from './writeFleetOutputs';
 export { fleetMain, summaryText, FLEET_HELP, FLEET_VERSION, type FleetIo } from './main';

@@ -15,7 +15,7 @@ import { ResultStore } from './ResultStore';
 import { runLocal } from './runLocal';
 import { runQueue } from './runQueue';
 import { runQueueWorker } from './runQueueWorker';
-import { removeFleetTemporaries, writeFleetOutputs } from './writeFleetOutputs';
+import { checkFleetOutputs, FLEET_OUTPUT_NAMES, removeFleetTemporaries, writeFleetOutputs } from './writeFleetOutputs';
 
 /** Version printed by --version and written into reports. */
 export const FLEET_VERSION = '0.1.0';
@@ -161,6 +161,7 @@ async function runCommand(args: string[], io: FleetIo): Promise<number> {
   process.once('SIGTERM', onSignal);
   try {
     const plan = planFleet(positionals[0], options);
+    checkFleetOutputs(values.out as string, FLEET_OUTPUT_NAMES, plan.inputs);
     const store = new ResultStore(join(values.out as string, 'results'));
     const progress = progressOf(io, Boolean(values.quiet));
     const results = connection

@@ -32,13 +32,14 @@ export async function openQueueConnection(address: string, option = '--queue'): 
   }
   if (url.protocol !== 'redis:' && url.protocol !== 'rediss:') throw new FleetError('invalid-queue', option, address, `${option} ${address}: expected a redis:// or rediss:// address`);
   const probe = new Redis(address, { lazyConnect: true, connectTimeout: CONNECT_TIMEOUT_MS, maxRetriesPerRequest: 0, retryStrategy: () => null, enableOfflineQueue: false });
-  probe.on('error', () => undefined); // reported below, once
+  let cause: Error | null = null;
+  probe.on('error', (error: Error) => (cause ??= error)); // the socket's own error says most
   try {
     await probe.connect();
     await probe.ping();
   } catch (error) {
     probe.disconnect();
-    throw new FleetError('unreachable-queue', option, address, `${option} ${address}: the queue cannot be reached (${(error as Error).message})`);
+    throw new FleetError('unreachable-queue', option, address, `${option} ${address}: the queue cannot be reached (${(cause ?? (error as Error)).message})`);
   }
   probe.disconnect();
   const connection = new Redis(address, { maxRetriesPerRequest: null });

@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { lstatSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { InputFiles } from '@loopwise/cli';
 import { FleetError } from './FleetError';
@@ -9,6 +9,9 @@ export interface FleetOutput {
   name: string;
   content: string | Uint8Array;
 }
+
+/** The names of a fleet run's outputs in its folder. */
+export const FLEET_OUTPUT_NAMES = ['fleet.json', 'spectra.json', 'files.parquet', 'assets.parquet', 'fleet.html'] as const;
 
 /** Temporaries being written now (removed on a signal; see {@link removeFleetTemporaries}). */
 const pending = new Set<string>();
@@ -20,16 +23,15 @@ export function removeFleetTemporaries(): void {
 }
 
 /**
- * Writes the outputs of a fleet run all or nothing, by the rule of the `loopwise` command's
- * outputs: each target is checked first (not a link, not a folder, not any input of the run by
- * device and inode), each output is written to a temporary file beside its target (opened
- * exclusively), and only when all are complete are they renamed into place. On any failure
- * the temporaries are removed and no output of this call is changed.
+ * Checks the targets of a fleet run's outputs and returns their paths: the folder is a folder
+ * (or does not exist yet), and no target is a symbolic link, a folder or any input of the run
+ * (by device and inode). Called before any work, so a run that could not write stops at once,
+ * and again by {@link writeFleetOutputs}.
  */
-export function writeFleetOutputs(folder: string, outputs: readonly FleetOutput[], inputs: InputFiles): void {
-  mkdirSync(folder, { recursive: true });
-  const targets = outputs.map((o) => {
-    const path = join(folder, o.name);
+export function checkFleetOutputs(folder: string, names: readonly string[], inputs: InputFiles): string[] {
+  if (existsSync(folder) && !statSync(folder).isDirectory()) throw new FleetError('output-not-folder', '--out', folder, `${folder}: --out names a file; the outputs go into a folder`);
+  return names.map((name) => {
+    const path = join(folder, name);
     let st = null;
     try {
       st = lstatSync(path);
@@ -44,6 +46,18 @@ export function writeFleetOutputs(folder: string, outputs: readonly FleetOutput[
     }
     return path;
   });
+}
+
+/**
+ * Writes the outputs of a fleet run all or nothing, by the rule of the `loopwise` command's
+ * outputs: the targets are checked ({@link checkFleetOutputs}), each output is written to a
+ * temporary file beside its target (opened exclusively), and only when all are complete are
+ * they renamed into place. On any failure the temporaries are removed and no output of this
+ * call is changed.
+ */
+export function writeFleetOutputs(folder: string, outputs: readonly FleetOutput[], inputs: InputFiles): void {
+  mkdirSync(folder, { recursive: true });
+  const targets = checkFleetOutputs(folder, outputs.map((o) => o.name), inputs);
   const temps: string[] = [];
   try {
     for (const o of outputs) {
@@ -57,7 +71,8 @@ export function writeFleetOutputs(folder: string, outputs: readonly FleetOutput[
       pending.delete(temps[k]);
     });
   } finally {
-    for (const t of temps) if (pending.has(t)) {
+    for (const t of temps) {
+      if (!pending.has(t)) continue;
       rmSync(t, { force: true });
       pending.delete(t);
     }
