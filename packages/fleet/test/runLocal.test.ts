@@ -1,9 +1,9 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { makeFleet, SETTINGS } from './support/makeFleet';
-import { runFleet } from './support/runFleet';
+import { runFleet, startFleet } from './support/runFleet';
 
 // Issue 14, first test: with no server, 60 generated files (several assets, several channels,
 // different lengths; invented data) give the same fleet result on 1 and 2 workers as one
@@ -60,8 +60,47 @@ describe('loopwise-fleet run on the local pool', () => {
   test('a rerun into the same folder redoes no file and gives the same result', () => {
     const out = join(root, 'out-two');
     const before = read(out, 'fleet.json');
+    const times = readdirSync(join(out, 'results')).map((f) => statSync(join(out, 'results', f)).mtimeMs);
     const r = runFleet(['run', manifest, '--out', out, ...SETTINGS, '--workers', '2'], root);
     expect(r.code).toBe(0);
     expect(read(out, 'fleet.json').equals(before)).toBe(true);
+    expect(readdirSync(join(out, 'results')).map((f) => statSync(join(out, 'results', f)).mtimeMs)).toEqual(times);
   });
+});
+
+describe('loopwise-fleet run, interrupted and run again', () => {
+  test('SIGINT in the middle of a run leaves only whole results and no temporary; the rerun redoes none of them and equals an uninterrupted run', async () => {
+    const made = makeFleet(join(root, 'fleet-resume'), 16, 4, 40000, 60000, 5);
+    const out = join(root, 'out-resume');
+    const run = startFleet(['run', made.manifest, '--out', out, ...SETTINGS, '--workers', '1'], root);
+    const results = join(out, 'results');
+    const end = Date.now() + 60000;
+    while (Date.now() < end) {
+      let n = 0;
+      try {
+        n = readdirSync(results).filter((f) => f.endsWith('.json')).length;
+      } catch {
+        n = 0;
+      }
+      if (n >= 3) break;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    run.child.kill('SIGINT');
+    expect(await run.exited).toBe(130);
+    const kept = readdirSync(results);
+    expect(kept.filter((f) => !f.endsWith('.json'))).toEqual([]); // no temporary left
+    expect(kept.length).toBeGreaterThanOrEqual(3);
+    expect(kept.length).toBeLessThan(16);
+    const times = kept.map((f) => {
+      JSON.parse(readFileSync(join(results, f), 'utf8')); // whole
+      return statSync(join(results, f)).mtimeMs;
+    });
+    const again = runFleet(['run', made.manifest, '--out', out, ...SETTINGS, '--workers', '2'], root);
+    expect(again.code, again.stderr).toBe(0);
+    expect(kept.map((f) => statSync(join(results, f)).mtimeMs)).toEqual(times); // not redone
+    expect(readdirSync(results)).toHaveLength(16);
+    const fresh = runFleet(['run', made.manifest, '--out', join(root, 'out-resume-fresh'), ...SETTINGS, '--sequential'], root);
+    expect(fresh.code).toBe(0);
+    for (const f of ['fleet.json', 'spectra.json', 'files.parquet']) expect(readFileSync(join(out, f)).equals(readFileSync(join(root, 'out-resume-fresh', f))), f).toBe(true);
+  }, 120000);
 });
