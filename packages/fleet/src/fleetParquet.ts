@@ -4,8 +4,8 @@ import type { FleetResult } from './mergeFleet';
 /**
  * The per-file table as Parquet (one row per file and channel): row, file, asset, channel,
  * usage, samples, damage per repeat and per unit, life in repeats and service, design service,
- * cycles, warnings (JSON text), key. Written with hyparquet-writer (uncompressed columns are
- * not needed: its default Snappy codec is read by every Parquet reader).
+ * cycles, warnings (JSON text), key. Written with hyparquet-writer (its default Snappy pages,
+ * which Parquet readers read; the tests read the file back with hyparquet).
  */
 export function filesParquet(fleet: FleetResult): Uint8Array {
   const f = fleet.files;
