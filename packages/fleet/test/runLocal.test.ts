@@ -57,6 +57,16 @@ describe('loopwise-fleet run on the local pool', () => {
     expect(left.distribution.p95).toBeLessThanOrEqual(left.distribution.max);
   });
 
+  test('fleet.html opens with the safety caution and draws the damage distribution and the extrapolated spectrum of each channel', () => {
+    const html = read(join(root, 'out-sequential'), 'fleet.html').toString();
+    expect(html.indexOf('class="caution"')).toBeLessThan(html.indexOf('<h2>Channel'));
+    expect(html).toMatch(/Validate predictions by test, apply scatter factors, and defer to the applicable design codes and licensed engineering review/);
+    expect(html.match(/aria-label="damage per km of each asset"/g)).toHaveLength(2);
+    expect(html.match(/aria-label="range exceedance spectrum"/g)).toHaveLength(2);
+    expect(html).toContain('target, tail fit');
+    expect(html).not.toMatch(/<script/);
+  });
+
   test('a rerun into the same folder redoes no file and gives the same result', () => {
     const out = join(root, 'out-two');
     const before = read(out, 'fleet.json');
