@@ -97,4 +97,28 @@ describe('loopwise-fleet run with bad rows', () => {
     expect(readdirSync(d).filter((f) => f.endsWith('.loopwise-tmp'))).toEqual([]);
     expect(existsSync(join(d, 'results'))).toBe(false); // refused before any work
   });
+
+  test('option errors exit 2 naming the option; help exits 0; no command exits 2 with the help', () => {
+    const m = join(dir, 'fleet.csv');
+    const cases: [string[], RegExp][] = [
+      [['run', m, '--out', join(root, 'x'), ...SETTINGS, '--workers=-1'], /--workers: expected an integer >= 0, got "-1"/],
+      [['run', m, '--out', join(root, 'x'), ...SETTINGS, '--workers', '2', '--sequential'], /--sequential and --workers: give one of them/],
+      [['run', m, ...SETTINGS], /--out: the output folder is needed/],
+      [['run', m, '--out', join(root, 'x'), ...SETTINGS, '--colour'], /Unknown option '--colour'/],
+      [['run', m, '--out', join(root, 'x'), '--unit', 'km', '--range-bins', '0:0:1', '--mean-bins', '2:0:1', '--from-to-bins', '2:0:1'], /--range-bins: expected count:min:max .* got "0:0:1"/],
+      [['run', m, '--out', join(root, 'x'), ...SETTINGS, '--queue', 'http://127.0.0.1:1'], /--queue http:\/\/127\.0\.0\.1:1: expected a redis:\/\/ or rediss:\/\/ address/],
+      [['worker'], /--queue: the address of the Redis server .* is needed/],
+      [['survey'], /unknown command "survey"; commands: run, worker/],
+    ];
+    for (const [args, message] of cases) {
+      const r = runFleet(args, root);
+      expect(r.code, args.join(' ')).toBe(2);
+      expect(r.stderr).toMatch(message);
+    }
+    expect(existsSync(join(root, 'x'))).toBe(false);
+    const help = runFleet(['--help'], root);
+    expect(help.code).toBe(0);
+    expect(help.stdout).toMatch(/loopwise-fleet run <manifest\.csv \| manifest\.json \| folder> --out <folder>/);
+    expect(runFleet([], root).code).toBe(2);
+  });
 });
