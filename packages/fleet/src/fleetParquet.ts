@@ -3,7 +3,7 @@ import type { FleetResult } from './mergeFleet';
 
 /**
  * The per-file table as Parquet (one row per file and channel): row, file, asset, channel,
- * usage, samples, damage per repeat and per unit, life in repeats and service, design service,
+ * route, usage, samples, damage per repeat and per unit, life in repeats and service, design service,
  * cycles, warnings (JSON text), key. Written with hyparquet-writer (its default Snappy pages,
  * which Parquet readers read; the tests read the file back with hyparquet).
  */
@@ -16,6 +16,7 @@ export function filesParquet(fleet: FleetResult): Uint8Array {
         { name: 'file', data: f.map((r) => r.file), type: 'STRING' },
         { name: 'asset', data: f.map((r) => r.asset), type: 'STRING' },
         { name: 'channel', data: f.map((r) => r.channel), type: 'STRING' },
+        { name: 'route', data: f.map((r) => r.route), type: 'STRING' },
         { name: 'usage', data: f.map((r) => r.usage), type: 'DOUBLE' },
         { name: 'samples', data: f.map((r) => r.samples), type: 'DOUBLE' },
         { name: 'damage_per_repeat', data: f.map((r) => r.damagePerRepeat), type: 'DOUBLE' },

@@ -11,6 +11,8 @@ export interface FileChannelRow {
   file: string;
   asset: string;
   channel: string;
+  /** The route of the file's assessment: `strain-life` or `stress-life`. */
+  route: string;
   usage: number;
   samples: number;
   damagePerRepeat: number;
@@ -95,7 +97,7 @@ export function mergeFleet(settings: FleetSettings, tasks: readonly FleetTask[],
     for (const c of r.channels) {
       const rm = RangeMeanMatrix.fromJSON(c.rangeMean);
       const ft = FromToMatrix.fromJSON(c.fromTo);
-      files.push({ row: t.row, file: t.shown, asset: t.asset, channel: c.channel, usage: t.usage, samples: r.samples, damagePerRepeat: c.damagePerRepeat, damagePerUnit: c.damagePerUnit, lifeRepeats: c.lifeRepeats, lifeService: c.lifeService, designService: c.designService, cycles: rm.totalCount(), warnings: c.warnings, key: t.key });
+      files.push({ row: t.row, file: t.shown, asset: t.asset, channel: c.channel, route: c.route, usage: t.usage, samples: r.samples, damagePerRepeat: c.damagePerRepeat, damagePerUnit: c.damagePerUnit, lifeRepeats: c.lifeRepeats, lifeService: c.lifeService, designService: c.designService, cycles: rm.totalCount(), warnings: c.warnings, key: t.key });
       const id = JSON.stringify([t.asset, c.channel]);
       let a = assets.get(id);
       if (a === undefined) assets.set(id, (a = { asset: t.asset, channel: c.channel, files: 0, usage: new NeumaierAdder(), damage: new NeumaierAdder(), critical: c.criticalDamage }));

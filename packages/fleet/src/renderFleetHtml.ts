@@ -1,4 +1,4 @@
-import { ASSUMPTIONS, CAUTION } from '@loopwise/engine';
+import { ASSUMPTIONS, CAUTION, STRESS_LIFE_ASSUMPTIONS } from '@loopwise/engine';
 import { FLEET_CAUTION } from './fleetReport';
 import { matrixExceedance } from './matrixExceedance';
 import type { FleetChannel, FleetResult } from './mergeFleet';
@@ -53,6 +53,13 @@ function spectrumPlot(c: FleetChannel): string {
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" role="img" aria-label="range exceedance spectrum"><rect width="${W}" height="${H}" fill="#fff"/>${paths.join('')}${ticks.join('')}<text x="${M.left - 6}" y="${M.top + 10}" text-anchor="end" font-size="11">${num(rMax)}</text><text x="${M.left - 6}" y="${H - M.bottom}" text-anchor="end" font-size="11">0</text><line x1="${M.left}" x2="${M.left}" y1="${M.top}" y2="${H - M.bottom}" stroke="#333"/><line x1="${M.left}" x2="${W - M.right}" y1="${H - M.bottom}" y2="${H - M.bottom}" stroke="#333"/><text x="${(W + M.left) / 2}" y="${H - 12}" text-anchor="middle" font-size="12">cycles with a range at or above (log)</text><text x="14" y="${(H - M.bottom) / 2}" font-size="12" transform="rotate(-90 14 ${(H - M.bottom) / 2})" text-anchor="middle">range</text></svg>`;
 }
 
+/** The assumptions of the routes the fleet's files took. */
+function assumptionsOf(fleet: FleetResult): string {
+  const routes = new Set(fleet.files.map((f) => f.route));
+  const list = (title: string, items: readonly string[]) => `<p>${esc(title)}</p><ul>${items.map((a) => `<li>${esc(a)}</li>`).join('')}</ul>`;
+  return (routes.has('strain-life') ? list('Assumptions of each file assessed on the strain-life route:', ASSUMPTIONS) : '') + (routes.has('stress-life') ? list('Assumptions of each file assessed on the stress-life route:', STRESS_LIFE_ASSUMPTIONS) : '');
+}
+
 function table(head: string[], rows: string[][]): string {
   return `<table><thead><tr>${head.map((h) => `<th>${esc(h)}</th>`).join('')}</tr></thead><tbody>${rows.map((r) => `<tr>${r.map((v) => `<td>${esc(v)}</td>`).join('')}</tr>`).join('')}</tbody></table>`;
 }
@@ -67,7 +74,7 @@ export function renderFleetHtml(fleet: FleetResult, tool: string): string {
   const u = fleet.settings.unit;
   const parts: string[] = [];
   parts.push(`<h1>Fleet summary</h1><p>${esc(tool)}: ${fleet.counts.rows} files listed, ${fleet.counts.assessed} assessed, ${fleet.counts.failed} failed. Service unit: ${esc(u)}${fleet.settings.targetService !== null ? `; target service ${num(fleet.settings.targetService)} ${esc(u)}` : ''}.</p>`);
-  parts.push(`<section class="caution"><h2>Caution</h2><p>${esc(FLEET_CAUTION)}</p><p>${esc(CAUTION)}</p><p>Assumptions of each file's assessment:</p><ul>${ASSUMPTIONS.map((a) => `<li>${esc(a)}</li>`).join('')}</ul></section>`);
+  parts.push(`<section class="caution"><h2>Caution</h2><p>${esc(FLEET_CAUTION)}</p><p>${esc(CAUTION)}</p>${assumptionsOf(fleet)}</section>`);
   parts.push('<h2>Failures</h2>' + (fleet.failures.length === 0 ? '<p>None: every listed file was assessed.</p>' : `<ul>${fleet.failures.map((f) => `<li>${esc(f.message)}</li>`).join('')}</ul>`));
   for (const c of fleet.channels) {
     const d = c.distribution;
