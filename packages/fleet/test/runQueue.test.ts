@@ -26,8 +26,8 @@ describe.skipIf(binary === null)('loopwise-fleet run --queue with three loopwise
   beforeAll(async () => {
     redis = await startRedis(binary as string);
     root = mkdtempSync(join(tmpdir(), 'loopwise-fleet-queue-'));
-    // 12 invented files of 60 000 to 120 000 rows (long enough to be killed in the middle of one)
-    manifest = makeFleet(join(root, 'fleet'), 12, 3, 60000, 120000, 7).manifest;
+    // 12 invented files of 90 000 to 180 000 rows (long enough to be killed in the middle of one)
+    manifest = makeFleet(join(root, 'fleet'), 12, 3, 90000, 180000, 7).manifest;
   }, 120000);
   afterAll(async () => {
     for (const w of workers) if (w.child.exitCode === null && w.child.signalCode === null) w.child.kill('SIGTERM');
