@@ -1,7 +1,7 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
-const packages = ['base', 'material', 'rainflow', 'signal', 'ingest', 'notch', 'mean-stress', 'miner', 'stress-life', 'engine', 'cli'];
+const packages = ['base', 'material', 'rainflow', 'signal', 'ingest', 'notch', 'mean-stress', 'miner', 'stress-life', 'engine', 'cli', 'fleet'];
 
 export default defineConfig({
   resolve: {

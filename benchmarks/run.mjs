@@ -9,7 +9,7 @@ import { fileURLToPath } from 'node:url';
 import * as harness from './harness.mjs';
 
 /** Suites in run order; each is ./suites/<name>.mjs exporting `run(harness)` → rows. */
-const SUITES = ['rainflow', 'signal', 'mean-stress', 'notch', 'stress-life', 'engine', 'small-calls', 'native', 'ingest', 'cli', 'cli-memory'];
+const SUITES = ['rainflow', 'signal', 'mean-stress', 'notch', 'stress-life', 'engine', 'small-calls', 'native', 'ingest', 'cli', 'cli-memory', 'fleet'];
 
 const only = process.argv.slice(2);
 const rows = [];

@@ -11,6 +11,7 @@ import * as miner from '@loopwise/miner';
 import * as engine from '@loopwise/engine';
 import * as notch from '@loopwise/notch';
 import * as stressLife from '@loopwise/stress-life';
+import * as fleet from '@loopwise/fleet';
 
 // Runs every ```js block of the package READMEs: imports of @loopwise packages are bound to the
 // sources, and each line `expression; // returns value` becomes an assertion that the expression
@@ -27,6 +28,7 @@ const modules: Record<string, unknown> = {
   '@loopwise/engine': engine,
   '@loopwise/notch': notch,
   '@loopwise/stress-life': stressLife,
+  '@loopwise/fleet': fleet,
 };
 
 const root = new URL('..', import.meta.url).pathname;
