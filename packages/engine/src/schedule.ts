@@ -7,7 +7,12 @@ export interface DutyEvent {
   name: string;
   /** One repeat of the event's history, in the job's input unit. */
   history: ArrayLike<number>;
-  /** Consecutive repeats of the event in one run of the schedule; an integer >= 1. */
+  /**
+   * Consecutive repeats of the event in one run of the schedule: a finite number >= 1. A
+   * fraction (2.5) adds that share of one more repeat's loops, so the damage lies on the line
+   * between the whole numbers around it (docs/engine.md, "Fractional repeats"). An event rarer
+   * than once per schedule: lengthen the schedule (every repeats and the service times k).
+   */
   repeats: number;
   /** Service one repeat of the event stands for, in `job.unit.label` (hours, km, …); >= 0. */
   duration?: number;
@@ -15,7 +20,7 @@ export interface DutyEvent {
 
 /**
  * Checks the events of a duty cycle: at least one, each with a name, a non-empty history,
- * integer repeats >= 1 and an optional finite duration >= 0. Errors name `events[k].field`.
+ * repeats a finite number >= 1 and an optional finite duration >= 0. Errors name `events[k].field`.
  */
 export function checkEvents(events: DutyEvent[]): DutyEvent[] {
   if (!Array.isArray(events) || events.length === 0) {
@@ -29,8 +34,8 @@ export function checkEvents(events: DutyEvent[]): DutyEvent[] {
       throw new EngineError('invalid-event', `${at}.history`, e.history, 'must be an array of numbers');
     }
     if (e.history.length === 0) throw new EngineError('invalid-event', `${at}.history`, '[]', `event '${e.name}' has no samples`);
-    if (!Number.isInteger(e.repeats) || e.repeats < 1) {
-      throw new EngineError('invalid-event', `${at}.repeats`, e.repeats, `must be an integer >= 1 (event '${e.name}')`);
+    if (!(typeof e.repeats === 'number' && e.repeats >= 1 && e.repeats < 2 ** 53)) {
+      throw new EngineError('invalid-event', `${at}.repeats`, e.repeats, `must be a finite number >= 1, a fraction allowed (event '${e.name}'; an event rarer than once per schedule: multiply every event's repeats instead)`);
     }
     if (e.duration !== undefined && !(typeof e.duration === 'number' && e.duration >= 0 && e.duration < Infinity)) {
       throw new EngineError('invalid-event', `${at}.duration`, e.duration, `must be a finite number >= 0 (event '${e.name}')`);

@@ -108,7 +108,9 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
   events.forEach((e, k) => {
     let previous = '';
     let removedBefore = counter.removedCount;
-    for (let j = 0; j < e.repeats; j++) {
+    // the whole repeats are counted here; a fraction left adds its share of one repeat's cycles below
+    const whole = Math.floor(e.repeats);
+    for (let j = 0; j < whole; j++) {
       const at = counter.nextIndex;
       ordinals.add(at, starts[k]);
       const rowsBefore = all.length;
@@ -125,14 +127,28 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
       const removedNow = counter.removedCount - removedBefore;
       removedBefore = counter.removedCount;
       if (j > 0 && key !== '' && key === previous) {
-        // the state repeats: repeats j … repeats − 1 count what this one counted
-        all.scaleCounts(rowsBefore, e.repeats - j);
-        removed += removedNow * (e.repeats - j);
+        // the state repeats: repeats j … whole − 1 count what this one counted
+        all.scaleCounts(rowsBefore, whole - j);
+        removed += removedNow * (whole - j);
         return;
       }
       removed += removedNow;
       previous = key;
     }
+  });
+  // Fractions of repeats: f = repeats − whole times the cycles one more repeat of the event adds
+  // in the middle of its run, which are the cycles of the event alone as a repeating block (its
+  // residue closed with itself, ASTM E1049-85 5.4.5: the extra copy's points collapse against
+  // the copy before it); the property test checks the damage against whole + 1 repeats. Their
+  // indices are the event's own.
+  events.forEach((e, k) => {
+    const fraction = e.repeats - Math.floor(e.repeats);
+    if (fraction === 0) return;
+    const alone = new RainflowCounter({ gate, residue: 'repeat' });
+    alone.push(e.history);
+    const c = (alone.finish().cycles as CycleTable).columns();
+    for (let i = 0; i < c.count.length; i++) all.addCycle(c.from[i], c.to[i], c.count[i] * fraction, starts[k] + c.startIndex[i], starts[k] + c.turnIndex[i], starts[k] + c.closeIndex[i]);
+    removed += alone.removedCount * fraction;
   });
   for (const e of events) {
     for (let i = 0; i < e.history.length; i++) {

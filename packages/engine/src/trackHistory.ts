@@ -100,7 +100,7 @@ export function trackDutyCycle(events: DutyEvent[], job: ResolvedJob): TrackedHi
     const base = starts[k];
     if (base !== 0) for (let i = 0; i < indices.length; i++) indices[i] += base;
     points.push({ values: tp.values, indices });
-    expected += tp.values.length * Math.min(e.repeats, 3);
+    expected += tp.values.length * Math.ceil(Math.min(e.repeats, 3));
   });
   const tracker = new RepeatingNotchTracker({ ...trackerOptionsOf(job), expectedPoints: expected });
   try {

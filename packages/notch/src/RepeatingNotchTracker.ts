@@ -118,7 +118,11 @@ export interface TakenLoops {
  * `repeats` > 1 runs again only until the memory after a repeat equals the memory after the one
  * before: every further repeat starts from the same memory and closes the same loops, so that
  * repeat's loops get the remaining repeats as their count (usually after two or three repeats:
- * the first repeat's largest excursion closes all smaller memory).
+ * the first repeat's largest excursion closes all smaller memory). (3) A fraction of a repeat:
+ * `repeats` = n + f (n >= 1, 0 < f < 1) runs n + 1 repeats as in (2), the loops closed in the
+ * last one counting f times: the damage lies on the line between n and n + 1 repeats, and the
+ * memory the event leaves is that of n + 1 repeats. A part of a repeat is a share of a repeat's
+ * loops, not a cut history (our own rule, documented in docs/engine.md).
  *
  * The tracker notes the largest point at its reversals as it goes, so no scan of its own.
  *
@@ -170,8 +174,9 @@ export class RepeatingNotchTracker {
   /**
    * Pushes points of the first pass: `values[from]` … `values[to − 1]` with their sample
    * indices (`indices` null: consecutive indices, counting on from the pass's last raw push).
-   * With `repeats` > 1 the points are one whole block that runs that many times in a row (an
-   * event of a duty cycle); its loops are counted as described in the class comment. NaN or
+   * With `repeats` other than 1 the points are one whole block that runs that many times in a
+   * row (an event of a duty cycle; a fraction allowed); its loops are counted as described in the
+   * class comment. NaN or
    * ±Infinity throws NotchSampleError naming the sample index.
    */
   push(values: ArrayLike<number>, indices: ArrayLike<number> | null = null, from = 0, end?: number, repeats = 1): this {
@@ -250,7 +255,7 @@ export class RepeatingNotchTracker {
     // They differ only when the memory model was left (not expected); the second pass goes on.
     this.whole = true;
     this.feed(values, indices, at + 1, to);
-    if (repeats > 1) this.repeatRest(values, indices, from, to, repeats, blockBase);
+    this.afterFirstRepeat(values, indices, from, to, repeats, blockBase);
     if (indices === null) this.base = blockBase + (to - from);
     return this;
   }
@@ -326,25 +331,43 @@ export class RepeatingNotchTracker {
   private block(values: ArrayLike<number>, indices: ArrayLike<number> | null, from: number, to: number, repeats: number): void {
     const blockBase = this.base;
     this.feed(values, indices, from, to);
-    if (repeats > 1) this.repeatRest(values, indices, from, to, repeats, blockBase);
+    this.afterFirstRepeat(values, indices, from, to, repeats, blockBase);
     if (indices === null) this.base = blockBase + (to - from);
   }
 
   /**
-   * Repeats 2 … `repeats` of a block whose first repeat was just pushed: each from the block's
-   * own indices, until the memory after a repeat equals the memory after the one before; that
-   * repeat's loops then count for every repeat left.
+   * The repeats after the first of a block (its loops from row `firstRow` on): the whole ones by
+   * {@link repeatRest}, and a fraction of a repeat as a weight on the last repeat run (its
+   * loops count 1 + fraction times; see the class comment).
    */
-  private repeatRest(values: ArrayLike<number>, indices: ArrayLike<number> | null, from: number, to: number, repeats: number, blockBase: number): void {
+  private afterFirstRepeat(values: ArrayLike<number>, indices: ArrayLike<number> | null, from: number, to: number, repeats: number, blockBase: number): void {
+    const whole = Math.floor(repeats);
+    const fraction = repeats - whole;
+    // a fraction runs one more repeat, whose loops count `fraction` times
+    const runs = fraction > 0 ? whole + 1 : whole;
+    if (runs > 1) this.repeatRest(values, indices, from, to, runs, fraction, blockBase);
+  }
+
+  /**
+   * Repeats 2 … `runs` of a block whose first repeat was just pushed: each from the block's own
+   * indices, until the memory after a repeat equals the memory after the one before; that
+   * repeat's loops then count for every repeat left. With a `fraction` > 0 the last run stands
+   * for that fraction of a repeat (its loops count `fraction` times).
+   */
+  private repeatRest(values: ArrayLike<number>, indices: ArrayLike<number> | null, from: number, to: number, runs: number, fraction: number, blockBase: number): void {
     const c = this.core;
     let previous: TrackerSnapshot = c.snapshot();
-    for (let r = 2; r <= repeats; r++) {
+    for (let r = 2; r <= runs; r++) {
       const before = c.loopTable.length;
       this.base = blockBase;
       this.feed(values, indices, from, to);
-      if (r === repeats) return;
+      if (r === runs) {
+        if (fraction > 0) c.loopTable.scaleCounts(before, c.loopTable.length, fraction);
+        return;
+      }
       if (c.matches(previous)) {
-        c.loopTable.scaleCounts(before, c.loopTable.length, 1 + repeats - r);
+        // this run and the ones left: runs − r whole ones (the last of them the fraction, if any)
+        c.loopTable.scaleCounts(before, c.loopTable.length, 1 + runs - r - (fraction > 0 ? 1 - fraction : 0));
         return;
       }
       previous = c.snapshot();
@@ -381,7 +404,7 @@ function copyOf(t: ReversalTable): ReversalTable {
 }
 
 function checkRepeats(repeats: number): void {
-  if (!(Number.isInteger(repeats) && repeats >= 1)) throw new NotchStateError('repeats', `must be an integer >= 1, got ${String(repeats)}`);
+  if (!(typeof repeats === 'number' && repeats >= 1 && repeats < 2 ** 53)) throw new NotchStateError('repeats', `must be a finite number >= 1 (a fraction allowed), got ${String(repeats)}`);
 }
 
 /** Position of `index` in the increasing `indices[from..to)` (the last position at or below it). */

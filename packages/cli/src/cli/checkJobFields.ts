@@ -155,7 +155,7 @@ const channel: FieldCheck = (value, path) => {
   }
 };
 
-const event = objectOf({ name: text, file: text, repeats: wholeFromOne, duration: nonNegative }, ['name', 'file', 'repeats']);
+const event = objectOf({ name: text, file: text, repeats: number({ test: (x) => x >= 1, says: '>= 1 (a fraction allowed, e.g. 2.5)' }), duration: nonNegative }, ['name', 'file', 'repeats']);
 
 const time: FieldCheck = (value, path) => {
   if (value !== null && typeof value === 'object' && 'sampleRate' in value) return objectOf({ sampleRate: positive }, ['sampleRate'])(value, path);
