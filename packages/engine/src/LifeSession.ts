@@ -132,6 +132,11 @@ export class LifeSession {
     this.tracker = this.stress === null ? new RepeatingNotchTracker(trackerOptionsOf(j)) : null;
   }
 
+  /** The gate range this session applies (`job.gate`, or `gateFraction × fullScale`), in the history's unit; 0 without a gate. */
+  get gateRange(): number {
+    return this.gate;
+  }
+
   /** Samples pushed in the first pass so far. */
   get sampleCount(): number {
     return this.samples;

@@ -31,6 +31,11 @@ export interface FleetTask {
   bins: FleetBins;
   /** The service unit's name (`km`, `h`, …). */
   unit: string;
+  /**
+   * Parse the file on a thread of its own (default true). The local pool sets false when its
+   * workers fill every core. How a file is read never changes its result, so this is not part of the key.
+   */
+  parseThread?: boolean;
 }
 
 /** The result of one channel of one file. */

@@ -1,4 +1,4 @@
-import { InputFiles, readDelimited, readJobFile, runAssessment, type CliChannel } from '@loopwise/cli';
+import { InputFiles, readJobFile, runAssessment, type CliChannel } from '@loopwise/cli';
 import { FromToMatrix, RainflowCounter, RangeMeanMatrix, type CycleSink } from '@loopwise/rainflow';
 import { FleetError } from './FleetError';
 import type { ChannelFileResult, FileResult, FleetTask } from './FleetTask';
@@ -26,9 +26,10 @@ class BothMatrices implements CycleSink {
  * Assesses one file of a fleet: the task's job (read with `readJobFile`) applied to the file
  * through `runAssessment` of `@loopwise/cli` (the command's own recipe: streaming life sessions,
  * the second read for a repeating history), with the file's usage as its service per repeat;
- * then one more read counts each channel's rainflow cycles into the fleet's range-mean and
- * from-to matrices (the job's residue rule: `repeat` for a repeating history, `half` for a
- * one-off; the gate the assessment used). Deterministic: the same task gives the same result,
+ * the chunks of its first read are also counted, channel by channel, into the fleet's
+ * range-mean and from-to matrices (the job's residue rule: `repeat` for a repeating history,
+ * `half` for a one-off; the gate the assessment applies). `task.parseThread` false reads the
+ * file on the calling thread (a pool worker: the pool already keeps every core busy). Deterministic: the same task gives the same result,
  * to the last bit, on any thread or machine.
  *
  * Throws on bad input ({@link FleetError}, or the error of the package that found it); use
@@ -49,16 +50,15 @@ export async function assessFile(task: FleetTask): Promise<FileResult> {
   job.file = task.file;
   job.fileShown = task.shown;
   job.service = { unit: task.unit, perRepeat: task.usage };
-  const results = await runAssessment(job, undefined, { keepLoops: false });
-  // the rainflow cycles of each channel, counted into the fleet's bins on a further read
-  const sinks = results.map(() => new BothMatrices(new RangeMeanMatrix({ range: task.bins.range, mean: task.bins.mean }), new FromToMatrix({ from: task.bins.fromTo, to: task.bins.fromTo })));
-  const counters = results.map((r, k) => new RainflowCounter({ residue: job.repeating ? 'repeat' : 'half', gate: r.report.gate.range, sink: sinks[k] }));
-  await readDelimited(task.file, {
-    channels,
-    name: task.shown,
-    checks: false,
-    ...(job.time ? { time: job.time } : {}),
-    onChunk: (chunk) => {
+  // the rainflow cycles of each channel go into the fleet's bins from the same read (the job's
+  // residue rule: repeat for a repeating history, half for a one-off; the gate the sessions apply)
+  const sinks = channels.map(() => new BothMatrices(new RangeMeanMatrix({ range: task.bins.range, mean: task.bins.mean }), new FromToMatrix({ from: task.bins.fromTo, to: task.bins.fromTo })));
+  const counters: RainflowCounter[] = [];
+  const results = await runAssessment(job, undefined, {
+    keepLoops: false,
+    parseThread: task.parseThread ?? true,
+    onChunk: (chunk, gates) => {
+      if (counters.length === 0) gates.forEach((gate, k) => counters.push(new RainflowCounter({ residue: job.repeating ? 'repeat' : 'half', gate, sink: sinks[k] })));
       for (let k = 0; k < counters.length; k++) counters[k].push(chunk.channels[k]);
     },
   });

@@ -50,8 +50,10 @@ export const FLEET_HELP = `loopwise-fleet: fatigue damage of fleets of measured 
                              settings a CSV manifest or a folder cannot hold (a JSON manifest may)
       --job-may-read-anywhere  let the manifest and jobs name files outside their folders
       --quiet                no progress on the terminal
-  loopwise-fleet worker --queue redis://H:P [--queue-name NAME] [--concurrency N] [--lock-seconds S]
+  loopwise-fleet worker --queue redis://H:P [--queue-name NAME] [--concurrency N] [--lock-seconds S] [--parse-thread]
       Takes file jobs from the queue until stopped (SIGINT or SIGTERM: after the current file).
+      Run one per core; --parse-thread parses each file on a thread of its own (one worker
+      process on a machine with cores to spare).
 
 Exit codes: 0 every file assessed; 2 bad input (a manifest row, a file, an option, an
 unreachable queue: the message names it; the other files still finish and the summary lists
@@ -217,7 +219,7 @@ export function summaryText(fleet: FleetResult): string {
 }
 
 async function workerCommand(args: string[], io: FleetIo): Promise<number> {
-  const { values } = parse(args, { queue: { type: 'string' }, 'queue-name': { type: 'string' }, concurrency: { type: 'string' }, 'lock-seconds': { type: 'string' }, quiet: { type: 'boolean' } }, 'worker');
+  const { values } = parse(args, { queue: { type: 'string' }, 'queue-name': { type: 'string' }, concurrency: { type: 'string' }, 'lock-seconds': { type: 'string' }, 'parse-thread': { type: 'boolean' }, quiet: { type: 'boolean' } }, 'worker');
   if (values.help) {
     io.stdout(FLEET_HELP + '\n');
     return 0;
@@ -231,6 +233,7 @@ async function workerCommand(args: string[], io: FleetIo): Promise<number> {
   const worker = runQueueWorker({
     connection,
     concurrency,
+    parseThread: Boolean(values['parse-thread']),
     ...(values['queue-name'] ? { queueName: values['queue-name'] as string } : {}),
     ...(lock !== undefined ? { lockMs: lock * 1000 } : {}),
     onJob: (event, task, result) => {

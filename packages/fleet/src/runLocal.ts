@@ -57,7 +57,10 @@ export async function runLocal(tasks: readonly FleetTask[], options: LocalRunOpt
   if (todo.length === 0) return results;
   const pool = new Piscina<FleetTask, FileResult>({ filename: poolWorkerFile(), minThreads: workers, maxThreads: workers, idleTimeout: 1000 });
   try {
-    await Promise.all(todo.map((t) => pool.run(t).then(finish, (error) => finish(failureOf(t, error)))));
+    // workers that fill every core read their files on their own thread: a parse thread each
+    // would only contend for the same cores; fewer workers than cores keep it
+    const parseThread = workers < availableParallelism();
+    await Promise.all(todo.map((t) => pool.run({ ...t, parseThread }).then(finish, (error) => finish(failureOf(t, error)))));
   } finally {
     await pool.destroy();
   }

@@ -12,6 +12,12 @@ export interface QueueWorkerOptions {
   concurrency?: number;
   /** How long a job's lock lasts without renewal, ms (a crashed worker's job returns after about this); default 30000. */
   lockMs?: number;
+  /**
+   * Parse each file on a thread of its own (default false: the documented setting is one worker
+   * process per core, whose parse threads would only contend for the same cores). Set true for a
+   * single worker process on a machine with cores to spare.
+   */
+  parseThread?: boolean;
   /** Called when a file is taken and when it is done. */
   onJob?: (event: 'taken' | 'done', task: FleetTask, result?: FileResult) => void;
 }
@@ -32,7 +38,7 @@ export function runQueueWorker(options: QueueWorkerOptions): Worker<FleetTask, s
     name,
     async (job) => {
       options.onJob?.('taken', job.data);
-      const result = await assessFileOrFailure(job.data);
+      const result = await assessFileOrFailure({ ...job.data, parseThread: options.parseThread ?? false });
       await redis.hset(hash, result.key, JSON.stringify(result));
       options.onJob?.('done', job.data, result);
       return result.failure ? 'failed' : 'assessed';

@@ -10,7 +10,7 @@ import {
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
-import { readDelimitedColumns, readDelimitedParallel, type IngestReport } from '../ingest';
+import { readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestReport } from '../ingest';
 import { UsageError } from './CliError';
 import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
@@ -76,6 +76,18 @@ export interface AssessmentSettings {
   keepLoops?: boolean;
   /** The memory limit to keep; default: {@link MemoryGuard}'s default. */
   guard?: MemoryGuard;
+  /**
+   * Parse the file on a thread of its own while this thread assesses (default true). A caller
+   * that already keeps every core busy (a pool of assessments) sets false: the file is then read
+   * on the calling thread.
+   */
+  parseThread?: boolean;
+  /**
+   * Called with every chunk of a single file's first read, after the life sessions took it, and
+   * the gate range each channel's session applies (in the chunk's unit), so a caller can fold the
+   * samples into counts of its own without reading the file again. Not called for a duty cycle.
+   */
+  onChunk?: (chunk: IngestChunk, gates: readonly number[]) => void;
 }
 
 /**
@@ -157,6 +169,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const guard = settings.guard ?? new MemoryGuard();
   const keepLoops = settings.keepLoops ?? true;
   if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
+  const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
+  const onChunk = settings.onChunk;
   const file = job.file as string;
   const name = job.fileShown ?? file;
   const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
@@ -166,7 +180,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   if (job.gateFraction !== undefined && job.fullScale === undefined) {
     const lo = job.channels.map(() => Infinity);
     const hi = job.channels.map(() => -Infinity);
-    await readDelimitedParallel(file, {
+    await read(file, {
       ...options,
       checks: false,
       onChunk: (chunk) => {
@@ -202,14 +216,16 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     }),
   );
   const displays = job.channels.map(() => new DisplayHistory());
+  const gates = sessions.map((s) => s[0].gateRange);
   // parsing runs on a second core while the sessions assess the chunks here
-  const first = await readDelimitedParallel(file, {
+  const first = await read(file, {
     ...options,
     onChunk: (chunk) => {
       chunk.channels.forEach((values, k) => {
         for (const s of sessions[k]) s.push(values);
         displays[k].push(values, chunk.firstSample);
       });
+      onChunk?.(chunk, gates);
       guard.check(at(chunk));
       progress?.(chunk.firstSample + chunk.length, 1);
     },
@@ -217,7 +233,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const need = Math.max(...sessions.flat().map((s) => s.endFirstPass()));
   if (need > 0) {
     // the stabilised pass needs the samples up to the largest |value| once more: read them again
-    await readDelimitedParallel(file, {
+    await read(file, {
       ...options,
       checks: false,
       onChunk: (chunk) => {
