@@ -483,8 +483,8 @@ describe('RepeatingNotchTracker: state errors and bad samples', () => {
     expect(() => t.push(block)).toThrow(NotchStateError);
   });
 
-  it('push(…, repeats) and pushAgain(…, repeats) with repeats 0, 1.5, -1, NaN throw NotchStateError naming repeats', () => {
-    for (const repeats of [0, 1.5, -1, NaN, Infinity]) {
+  it('push(…, repeats) and pushAgain(…, repeats) with repeats 0, 0.5, -1, NaN, Infinity throw NotchStateError naming repeats', () => {
+    for (const repeats of [0, 0.5, -1, NaN, Infinity]) {
       expect(thrown(() => new RepeatingNotchTracker(opts).push(block, null, 0, block.length, repeats))).toMatchObject({ field: 'repeats' });
       const t = new RepeatingNotchTracker(opts).push(block);
       t.endFirstPass();
