@@ -1,4 +1,5 @@
 import { unknownField } from '@loopwise/base';
+import { turningPoints } from '@loopwise/rainflow';
 import { EngineError } from './EngineError';
 import { resolveLifeJob, type LifeJob, type ResolvedJob } from './LifeJob';
 import { reportEvents, reportFromTracked, stressReportFromCounted } from './reportAssembly';
@@ -18,6 +19,11 @@ export interface MarginOptions {
   scanPoints?: number;
   /** Relative tolerance of the factor after bracketing; default 1e-6. */
   tolerance?: number;
+  /**
+   * Called after each assessment with the assessments done and the most the search takes
+   * (the scan points plus the bisection steps the tolerance needs), for a progress display.
+   */
+  onProgress?: (done: number, most: number) => void;
 }
 
 /** What {@link findLoadMargin} returns. */
@@ -58,7 +64,7 @@ export function findLoadMargin(events: DutyEvent[], job: LifeJob, options: Margi
   const resolved = resolveLifeJob(job);
   checkEvents(events);
   if (options === null || typeof options !== 'object') throw new EngineError('invalid-margin', 'options', String(options), 'must be { targetRepeats, minFactor, maxFactor, scanPoints, tolerance }');
-  const unknown = unknownField(options, ['targetRepeats', 'minFactor', 'maxFactor', 'scanPoints', 'tolerance'], 'the margin options');
+  const unknown = unknownField(options, ['targetRepeats', 'minFactor', 'maxFactor', 'scanPoints', 'tolerance', 'onProgress'], 'the margin options');
   if (unknown !== undefined) throw new EngineError('invalid-margin', unknown.field, unknown.value, unknown.rule);
   const target = options.targetRepeats;
   if (!(typeof target === 'number' && target > 0 && target < Infinity)) {
@@ -74,7 +80,22 @@ export function findLoadMargin(events: DutyEvent[], job: LifeJob, options: Margi
   const tolerance = options.tolerance ?? 1e-6;
   if (!(tolerance > 0 && tolerance < 0.1)) throw new EngineError('invalid-margin', 'tolerance', tolerance, 'must be in (0, 0.1)');
 
-  const lifeAt = (f: number) => repeatsAt(events, resolved, f);
+  if (options.onProgress !== undefined && typeof options.onProgress !== 'function') throw new EngineError('invalid-margin', 'onProgress', String(options.onProgress), 'must be a function (done, most) => void');
+  // A factor f > 0 scales every sample, so the turning points of the scaled history are the
+  // scaled turning points, and a gate scaled with it keeps the same ones: each event is reduced
+  // to its turning points once, and every assessment runs on those (the same loops, the same
+  // damage; the test compares with assessments of the scaled samples).
+  const reduced = events.map((e) => ({ ...e, history: turningPoints(e.history).values }));
+  // bisection steps: the first interval is one grid step, halved (in log) until within the tolerance
+  const gridStep = Math.log(maxFactor / minFactor) / (points - 1);
+  const most = points + Math.max(0, Math.ceil(Math.log2(gridStep / -Math.log1p(-tolerance))));
+  let done = 0;
+  const lifeAt = (f: number) => {
+    const life = repeatsAt(reduced, resolved, f);
+    done++;
+    options.onProgress?.(done, Math.max(done, most));
+    return life;
+  };
   const scan: { factor: number; repeats: number }[] = [];
   let nonMonotone = false;
   for (let k = 0; k < points; k++) {

@@ -4,6 +4,7 @@ export type { CorrectionName, EventDamage, LifeLoopColumns, LifeReport, LifeWarn
 export { ASSUMPTIONS, CAUTION, STRESS_LIFE_ASSUMPTIONS } from './assumptions';
 export { assessLife } from './assessLife';
 export { assessDutyCycle, type DutyEvent } from './assessDutyCycle';
+export { servicePerRepeat } from './schedule';
 export { compareCorrections, type CorrectionResult } from './compareCorrections';
 export { findLoadMargin, type MarginOptions, type MarginResult } from './findLoadMargin';
 export { LifeSession, type LifeSessionOptions } from './LifeSession';

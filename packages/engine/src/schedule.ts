@@ -1,5 +1,5 @@
 import { EngineError } from './EngineError';
-import type { ResolvedJob } from './LifeJob';
+import type { JobServiceUnit, ResolvedJob } from './LifeJob';
 
 /** One event of a duty cycle: a history block and how many times it runs in a row. */
 export interface DutyEvent {
@@ -96,8 +96,12 @@ export function scheduleGate(job: ResolvedJob, events: DutyEvent[]): number {
   return job.gateFraction * (hi - lo);
 }
 
-/** Service per repeat of the schedule: the job's `unit.perRepeat`, or the sum of the events' durations. */
-export function servicePerRepeat(job: ResolvedJob, events: readonly Pick<DutyEvent, 'repeats' | 'duration'>[]): number | undefined {
+/**
+ * Service per repeat of the schedule: the job's `unit.perRepeat`, or the sum of the events'
+ * repeats × durations (a fraction of a repeat counts its share); undefined without a unit.
+ * Both given, or neither with a unit, throws EngineError naming `unit.perRepeat`.
+ */
+export function servicePerRepeat(job: { unit?: JobServiceUnit | undefined }, events: readonly Pick<DutyEvent, 'repeats' | 'duration'>[]): number | undefined {
   if (job.unit === undefined) return undefined;
   if (events.some((e) => e.duration !== undefined)) {
     if (job.unit.perRepeat !== undefined) {

@@ -104,14 +104,19 @@ Examples:
   margin: `loopwise margin: load factor at which the life falls to a target
 
 Usage: loopwise margin <file> --target-repeats <n> [assess options]
-       loopwise margin --job <job.json> --target-repeats <n>
+       loopwise margin --job <job.json> --target-life <x> [--target-of design|mean]
 
 Every sample is scaled by a factor f; the smallest f whose life is at most the target is
 found by a scan over 0.05 … 20 and bisection to 1e-6 relative. Damage need not grow with the
-load when mean stresses matter; the output says whether the scan saw it fall.
+load when mean stresses matter; the output says whether the scan saw it fall. The search runs
+on the turning points of the history (the same loops at every factor); progress shows on a
+terminal (--quiet hides it).
 
-  --target-repeats <n>     target life in repeats of the history
-  --target-life <x>        or in the service unit of --service
+  --target-repeats <n>     target life in repeats of the history (or of the job's duty cycle)
+  --target-life <x>        or in the service unit: --service, or with --job the job's
+                           service.perRepeat or its events' durations
+  --target-of <which>      design (default): the design life, mean life ÷ scatter factor, must
+                           reach the target; mean: the mean life must
 
 Example:
   loopwise margin loads.csv --column 2 --kt 2.2 --material "SAE 1045" --service "2 h" --target-life 10000`,

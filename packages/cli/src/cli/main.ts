@@ -2,12 +2,11 @@ import { closeSync, existsSync, openSync, readSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { findLoadMargin, type DutyEvent } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
-import { readDelimited, readDelimitedColumns, type TimeSource } from '../ingest';
+import { readDelimited, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
-import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { checkRoute, readJobFile, type CliJob } from './CliJob';
 import { parseSnCurveSpec } from './snCurveSpec';
 import { FileAccess, OUTSIDE_OPTION } from './FileAccess';
 import { InputFiles } from './InputFiles';
@@ -20,7 +19,8 @@ import { HELP } from './helpTexts';
 import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
-import { lifeJobOf, mainCorrection, runAssessment, type ChannelResult } from './runAssessment';
+import { runAssessment, type ChannelResult } from './runAssessment';
+import { runMargin } from './marginCommand';
 import { renderChannelsHtml } from './renderChannelsHtml';
 
 /** Version printed by --version and written into reports. */
@@ -155,7 +155,7 @@ function parse<O extends Record<string, { type: 'string' | 'boolean'; multiple?:
   }
 }
 
-const MARGIN = { 'target-repeats': { type: 'string' }, 'target-life': { type: 'string' } } as const;
+const MARGIN = { 'target-repeats': { type: 'string' }, 'target-life': { type: 'string' }, 'target-of': { type: 'string' } } as const;
 
 /** A choice option: one of `allowed`, with the option named in the error; undefined when absent. */
 function oneOf<T extends string>(values: Record<string, unknown>, name: string, allowed: readonly T[]): T | undefined {
@@ -376,48 +376,15 @@ function planOutputs(values: Record<string, unknown>, inputs: InputFiles, io: Io
 
 async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, guard: MemoryGuard): Promise<number> {
   for (const k of ['json-out', 'cycles-out', 'html-out']) if (values[k] !== undefined) throw new UsageError(`--${k}: margin writes no files; use --json`);
-  const files = job.events ? job.events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })) : [{ path: job.file as string, shown: job.fileShown ?? (job.file as string) }];
-  guard.checkInMemory(files, job.channels.length, 'the margin search');
-  let target = num(values, 'target-repeats');
+  const targetRepeats = num(values, 'target-repeats');
   const targetLife = num(values, 'target-life');
-  if ((target === undefined) === (targetLife === undefined)) throw new UsageError('--target-repeats or --target-life: give exactly one');
-  if (targetLife !== undefined) {
-    const per = job.service?.perRepeat;
-    if (per === undefined) throw new UsageError('--target-life: needs --service "<amount> <unit>" (service per repeat)');
-    target = targetLife / per;
-  }
-  const lines: string[] = [];
-  const rows: unknown[] = [];
-  for (const channel of job.channels) {
-    const events = await eventsOf(job, channel);
-    const m = findLoadMargin(events, lifeJobOf(job, channel, mainCorrection(job)), {
-      targetRepeats: target as number,
-    });
-    rows.push({ channel: channel.name ?? String(channel.column), ...m });
-    lines.push(
-      `channel ${channel.name ?? channel.column}: load factor ${formatNumber(m.factor, 6)} gives ${formatNumber(m.repeats)} repeats (target ${formatNumber(target as number)})` +
-        (m.nonMonotone ? '; damage was seen to fall with a growing load somewhere on the scan: check the scan in --json' : '') +
-        (m.belowScan ? '; already reached at the smallest factor scanned (0.05)' : ''),
-    );
-  }
-  io.stdout(values.json ? stableJson({ format: 'loopwise-cli-margin', version: 1, tool: TOOL, targetRepeats: target, channels: rows }) + '\n' : lines.join('\n') + '\n');
-  return 0;
-}
-
-async function eventsOf(job: CliJob, channel: CliChannel): Promise<DutyEvent[]> {
-  const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
-  if (job.events) {
-    const out: DutyEvent[] = [];
-    for (const e of job.events) {
-      const { channels } = await readDelimitedColumns(e.file, { ...opts, name: e.shown ?? e.file });
-      const d: DutyEvent = { name: e.name, history: channels[0], repeats: e.repeats };
-      if (e.duration !== undefined) d.duration = e.duration;
-      out.push(d);
-    }
-    return out;
-  }
-  const { channels } = await readDelimitedColumns(job.file as string, { ...opts, name: job.fileShown ?? (job.file as string) });
-  return [{ name: 'history', history: channels[0], repeats: 1 }];
+  const targetOf = oneOf(values, 'target-of', ['design', 'mean'] as const);
+  return runMargin(
+    job,
+    { ...(targetRepeats !== undefined ? { targetRepeats } : {}), ...(targetLife !== undefined ? { targetLife } : {}), ...(targetOf ? { targetOf } : {}), json: Boolean(values.json), tool: TOOL, progress: io.stderrIsTerminal && !values.quiet },
+    io,
+    guard,
+  );
 }
 
 async function countCommand(args: string[], io: Io): Promise<number> {
