@@ -6,7 +6,7 @@ import { IngestError, IngestOptionError } from './IngestError.js';
 import { parseDecimal, parseDecimalText } from './parseDecimal.js';
 import { QuotedRecordReader } from './QuotedRecordReader.js';
 import { resolveColumn, wrongDelimiter, isContentless, type ColumnReference } from './selectColumns.js';
-import { SignalChecks, type SignalCheckThresholds, type SignalWarning } from './SignalChecks.js';
+import { SignalChecks, type ChannelArtefacts, type SignalCheckThresholds, type SignalWarning } from './SignalChecks.js';
 import { TimeAxisCheck, type TimeAxisSummary } from './TimeAxisCheck.js';
 
 export type { ColumnReference } from './selectColumns.js';
@@ -81,6 +81,8 @@ export interface IngestReport {
     | ({ readonly kind: 'column'; readonly column: number; readonly name: string } & TimeAxisSummary);
   /** Signal-check and time-axis warnings. */
   readonly warnings: readonly SignalWarning[];
+  /** Per channel, in option order, every sample the signal checks flagged (absent when the checks were off). */
+  readonly artefacts?: readonly ChannelArtefacts[];
 }
 
 export const DEFAULT_CHUNK_SAMPLES = 65536;
@@ -385,6 +387,7 @@ export class DelimitedReader {
       channels: channels.map((c, k) => ({ name: c.name ?? dialect.names[fields[k]], column: fields[k] + 1, quantity: c.quantity, conversion: this.conversions[k] })),
       time: timeReport,
       warnings,
+      ...(this.checks ? { artefacts: this.checks.map((c) => c.artefacts()) } : {}),
     };
   }
 

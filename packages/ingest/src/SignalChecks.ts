@@ -9,7 +9,9 @@ export type SignalWarningKind =
   | 'clipped-maximum'
   | 'clipped-minimum'
   | 'large-offset'
-  | 'time-not-increasing';
+  | 'time-not-increasing'
+  /** Not a check of the reader: the command's study of what the flagged samples do to the damage. */
+  | 'artefact-damage';
 
 /** A run of samples, by 0-based sample index, both ends included. */
 export interface SampleRange {
@@ -30,6 +32,18 @@ export interface SignalWarning {
   readonly rangesOmitted: number;
   /** One line for people. */
   readonly message: string;
+}
+
+/**
+ * The samples the checks flagged in one channel, by 0-based sample index, in order: one-sample
+ * spikes, and runs (flat lines and dropouts at zero) as pairs of first index and length. For
+ * studies of what the artefacts do (the command's life with them removed); plain typed arrays, so
+ * the report crosses threads.
+ */
+export interface ChannelArtefacts {
+  readonly spikes: Float64Array;
+  /** Pairs: first sample, number of samples. */
+  readonly runs: Float64Array;
 }
 
 /**
@@ -122,6 +136,7 @@ export class SignalChecks {
   private readonly scanner: SignalScanner;
   private n = 0;
   private result: SignalWarning[] | null = null;
+  private flaggedSamples: ChannelArtefacts | null = null;
 
   constructor(
     readonly channel: string,
@@ -157,8 +172,18 @@ export class SignalChecks {
 
   /** The warnings found, in the order spike, flat line, dropout, clipped max, clipped min, offset (the same list on every call). */
   finish(): SignalWarning[] {
-    if (this.result === null) this.result = this.warnings(this.scanner.finish());
+    if (this.result === null) {
+      const scan = this.scanner.finish();
+      this.flaggedSamples = artefactsOf(scan);
+      this.result = this.warnings(scan);
+    }
     return this.result.map((w) => ({ ...w, ranges: w.ranges.map((r) => ({ ...r })) }));
+  }
+
+  /** The flagged samples (every one, not only the listed ranges); known after {@link finish}. */
+  artefacts(): ChannelArtefacts {
+    if (this.flaggedSamples === null) throw new IngestOptionError('artefacts', undefined, 'known once the checks have finished: call finish()');
+    return { spikes: this.flaggedSamples.spikes.slice(), runs: this.flaggedSamples.runs.slice() };
   }
 
   private warnings(scan: SignalScan): SignalWarning[] {
@@ -226,4 +251,19 @@ export class SignalChecks {
       });
     return out;
   }
+}
+
+/** The spikes and the runs (flat lines, dropouts) of a scan as typed arrays, in sample order. */
+function artefactsOf(scan: SignalScan): ChannelArtefacts {
+  const c = scan.findings.columns();
+  const spikes: number[] = [];
+  const runs: { first: number; length: number }[] = [];
+  for (let k = 0; k < c.index.length; k++) {
+    const code = FINDING_CODES[c.code[k]];
+    if (code === 'spike') spikes.push(c.index[k]);
+    else if (code === 'stuck-run' || code === 'zero-run') runs.push({ first: c.index[k], length: c.length[k] });
+  }
+  spikes.sort((a, b) => a - b);
+  runs.sort((a, b) => a.first - b.first);
+  return { spikes: Float64Array.from(spikes), runs: Float64Array.from(runs.flatMap((r) => [r.first, r.length])) };
 }

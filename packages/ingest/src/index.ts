@@ -12,7 +12,7 @@ export type { ColumnSurvey, UnitReading } from './surveyColumns.js';
 export { channelConversion, MPA_PER_KSI, MICROSTRAIN_PER_STRAIN } from './channelConversion.js';
 export type { ChannelConversion, ChannelQuantity } from './channelConversion.js';
 export { SignalChecks, DEFAULT_SIGNAL_CHECK_THRESHOLDS } from './SignalChecks.js';
-export type { SampleRange, SignalCheckThresholds, SignalWarning, SignalWarningKind } from './SignalChecks.js';
+export type { ChannelArtefacts, SampleRange, SignalCheckThresholds, SignalWarning, SignalWarningKind } from './SignalChecks.js';
 export { TimeAxisCheck } from './TimeAxisCheck.js';
 export type { TimeAxisSummary } from './TimeAxisCheck.js';
 export { IngestError, IngestOptionError } from './IngestError.js';

@@ -316,7 +316,7 @@ function progressOf(io: Io, quiet: boolean, file: string | null) {
     estimate = 0;
   }
   let last = 0;
-  return (samples: number, pass: 1 | 2) => {
+  return (samples: number, pass: 1 | 2 | 3) => {
     const now = Date.now();
     if (now - last < 200) return;
     last = now;
@@ -324,7 +324,7 @@ function progressOf(io: Io, quiet: boolean, file: string | null) {
     const width = 30;
     const filled = Math.round(share * width);
     const bar = estimate > 0 ? `[${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${String(Math.round(100 * share)).padStart(3)} % ` : '';
-    io.stderr(`\r${pass === 1 ? 'reading    ' : 'second read'} ${bar}${samples.toLocaleString('en-US')} samples`);
+    io.stderr(`\r${pass === 1 ? 'reading    ' : pass === 2 ? 'second read' : 'artefacts  '} ${bar}${samples.toLocaleString('en-US')} samples`);
   };
 }
 

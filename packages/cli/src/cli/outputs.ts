@@ -84,6 +84,7 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
           warnings: s.warnings.map((w) => w.message),
         })),
         corrections: r.corrections,
+        ...(r.artefactStudy ? { artefactStudy: r.artefactStudy } : {}),
         report: r.report,
       })),
       // every channel's warnings in one list: about the measured signal, then the assessment's
