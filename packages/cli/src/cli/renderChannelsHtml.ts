@@ -17,6 +17,7 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
     const spectrum = r.report.damage.route === 'stress-life' && loops !== null ? await spectrumOf(r, loops.rows) : null;
     channels.push({
       spectrum,
+      corrections: r.corrections,
       signalWarnings: signalWarningsOf(r),
       name: r.name,
       unit: r.unit,

@@ -1,4 +1,4 @@
-import type { LifeReport } from '@loopwise/engine';
+import type { CorrectionResult, LifeReport } from '@loopwise/engine';
 
 /** A display copy of a history: sample indices and values, already thinned by the caller. */
 export interface HtmlHistory {
@@ -52,6 +52,11 @@ export interface HtmlChannel {
    * repeat (for the S-N plot's spectrum); absent or null: the plot shows the curve and the worst cycles.
    */
   spectrum?: { stress: Float64Array; count: Float64Array } | null;
+  /**
+   * Every mean-stress correction side by side (`--mean-stress all`): one row each in the results
+   * table, the report's own correction marked; absent or null: the report's correction only.
+   */
+  corrections?: readonly CorrectionResult[] | null;
 }
 
 /** Everything {@link renderHtmlReport} draws. */

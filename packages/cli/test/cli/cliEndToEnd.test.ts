@@ -3,6 +3,7 @@ import { existsSync, mkdtempSync, mkdirSync, readFileSync, readdirSync, writeFil
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
+import { formatNumber } from '../../src/report/formatNumber';
 
 // End to end through the built binary (pnpm test builds before it runs the tests).
 const bin = new URL('../../dist/bin.js', import.meta.url).pathname;
@@ -67,6 +68,21 @@ describe('loopwise (built binary)', () => {
     const j = JSON.parse(r.stdout);
     expect(j.results.length).toBe(10);
     expect(new Set(j.results.map((x: { meanStress: string }) => x.meanStress)).size).toBe(5);
+  });
+
+  test('--mean-stress all: the HTML results table has the same rows as the JSON, the detailed correction marked', () => {
+    const args = ['assess', 'rig.csv', '--column', '2', '--column', '3', '--quantity', 'stress', '--kt', '1.8', '--material', 'SAE 1045', '--mean-stress', 'all'];
+    const j = JSON.parse(run([...args, '--json']).stdout);
+    expect(run([...args, '--html-out', 'all.html']).code).toBe(0);
+    const html = readFileSync(join(dir, 'all.html'), 'utf8');
+    const table = /<table class="results">.*?<\/table>/s.exec(html)?.[0] ?? '';
+    const rows = [...table.matchAll(/<tr><th>([^<]*)<\/th><td>([^<]*)<\/td><td class="num">[^<]*<\/td><td class="num">([^<]*)<\/td>/g)];
+    expect(rows).toHaveLength(10);
+    expect(rows.filter((m) => m[2].endsWith(' *'))).toHaveLength(2); // the main correction of each channel
+    rows.forEach((m, i) => {
+      expect(m[1]).toBe(j.results[i].channel);
+      expect(m[3]).toBe(formatNumber(j.results[i].repeats));
+    });
   });
 
   test('loopwise count writes a matrix that sums to the cycle count', () => {
