@@ -84,11 +84,11 @@ Examples:
 Usage: loopwise count <file> [options]
 
   --column <name|n>        column (1-based number or header name); default as for assess
-  --quantity, --unit       as for assess (values are reported in engine units: MPa or strain)
+  --quantity, --unit       as for assess; the count stays in the file's unit (µε stays µε)
   --sample-rate <Hz>       or --time-column <name|n>
   --skip-lines, --delimiter, --decimal-mark, --header-row, --units-row, --comment-prefix
                            the file's layout, as for assess
-  --gate <x>               gate range; or --gate-fraction <f> of the channel's range
+  --gate <x>               gate range in the channel's unit; or --gate-fraction <f> of its range
   --residue <r>            half (default, ASTM E1049 half cycles), repeat or none
   --range-bins <n>         range bins of the matrix (default 32); --mean-bins <n> (default 32)
   --matrix-out <file>      write the range-mean matrix (format loopwise-cycle-matrix, version 1)

@@ -6,7 +6,7 @@ import { handbookSteels } from '@loopwise/material';
 import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
 import { readDelimited, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
-import { checkRoute, readJobFile, type CliJob } from './CliJob';
+import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
 import { parseSnCurveSpec } from './snCurveSpec';
 import { FileAccess, OUTSIDE_OPTION } from './FileAccess';
 import { InputFiles } from './InputFiles';
@@ -414,7 +414,10 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     if (!Number.isInteger(v) || v < 1 || v > 4096) throw new UsageError(`--${k}: an integer from 1 to 4096, got ${v}`);
   }
   const time = layout.time;
-  const opts = { channels, name: data.shown, ...(time ? { time } : {}), ...(dialect ? { dialect } : {}) };
+  // the count stays in the channel's own unit (µε stays µε): the samples are read as they are
+  // in the file, so the gate, the matrix, the cycles and the spectrum are all in that unit
+  const own = ownUnitOf(channels[0]);
+  const opts = { channels: [own.channel], name: data.shown, ...(time ? { time } : {}), ...(dialect ? { dialect } : {}) };
   const outputs = new OutputSet(inputs, io.stdoutWrite ?? (async (t) => io.stdout(t)));
   const box: { matrix: RangeMeanMatrix | null } = { matrix: null };
   if (values['matrix-out'] !== undefined) outputs.add('--matrix-out', values['matrix-out'] as string, (sink) => sink.write(JSON.stringify((box.matrix as RangeMeanMatrix).toJSON()) + '\n'));
@@ -478,8 +481,8 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     tool: TOOL,
     file: source.file,
     channel: source.channels[0].name,
-    unit: source.channels[0].conversion.engineUnit,
-    conversion: source.channels[0].conversion.statement,
+    unit: own.label,
+    conversion: `none: counted in the file's unit (${own.label})`,
     samples: result.sampleCount,
     turningPoints: result.turningPointCount,
     gate,
@@ -510,6 +513,17 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     io.stdout(lines.join('\n') + '\n');
   }
   return 0;
+}
+
+/**
+ * The channel read as it is in the file (no conversion to engine units), and the label of that
+ * unit: µε, strain, MPa, ksi, or "load unit" for a load.
+ */
+function ownUnitOf(c: CliChannel): { channel: CliChannel; label: string } {
+  const base = { column: c.column, ...(c.name !== undefined ? { name: c.name } : {}) };
+  if (c.quantity === 'strain') return { channel: { ...base, quantity: 'strain', unit: 'strain' }, label: c.unit === 'microstrain' ? 'µε' : 'strain' };
+  if (c.quantity === 'stress') return { channel: { ...base, quantity: 'stress', unit: 'MPa' }, label: c.unit };
+  return { channel: { ...base, quantity: 'load', mpaPerUnit: 1 }, label: 'load unit' };
 }
 
 async function materialCommand(args: string[], io: Io): Promise<number> {

@@ -10,7 +10,7 @@ import {
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
-import { readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestOptions, type IngestReport } from '../ingest';
+import { channelConversion, readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestOptions, type IngestReport } from '../ingest';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
 import { UsageError } from './CliError';
 import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
@@ -58,15 +58,24 @@ export function lifeJobOf(job: CliJob, channel: CliChannel, meanStress: CliCorre
     if (input === 'pseudo-elastic' && job.notch?.rule) out.rule = job.notch.rule;
     if (job.walkerGamma !== undefined) out.walkerGamma = job.walkerGamma;
   }
-  if (job.gate !== undefined) out.gate = job.gate;
+  // the gate and the full scale are given in the channel's own unit (µε for a microstrain
+  // channel): converted like its samples
+  const toEngine = engineRangeOf(channel);
+  if (job.gate !== undefined) out.gate = toEngine(job.gate);
   if (job.gateFraction !== undefined) out.gateFraction = job.gateFraction;
-  if (job.fullScale !== undefined) out.fullScale = job.fullScale;
+  if (job.fullScale !== undefined) out.fullScale = toEngine(job.fullScale);
   if (job.cutoffCycles !== undefined) out.cutoffCycles = job.cutoffCycles;
   if (job.criticalDamage !== undefined) out.criticalDamage = job.criticalDamage;
   if (job.initial !== undefined) out.initial = job.initial;
   if (job.offset !== undefined) out.offset = job.offset;
   if (job.service) out.unit = job.service.perRepeat === undefined ? { label: job.service.unit } : { label: job.service.unit, perRepeat: job.service.perRepeat };
   return out;
+}
+
+/** A range in the channel's own unit (the file's) as a range in engine units (MPa or strain), as its samples are converted. */
+export function engineRangeOf(c: CliChannel): (x: number) => number {
+  const k = channelConversion(c);
+  return (x) => Math.abs((x * k.multiplier) / k.divisor);
 }
 
 function unitLabel(c: CliChannel): string {

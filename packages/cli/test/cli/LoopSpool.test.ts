@@ -44,7 +44,7 @@ function tableRows(job: LifeJob, h: Float64Array, chunk: number): string {
   const lines: string[] = [];
   for (let i = 0; i < l.count.length; i++)
     lines.push(
-      `ch,${l.startIndex[i]},${l.turnIndex[i]},${l.closeIndex[i]},${ev(l.startEvent[i])},${ev(l.turnEvent[i])},${l.count[i]},${l.stressMax[i]},${l.stressMin[i]},${l.strainMax[i]},${l.strainMin[i]},${l.parameter[i]},${l.cyclesToFailure[i] === Infinity ? 'inf' : l.cyclesToFailure[i]},${l.damage[i]}\n`,
+      `ch,${l.startIndex[i]},${l.turnIndex[i]},${l.closeIndex[i]},${ev(l.startEvent[i])},${ev(l.turnEvent[i])},${l.count[i]},${l.stressMax[i]},${l.stressMin[i]},${l.strainMax[i]},${l.strainMin[i]},${l.parameter[i]},${l.cyclesToFailure[i]},${l.damage[i]}\n`,
     );
   return lines.join('');
 }
