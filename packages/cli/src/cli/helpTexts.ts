@@ -92,6 +92,8 @@ Usage: loopwise count <file> [options]
   --residue <r>            half (default, ASTM E1049 half cycles), repeat or none
   --range-bins <n>         range bins of the matrix (default 32); --mean-bins <n> (default 32)
   --matrix-out <file>      write the range-mean matrix (format loopwise-cycle-matrix, version 1)
+  --from-to-out <file>     write the from-to matrix (range bins on both axes, over the channel's span)
+  --matrix-format <f>      json (default: loopwise-cycle-matrix, version 1) or csv (one row per bin)
   --cycles-out <file>      write every cycle as CSV
   --json                   print the summary as JSON
   --memory-limit <MB>      stop with an error before using more memory (default 1024)

@@ -3,7 +3,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { handbookSteels } from '@loopwise/material';
-import { CycleTable, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
+import { CycleTable, FromToMatrix, RainflowCounter, RangeMeanMatrix, type CycleMatrix } from '@loopwise/rainflow';
 import { readDelimited, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
 import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
@@ -390,7 +390,7 @@ async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, gu
 async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parse(
     args,
-    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, 'memory-limit': { type: 'string' } },
+    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'from-to-out': { type: 'string' }, 'matrix-format': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, 'memory-limit': { type: 'string' } },
     'count',
   );
   if (values.help) {
@@ -419,8 +419,12 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   const own = ownUnitOf(channels[0]);
   const opts = { channels: [own.channel], name: data.shown, ...(time ? { time } : {}), ...(dialect ? { dialect } : {}) };
   const outputs = new OutputSet(inputs, io.stdoutWrite ?? (async (t) => io.stdout(t)));
-  const box: { matrix: RangeMeanMatrix | null } = { matrix: null };
-  if (values['matrix-out'] !== undefined) outputs.add('--matrix-out', values['matrix-out'] as string, (sink) => sink.write(JSON.stringify((box.matrix as RangeMeanMatrix).toJSON()) + '\n'));
+  const format = (values['matrix-format'] as string | undefined) ?? 'json';
+  if (format !== 'json' && format !== 'csv') throw new UsageError(`--matrix-format: json or csv, got "${format}"`);
+  const box: { matrix: RangeMeanMatrix | null; fromTo: FromToMatrix | null } = { matrix: null, fromTo: null };
+  const matrixText = (m: CycleMatrix, axes: [string, string]) => (format === 'csv' ? matrixCsv(m, axes) : JSON.stringify(m.toJSON()) + '\n');
+  if (values['matrix-out'] !== undefined) outputs.add('--matrix-out', values['matrix-out'] as string, (sink) => sink.write(matrixText(box.matrix as RangeMeanMatrix, ['range', 'mean'])));
+  if (values['from-to-out'] !== undefined) outputs.add('--from-to-out', values['from-to-out'] as string, (sink) => sink.write(matrixText(box.fromTo as FromToMatrix, ['from', 'to'])));
   // every cycle goes to a spool on disk as it closes (memory stays flat), copied out at the end
   const spool = values['cycles-out'] !== undefined ? new SpoolFile('the cycles') : null;
   if (spool) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => spool.copyTo(sink));
@@ -444,6 +448,9 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   const span = hi > lo ? hi - lo : 1;
   const matrix = new RangeMeanMatrix({ range: { count: rangeBins, min: 0, max: span }, mean: { count: meanBins, min: lo, max: hi > lo ? hi : lo + 1 } });
   box.matrix = matrix;
+  // the from-to matrix (the cycles' direction kept) over the same span, square, range bins a side
+  const fromTo = values['from-to-out'] !== undefined ? new FromToMatrix({ from: { count: rangeBins, min: lo, max: hi > lo ? hi : lo + 1 }, to: { count: rangeBins, min: lo, max: hi > lo ? hi : lo + 1 } }) : null;
+  box.fromTo = fromTo;
   if (spool) spool.append('range,mean,from,to,count,start_sample,turn_sample,close_sample\n');
   // the cycles pass through a small table (its range and mean), written to the spool in batches
   let batch = new CycleTable();
@@ -454,15 +461,19 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     spool?.append(lines.join(''));
     batch = new CycleTable();
   };
-  const both = spool
-    ? {
-        addCycle: (from: number, to: number, count: number, startIndex: number, turnIndex: number, closeIndex: number) => {
-          matrix.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
-          batch.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
-          if (batch.length >= 8192) flushBatch();
-        },
-      }
-    : matrix;
+  const both =
+    spool || fromTo
+      ? {
+          addCycle: (from: number, to: number, count: number, startIndex: number, turnIndex: number, closeIndex: number) => {
+            matrix.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
+            fromTo?.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
+            if (spool) {
+              batch.addCycle(from, to, count, startIndex, turnIndex, closeIndex);
+              if (batch.length >= 8192) flushBatch();
+            }
+          },
+        }
+      : matrix;
   const counter = new RainflowCounter({ residue: residue as 'half', gate, sink: both });
   await readDelimited(file, { ...opts, checks: false, onChunk: (c) => { counter.push(c.channels[0]); guard.check(() => `while counting ${data.shown}`); } });
   const result = counter.finish();
@@ -513,6 +524,18 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     io.stdout(lines.join('\n') + '\n');
   }
   return 0;
+}
+
+/**
+ * A cycle matrix as CSV, one row per bin (every bin, row by row): the bin's edges on both axes and
+ * its cycles, e.g. `range_low,range_high,mean_low,mean_high,cycles`. Values in the count's unit.
+ */
+export function matrixCsv(m: CycleMatrix, axes: [string, string]): string {
+  const r = m.rowEdges;
+  const c = m.columnEdges;
+  const lines = [`${axes[0]}_low,${axes[0]}_high,${axes[1]}_low,${axes[1]}_high,cycles`];
+  for (let i = 0; i < m.rows; i++) for (let j = 0; j < m.columns; j++) lines.push(`${r[i]},${r[i + 1]},${c[j]},${c[j + 1]},${m.at(i, j)}`);
+  return lines.join('\n') + '\n';
 }
 
 /**

@@ -1,9 +1,9 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
-import { RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
+import { FromToMatrix, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { main, type Io } from '../../src/cli/main';
 
@@ -51,5 +51,32 @@ describe('the channel keeps its unit', () => {
     expect(rep.gate.removedReversals).toBe(want.gate.removedReversals);
     expect(rep.gate.removedReversals).toBeGreaterThan(0);
     expect(Math.abs(rep.life.repeats / want.life.repeats - 1)).toBeLessThanOrEqual(1e-12);
+  });
+});
+
+describe('count writes its matrices as CSV', () => {
+  test('--matrix-format csv: both matrices, one row per bin, equal to the matrices of a rainflow count of the file values', async () => {
+    const out = (f: string) => join(dir, f);
+    const r = await cli(['count', out('g.csv'), '--quantity', 'strain', '--unit', 'microstrain', '--range-bins', '8', '--mean-bins', '5', '--matrix-out', out('rm.csv'), '--from-to-out', out('ft.csv'), '--matrix-format', 'csv', '--json']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const lo = Math.min(...values);
+    const hi = Math.max(...values);
+    const rm = new RangeMeanMatrix({ range: { count: 8, min: 0, max: hi - lo }, mean: { count: 5, min: lo, max: hi } });
+    const ft = new FromToMatrix({ from: { count: 8, min: lo, max: hi }, to: { count: 8, min: lo, max: hi } });
+    new RainflowCounter({ residue: 'half', sink: { addCycle: (a, b, c, d, e, f) => (rm.addCycle(a, b, c, d, e, f), ft.addCycle(a, b, c, d, e, f)) } }).push(Float64Array.from(values)).finish();
+    for (const [file, m, head] of [['rm.csv', rm, 'range_low,range_high,mean_low,mean_high,cycles'], ['ft.csv', ft, 'from_low,from_high,to_low,to_high,cycles']] as const) {
+      const lines = readFileSync(out(file), 'utf8').trimEnd().split('\n');
+      expect(lines[0]).toBe(head);
+      expect(lines).toHaveLength(1 + m.rows * m.columns);
+      const re = m.rowEdges;
+      const ce = m.columnEdges;
+      lines.slice(1).forEach((line, k) => {
+        const i = Math.floor(k / m.columns);
+        const j = k % m.columns;
+        expect(line.split(',').map(Number)).toEqual([re[i], re[i + 1], ce[j], ce[j + 1], m.at(i, j)]);
+      });
+    }
+    expect(ft.totalCount()).toBe(JSON.parse(r.stdout).cycles);
   });
 });
