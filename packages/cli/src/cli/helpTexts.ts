@@ -129,7 +129,7 @@ Usage: loopwise material --list
        loopwise material --su <MPa> [--method uniform-material-law|modified-universal-slopes] [options]
        loopwise material --hardness <HB>
 
-  --list                   the handbook table (reference values, not certified design data)
+  --list                   the handbook table (reference values, not certified design data); --json for the full records
   --su <MPa>               ultimate tensile strength
   --method <m>             uniform-material-law (default) or modified-universal-slopes
   --metal <m>              steel (default) or aluminium-titanium (Uniform Material Law)

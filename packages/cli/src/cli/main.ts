@@ -2,7 +2,7 @@ import { closeSync, existsSync, openSync, readSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { handbookSteels } from '@loopwise/material';
+import { handbookSteels, type Material } from '@loopwise/material';
 import { CycleTable, FromToMatrix, RainflowCounter, RangeMeanMatrix, type CycleMatrix } from '@loopwise/rainflow';
 import { readDelimited, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
@@ -554,6 +554,7 @@ async function materialCommand(args: string[], io: Io): Promise<number> {
     args,
     {
       list: { type: 'boolean' },
+      json: { type: 'boolean' },
       su: { type: 'string' },
       method: { type: 'string' },
       metal: { type: 'string' },
@@ -569,9 +570,8 @@ async function materialCommand(args: string[], io: Io): Promise<number> {
     return 0;
   }
   if (values.list) {
-    io.stdout(
-      stableJson({ note: 'handbook reference values, not certified design data', materials: handbookSteels.map((m) => ({ ...m, warnings: m.warnings })) }) + '\n',
-    );
+    if (values.json) io.stdout(stableJson({ note: 'handbook reference values, not certified design data', materials: handbookSteels.map((m) => ({ ...m, warnings: m.warnings })) }) + '\n');
+    else io.stdout(materialTable(handbookSteels));
     return 0;
   }
   const su = num(values, 'su');
@@ -595,6 +595,33 @@ async function materialCommand(args: string[], io: Io): Promise<number> {
   await outputs.commit();
   if (!outputs.usesStdout) io.stdout(text);
   return 0;
+}
+
+/**
+ * The handbook table for people: one row per material with its constants (MPa), a numbered
+ * source below, then the caveat. `--json` gives everything, notes included.
+ */
+export function materialTable(materials: readonly Material[]): string {
+  const sources: string[] = [];
+  const head = ['name', 'E', "σf'", 'b', "εf'", 'c', "K'", "n'", 'Su', 'source'];
+  const rows = materials.map((m) => {
+    let k = sources.indexOf(m.source ?? '');
+    if (k < 0) k = sources.push(m.source ?? '(none given)') - 1;
+    const v = (x: number | undefined) => (x === undefined ? '—' : String(x));
+    return [m.name ?? '(unnamed)', v(m.E), v(m.sigmaF), v(m.b), v(m.epsilonF), v(m.c), v(m.K), v(m.n), v(m.Su), `[${k + 1}]`];
+  });
+  const width = head.map((h, j) => Math.max(h.length, ...rows.map((r) => r[j].length)));
+  const line = (r: string[]) => r.map((x, j) => (j === 0 || j === r.length - 1 ? x.padEnd(width[j]) : x.padStart(width[j]))).join('  ').trimEnd();
+  return [
+    'Handbook strain-life constants (stresses in MPa): reference values for tests and examples, not certified design data.',
+    '',
+    line(head),
+    ...rows.map(line),
+    '',
+    ...sources.map((s, k) => `[${k + 1}] ${s}`),
+    '',
+    'Notes on each entry (how it was transcribed and checked): loopwise material --list --json. Use one with --material "<name>" (a unique part of the name is enough).',
+  ].join('\n') + '\n';
 }
 
 /** Folder of the bundled demo data (next to the built files, or in the source tree). */

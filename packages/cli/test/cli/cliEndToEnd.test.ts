@@ -113,6 +113,14 @@ describe('loopwise (built binary)', () => {
     const l = run(['material', '--list']);
     expect(l.code).toBe(0);
     expect(l.stdout).toMatch(/not certified design data/);
+    // a table for people: one row per handbook entry with its constants, --json for the full records
+    const j = JSON.parse(run(['material', '--list', '--json']).stdout);
+    expect(j.materials.length).toBeGreaterThan(3);
+    for (const m of j.materials) {
+      const row = l.stdout.split('\n').find((x) => x.startsWith(m.name + ' '));
+      expect(row, m.name).toBeDefined();
+      expect(row!.trim().split(/\s{2,}/).slice(1, 9).map(Number)).toEqual([m.E, m.sigmaF, m.b, m.epsilonF, m.c, m.K, m.n, m.Su]);
+    }
   });
 
   test('--help on every command shows examples; --version prints the version', () => {
