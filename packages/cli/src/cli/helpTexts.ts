@@ -148,5 +148,6 @@ Usage: loopwise demo [--html-out <file>] [--json]
 
 The demo is INVENTED data: a strain gauge at the shoulder fillet of a machined steel axle of a
 loaded two-wheel utility trailer towed over a rough farm track (60 s at 200 Hz), SAE 1045 from
-the handbook table, Smith-Watson-Topper, each repeat standing for 60 s of service.`,
+the handbook table, Smith-Watson-Topper, a gate of 20 µε, scatter factor 3; each repeat stands
+for 0.25 km of track, so lives are given in repeats and in km.`,
 };

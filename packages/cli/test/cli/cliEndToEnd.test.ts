@@ -123,6 +123,15 @@ describe('loopwise (built binary)', () => {
     }
   });
 
+  test('loopwise help demo says what the demo job sets (service per repeat and its unit, gate, scatter factor)', () => {
+    const job = JSON.parse(readFileSync(new URL('../../demo/demo-job.json', import.meta.url), 'utf8'));
+    const help = run(['help', 'demo']).stdout.replace(/\s+/g, ' ');
+    expect(help).toContain(`${job.service.perRepeat} ${job.service.unit}`);
+    expect(help).toContain(`gate of ${job.gate} µε`);
+    expect(help).toContain(`scatter factor ${job.scatterFactor}`);
+    expect(run(['demo']).stdout).toMatch(new RegExp(`repeats = [0-9.]+ ${job.service.unit}`));
+  });
+
   test('--help on every command shows examples; --version prints the version', () => {
     for (const c of ['assess', 'count', 'margin', 'material']) {
       const r = run([c, '--help']);
