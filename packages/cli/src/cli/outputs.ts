@@ -3,6 +3,7 @@ import { CAUTION } from '@loopwise/engine';
 import { describeDialect } from '@loopwise/ingest';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
+import { loopPlaceText } from '../report/loopPlace.js';
 import { cyclesCsvRow } from './cyclesCsvRow';
 import { signalWarningsOf } from './renderChannelsHtml';
 import type { OutputSink } from './OutputSet';
@@ -158,9 +159,9 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     if (worst.length > 0) {
       out.push('  worst loops');
       for (const w of worst) {
-        const seam = w.startIndex > w.turnIndex ? ' (across the seam into the next repeat)' : '';
+        const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatNumber(w.count)} per repeat` : '';
         out.push(
-          `    samples ${w.startIndex}–${w.turnIndex}${seam}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}${w.strainMin === null || w.strainMax === null ? '' : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+          `    ${loopPlaceText(w, rep.events)}${perRepeat}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}${w.strainMin === null || w.strainMax === null ? '' : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );
       }
     }

@@ -1,13 +1,18 @@
 import type { WorstLoop } from '@loopwise/engine';
 import { formatInteger, formatNumber, formatPercent } from './formatNumber.js';
 import { htmlTable, num } from './htmlTable.js';
+import { loopPlaceText } from './loopPlace.js';
 
 function indexText(i: number): string {
   return i < 0 ? 'initial state' : formatInteger(i);
 }
 
-/** The table of the most damaging loops, by rank (the ranks marked in the plots). */
-export function worstLoopsTable(loops: WorstLoop[], stressUnit: string): string {
+/**
+ * The table of the most damaging loops, by rank (the ranks marked in the plots). Indices are of
+ * the schedule (the events one after the other); with `events` of a duty cycle the last column
+ * also gives each event's own sample.
+ */
+export function worstLoopsTable(loops: WorstLoop[], stressUnit: string, events: readonly { name: string; samples: number }[] = []): string {
   if (loops.length === 0) return '<p class="none">No damaging loops.</p>';
   const stressRoute = loops[0].strainMax === null;
   return htmlTable(
@@ -26,7 +31,7 @@ export function worstLoopsTable(loops: WorstLoop[], stressUnit: string): string 
       num(formatNumber(l.cyclesToFailure)),
       num(indexText(l.startIndex)),
       num(indexText(l.turnIndex)),
-      `${l.startEvent ?? 'initial state'} → ${l.turnEvent ?? 'initial state'}`,
+      events.length > 1 ? loopPlaceText(l, events) : `${l.startEvent ?? 'initial state'} → ${l.turnEvent ?? 'initial state'}`,
     ]),
   );
 }
