@@ -19,6 +19,7 @@ import { HELP } from './helpTexts';
 import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
+import { withServiceFromTime } from './timeBase';
 import { runAssessment, type ChannelResult } from './runAssessment';
 import { runMargin } from './marginCommand';
 import { renderChannelsHtml } from './renderChannelsHtml';
@@ -345,6 +346,17 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   const progress = progressOf(io, Boolean(values.quiet), job.file);
   // the loop table is kept only when it is written (--cycles-out); otherwise memory stays flat
   const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined, guard });
+  // no service given: a file with a time base gives the service per repeat in hours
+  if (job.service === undefined && job.events === null) {
+    for (const r of results) {
+      if (!r.timeBase) continue;
+      const samples = r.sources[0].samples;
+      const done = withServiceFromTime(r.report, samples, r.timeBase);
+      r.report = done.report;
+      if (r.corrections) r.corrections = r.corrections.map((c) => ({ ...c, life: withServiceFromTime({ ...r.report, life: c.life }, samples, r.timeBase!).report.life }));
+      if (r === results[0]) (job.notes ??= []).push(done.note);
+    }
+  }
   box.results = results;
   if (progress) io.stderr('\r\x1b[K');
   try {

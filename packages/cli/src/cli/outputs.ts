@@ -4,6 +4,7 @@ import { describeDialect } from '@loopwise/ingest';
 import type { ChannelResult } from './runAssessment';
 import { formatNumber } from '../report/formatNumber.js';
 import { loopPlaceText } from '../report/loopPlace.js';
+import { timeText } from './timeBase';
 import { cyclesCsvRow } from './cyclesCsvRow';
 import { signalWarningsOf } from './renderChannelsHtml';
 import type { OutputSink } from './OutputSet';
@@ -161,7 +162,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
       for (const w of worst) {
         const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatNumber(w.count)} per repeat` : '';
         out.push(
-          `    ${loopPlaceText(w, rep.events)}${perRepeat}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}${w.strainMin === null || w.strainMax === null ? '' : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+          `    ${loopPlaceText(w, rep.events)}${perRepeat}${r.timeBase ? ` (t ${w.startIndex < 0 ? 'start' : timeText(r.timeBase, w.startIndex)} – ${timeText(r.timeBase, w.turnIndex)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${w.strainMin === null || w.strainMax === null ? '' : r.unit === 'µε' ? `, ε ${formatNumber(w.strainMin * 1e6)} … ${formatNumber(w.strainMax * 1e6)} µε` : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );
       }
     }

@@ -18,6 +18,8 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
     channels.push({
       spectrum,
       corrections: r.corrections,
+      timeBase: r.timeBase ?? null,
+      ...(r.eventStarts ? { eventStarts: r.eventStarts } : {}),
       signalWarnings: signalWarningsOf(r),
       name: r.name,
       unit: r.unit,

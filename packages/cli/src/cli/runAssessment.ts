@@ -11,6 +11,7 @@ import {
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
 import { channelConversion, readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestOptions, type IngestReport } from '../ingest';
+import { timeBaseOf, type TimeBase } from './timeBase';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
 import { UsageError } from './CliError';
 import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
@@ -36,6 +37,10 @@ export interface ChannelResult {
   loopStream: LoopSpool | null;
   /** What the flagged samples do to the damage (a single file whose signal checks flagged samples). */
   artefactStudy?: ArtefactFigures;
+  /** The file's time base as a uniform step (a single file with a sample rate or an even time column). */
+  timeBase?: TimeBase | null;
+  /** Where each event of a duty cycle starts in the schedule (sample index), for the history plot. */
+  eventStarts?: { name: string; index: number }[];
 }
 
 /** Called with the number of samples read so far, for a progress display. */
@@ -78,9 +83,20 @@ export function engineRangeOf(c: CliChannel): (x: number) => number {
   return (x) => Math.abs((x * k.multiplier) / k.divisor);
 }
 
+/**
+ * The display copy of a history in the channel's own unit where the engine unit differs only by
+ * a power of ten (µε for a microstrain channel: the user's numbers stay the user's); stresses
+ * and loads stay in MPa (a load channel is shown as the nominal stress it was converted to).
+ */
+function inOwnUnit(c: CliChannel, h: { index: Float64Array; value: Float64Array } | null): { index: Float64Array; value: Float64Array } | null {
+  if (h === null || !(c.quantity === 'strain' && c.unit === 'microstrain')) return h;
+  return { index: h.index, value: h.value.map((v) => v * 1e6) };
+}
+
 function unitLabel(c: CliChannel): string {
   if (c.quantity === 'load') return 'MPa nominal (from load)';
-  return c.quantity === 'strain' ? 'strain' : 'MPa';
+  if (c.quantity === 'strain') return c.unit === 'microstrain' ? 'µε' : 'strain';
+  return 'MPa';
 }
 
 /** Settings of {@link runAssessment}. */
@@ -275,7 +291,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
       corrections: job.meanStress === 'all' ? reports.map(correctionOf) : null,
       sources: [studied.source],
       ...(studied.figures[k] ? { artefactStudy: studied.figures[k] } : {}),
-      history: displays[k].points(),
+      history: inOwnUnit(c, displays[k].points()),
+      timeBase: timeBaseOf(first),
       loops: null,
       curveLabel: job.stressLife?.label ?? null,
       loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,
@@ -309,7 +326,8 @@ async function runDutyCycle(job: CliJob, main: CliCorrection, guard: MemoryGuard
       report: withoutLoops(full),
       corrections: job.meanStress === 'all' ? compareCorrections(duty, lifeJobOf(job, c, main)) : null,
       sources: read.map((r) => r.report),
-      history: display.points(),
+      history: inOwnUnit(c, display.points()),
+      eventStarts: duty.map((d, j) => ({ name: d.name, index: duty.slice(0, j).reduce((a, e) => a + e.history.length, 0) })),
       loops: keepLoops ? full.loops : null,
       curveLabel: job.stressLife?.label ?? null,
       loopStream: null,

@@ -57,6 +57,10 @@ export interface HtmlChannel {
    * table, the report's own correction marked; absent or null: the report's correction only.
    */
   corrections?: readonly CorrectionResult[] | null;
+  /** Time of sample i = start + i · step (s): the history plot's axis is then time; absent or null: sample index. */
+  timeBase?: { start: number; step: number } | null;
+  /** Where each event of a duty cycle starts (sample index): drawn as boundaries on the history plot. */
+  eventStarts?: readonly { name: string; index: number }[];
 }
 
 /** Everything {@link renderHtmlReport} draws. */

@@ -24,7 +24,7 @@ export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit
   return [
     `<section class="channel" id="${id}" data-channel="${escapeHtml(channel.name)}">`,
     `<h2>Channel ${ordinal + 1}: ${escapeHtml(channel.name)} <small>(${escapeHtml(channel.unit)})</small></h2>`,
-    summaryList(r, channel.loopTotals),
+    summaryList(r, channel.loopTotals, channel.unit),
     '<h3>History</h3>',
     figure(
       historyPlot(channel, `${id}-history`),

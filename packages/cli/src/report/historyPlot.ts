@@ -5,6 +5,7 @@ import { innerX, innerY, plotFrame } from './PlotFrame.js';
 import { svgAxes } from './svgAxes.js';
 import { svgEmptyNote, svgPlot } from './svgPlot.js';
 import { dataNumber, svgNumber } from './svgNumber.js';
+import { escapeHtml } from './escapeHtml.js';
 
 /** Index of the displayed point nearest to a sample index (display indices ascending). */
 function nearest(index: Float64Array, target: number): number {
@@ -40,7 +41,23 @@ export function historyPlot(channel: HtmlChannel, id: string): string {
   const [lo, hi] = paddedExtent(h.value.subarray(0, n), 0.12);
   const y = linearScale(lo, hi, yr0, yr1);
   const parts: string[] = [];
-  parts.push(svgAxes(f, { scale: x, ticks: niceTicks(first, last, 10), label: 'sample index' }, { scale: y, ticks: niceTicks(lo, hi, 6), label: `${channel.name} (${channel.unit})` }));
+  // the x axis in time when the file has a time base (ticks at round seconds), else in samples
+  const tb = channel.timeBase ?? null;
+  let xAxis: { scale: (v: number) => number; ticks: ReturnType<typeof niceTicks>; label: string };
+  if (tb !== null && tb.step > 0) {
+    const ticks = niceTicks(tb.start + first * tb.step, tb.start + last * tb.step, 10);
+    xAxis = { scale: (t: number) => x((t - tb.start) / tb.step), ticks, label: 'time (s)' };
+  } else xAxis = { scale: x, ticks: niceTicks(first, last, 10), label: 'sample index' };
+  parts.push(svgAxes(f, xAxis, { scale: y, ticks: niceTicks(lo, hi, 6), label: `${channel.name} (${channel.unit})` }));
+  // event boundaries of a duty cycle: a dashed line at each event's first sample, named
+  for (const e of channel.eventStarts ?? []) {
+    if (e.index < first || e.index > last) continue;
+    const px = svgNumber(x(e.index));
+    parts.push(
+      `<g class="event-start" data-event="${escapeHtml(e.name)}" data-index="${dataNumber(e.index)}"><line x1="${px}" x2="${px}" y1="${yr1}" y2="${yr0}" stroke-dasharray="4 3"/>` +
+        `<text x="${svgNumber(x(e.index) + 4)}" y="${svgNumber(yr1 + 12)}">${escapeHtml(e.name)}</text></g>`,
+    );
+  }
   let d = '';
   for (let i = 0; i < n; i++) d += `${i === 0 ? 'M' : 'L'}${svgNumber(x(h.index[i]))} ${svgNumber(y(h.value[i]))}`;
   parts.push(`<path class="history-line" d="${d}" data-points="${n}"/>`);
@@ -48,11 +65,18 @@ export function historyPlot(channel: HtmlChannel, id: string): string {
   // Rank labels sit above maxima and below minima; a label that would overlap one already
   // placed on the same side moves further out, one line at a time.
   const placed: Array<{ x: number; y: number }> = [];
-  const labelY = (px: number, py: number, up: boolean) => {
+  // A label that would leave the frame goes beside its marker instead, inside the frame.
+  const labelAt = (px: number, py: number, up: boolean): [number, number] => {
     let ly = up ? py - 8 : py + 17;
-    for (let tries = 0; tries < 12 && placed.some((p) => Math.abs(p.x - px) < 16 && Math.abs(p.y - ly) < 13); tries++) ly += up ? -13 : 13;
-    placed.push({ x: px, y: ly });
-    return ly;
+    let lx = px;
+    for (let tries = 0; tries < 12 && placed.some((p) => Math.abs(p.x - lx) < 16 && Math.abs(p.y - ly) < 13); tries++) ly += up ? -13 : 13;
+    if (ly < yr1 + 11 || ly > yr0 - 2) {
+      ly = Math.min(Math.max(py + 4, yr1 + 11), yr0 - 2);
+      lx = px + (px > xr1 - 24 ? -12 : 12);
+      for (let tries = 0; tries < 6 && placed.some((p) => Math.abs(p.x - lx) < 12 && Math.abs(p.y - ly) < 13); tries++) lx += px > xr1 - 24 ? -12 : 12;
+    }
+    placed.push({ x: lx, y: ly });
+    return [lx, ly];
   };
   channel.report.worstLoops.forEach((loop, k) => {
     const rank = k + 1;
@@ -67,11 +91,11 @@ export function historyPlot(channel: HtmlChannel, id: string): string {
       const cx = x(h.index[p]);
       const px = svgNumber(cx);
       const py = y(v);
-      const ly = labelY(cx, py, up);
+      const [lx, ly] = labelAt(cx, py, up);
       markers.push(
         `<g class="loop-marker marker-${role}" data-rank="${rank}" data-role="${role}" data-index="${dataNumber(index)}" data-value="${dataNumber(v)}">` +
           `<circle cx="${px}" cy="${svgNumber(py)}" r="4.5"/>` +
-          `<text x="${px}" y="${svgNumber(ly)}" text-anchor="middle">${rank}</text></g>`,
+          `<text x="${svgNumber(lx)}" y="${svgNumber(ly)}" text-anchor="middle">${rank}</text></g>`,
       );
     };
     mark('start', loop.startIndex, s, vs, vt);

@@ -22,7 +22,7 @@ export function matrixPlot(channel: HtmlChannel, id: string): string {
   const rows = m === null ? 0 : m.rowEdges.length - 1;
   const columns = m === null ? 0 : m.columnEdges.length - 1;
   if (m === null || rows < 1 || columns < 1 || m.counts.length < rows * columns) {
-    return svgPlot('matrix', id, title, f, svgEmptyNote(f, 'No matrix given.'));
+    return svgPlot('matrix', id, title, f, svgEmptyNote(f, 'No loop matrix: the loops were not kept (the command keeps them with --cycles-out).'));
   }
   let cmin = Infinity;
   let cmax = 0;

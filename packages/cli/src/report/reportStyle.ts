@@ -39,6 +39,8 @@ svg .legend-title { font-size: 13px; font-weight: 600; }
 svg .plot-note, svg .legend-note { font-size: 12px; fill: #444; }
 svg .empty-note { font-size: 15px; fill: #555; }
 svg .history-line { fill: none; stroke: #33638d; stroke-width: 1; stroke-linejoin: round; }
+svg .event-start line { stroke: #555; stroke-width: 1; }
+svg .event-start text { font-size: 11px; fill: #333; paint-order: stroke; stroke: #fff; stroke-width: 3px; }
 svg .loop-marker circle { stroke: #b3261e; stroke-width: 2; }
 svg .marker-start circle { fill: #fff; }
 svg .marker-turn circle { fill: #b3261e; }

@@ -22,7 +22,7 @@ export function curveText(s: StressInputs): string {
 }
 
 /** The summary numbers of one channel: damage, life, loops, gate. */
-export function summaryList(report: LifeReport, totals?: { cycles: number; rows: number } | null): string {
+export function summaryList(report: LifeReport, totals?: { cycles: number; rows: number } | null, unit = ""): string {
   const loops = report.loops.count;
   let cycles = 0;
   for (let i = 0; i < loops.length; i++) cycles += loops[i];
@@ -37,6 +37,12 @@ export function summaryList(report: LifeReport, totals?: { cycles: number; rows:
     ['mean-stress correction', correctionName(report.damage.meanStress)],
     ...(report.damage.route === 'stress-life' ? ([['route', `stress-life: ${curveText(report.inputs.stressLife as StressInputs)}`]] as [string, string][]) : []),
     ['loops per repeat', loopText],
-    ['gate', `range ${formatNumber(report.gate.range)} (assessed history units), ${formatNumber(report.gate.removedReversals)} reversals removed`],
+    ['gate', `range ${gateText(report.gate.range, unit)}, ${formatNumber(report.gate.removedReversals)} reversals removed`],
   ]);
+}
+
+/** The gate range in the channel's unit: µε for a microstrain channel (the engine's is strain). */
+function gateText(range: number, unit: string): string {
+  if (unit === 'µε') return `${formatNumber(range * 1e6)} µε`;
+  return unit === 'strain' || unit.startsWith('MPa') ? `${formatNumber(range)} ${unit === 'strain' ? 'strain' : 'MPa'}` : `${formatNumber(range)} (assessed history units)`;
 }

@@ -1,0 +1,44 @@
+import type { LifeReport } from '@loopwise/engine';
+import type { IngestReport } from '@loopwise/ingest';
+import { formatNumber } from '../report/formatNumber.js';
+
+/** Time of sample i: start + i · step, in seconds. */
+export interface TimeBase {
+  start: number;
+  step: number;
+}
+
+/**
+ * The time base of a file as a uniform step: a sample rate always; a time column when its steps
+ * agree to 1e-6 of their mean (logger clocks written with rounded decimals do), else null: a
+ * time at a sample index would then need the column itself, which a streamed file does not keep.
+ */
+export function timeBaseOf(source: IngestReport): TimeBase | null {
+  const t = source.time;
+  if (t === null || t === undefined || t.kind === 'none') return null;
+  if (t.kind === 'sample-rate') return { start: 0, step: t.timeStep };
+  if (!(t.samples >= 2) || t.nonIncreasingSteps > 0) return null;
+  if (!(t.meanStep > 0) || t.maxStep - t.minStep > 1e-6 * t.meanStep) return null;
+  return { start: t.first, step: t.meanStep };
+}
+
+/** The time of a sample index for people, e.g. `41.74 s`. */
+export function timeText(base: TimeBase, index: number): string {
+  return `${formatNumber(base.start + index * base.step)} s`;
+}
+
+/**
+ * The report's life with a service per repeat from the time base, in hours: one repeat of a
+ * repeating history lasts its samples × the step (the step back from the last sample to the
+ * first closes the repeat). Used when the user gave no service.
+ */
+export function withServiceFromTime(report: LifeReport, samples: number, base: TimeBase): { report: LifeReport; note: string } {
+  const seconds = samples * base.step;
+  const perRepeat = seconds / 3600;
+  const life = report.life;
+  const next: LifeReport['life'] = { ...life, unit: 'h', perRepeat, service: life.repeats * perRepeat, designService: life.designRepeats * perRepeat };
+  return {
+    report: { ...report, life: next },
+    note: `service per repeat: ${formatNumber(perRepeat)} h (${formatNumber(seconds)} s: ${samples} samples × ${formatNumber(base.step)} s) from the time base (give --service to change it)`,
+  };
+}
