@@ -14,7 +14,7 @@ import { DEFAULT_MEMORY_LIMIT_MB, MemoryGuard, MemoryLimitError } from './Memory
 import { OutputSet, type StdoutWrite } from './OutputSet';
 import { spoolStdin } from './spoolStdin';
 import { SpoolFile } from './SpoolFile';
-import { formatNumber } from '../report/formatNumber.js';
+import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
 import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
@@ -528,9 +528,9 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     const lines = [
       `${summary.channel} in ${summary.file}: ${summary.samples} samples, ${summary.turningPoints} turning points`,
       `gate ${formatNumber(gate)} ${u} removed ${summary.removedReversals} reversals; residue counted as ${residue}`,
-      `cycles ${formatNumber(summary.cycles)}; largest range ${formatNumber(summary.largestRange)} ${u}`,
+      `cycles ${formatCount(summary.cycles)}; largest range ${formatNumber(summary.largestRange)} ${u}`,
       'range exceedance (cycles with a range at or above):',
-      ...spectrum.filter((_, k) => k % Math.max(1, Math.floor(spectrum.length / 8)) === 0).map((s) => `  ${formatNumber(s.rangeFrom).padStart(10)} ${u}  ${formatNumber(s.exceedances)}`),
+      ...spectrum.filter((_, k) => k % Math.max(1, Math.floor(spectrum.length / 8)) === 0).map((s) => `  ${formatNumber(s.rangeFrom).padStart(10)} ${u}  ${formatCount(s.exceedances)}`),
       ...summary.warnings.map((w) => `warning (signal): ${w}`),
     ];
     io.stdout(lines.join('\n') + '\n');

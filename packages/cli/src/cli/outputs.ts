@@ -2,7 +2,7 @@ import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
 import { describeDialect } from '@loopwise/ingest';
 import type { ChannelResult } from './runAssessment';
-import { formatNumber } from '../report/formatNumber.js';
+import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { loopPlaceText } from '../report/loopPlace.js';
 import { timeText } from './timeBase';
 import { cyclesCsvRow } from './cyclesCsvRow';
@@ -145,6 +145,8 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const life = rep.life;
     out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
     for (const src of r.sources) out.push(`  read                   ${src.file}: ${src.samples} rows, ${describeDialect(src.dialect)}, ${src.reader} reader`);
+    const mat = rep.inputs.material as { name?: string } | null | undefined;
+    if (rep.damage.route !== 'stress-life' && mat) out.push(`  material               ${mat.name ?? '(own constants, unnamed)'}`);
     if (rep.damage.route === 'stress-life') out.push(`  route                  stress-life, S-N curve ${r.curveLabel ?? '(given)'} (cycles on the curve; no local strain)`);
     out.push(`  damage per repeat      ${formatNumber(rep.damage.perRepeat)} (first pass ${formatNumber(rep.damage.firstPass)})`);
     out.push(`  life                   ${formatNumber(life.repeats)} repeats${life.unit ? ` = ${formatNumber(life.service as number)} ${life.unit}` : ''}`);
@@ -160,7 +162,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     if (worst.length > 0) {
       out.push('  worst loops');
       for (const w of worst) {
-        const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatNumber(w.count)} per repeat` : '';
+        const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatCount(w.count)} per repeat` : '';
         out.push(
           `    ${loopPlaceText(w, rep.events)}${perRepeat}${r.timeBase ? ` (t ${w.startIndex < 0 ? 'start' : timeText(r.timeBase, w.startIndex)} – ${timeText(r.timeBase, w.turnIndex)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${w.strainMin === null || w.strainMax === null ? '' : r.unit === 'µε' ? `, ε ${formatNumber(w.strainMin * 1e6)} … ${formatNumber(w.strainMax * 1e6)} µε` : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );

@@ -49,3 +49,14 @@ export function formatPercent(share: number): string {
 export function formatInteger(x: number): string {
   return Number.isSafeInteger(x) ? (x < 0 ? `−${-x}` : String(x)) : formatNumber(x);
 }
+
+/**
+ * A count of cycles or loops as it is, not rounded: whole and half counts in full (13397.5),
+ * other fractions (from fractional repeats) to 12 significant digits; an infinite or huge count
+ * as {@link formatNumber}.
+ */
+export function formatCount(x: number): string {
+  if (!Number.isFinite(x) || Math.abs(x) >= 1e15) return formatNumber(x);
+  const text = Number.isInteger(2 * x) ? String(x) : String(Number(x.toPrecision(12)));
+  return text.startsWith('-') ? `−${text.slice(1)}` : text;
+}

@@ -2,7 +2,7 @@ import type { LifeReport } from '@loopwise/engine';
 import type { SnCurve } from '@loopwise/stress-life';
 import { correctionName } from './correctionName.js';
 import { definitionList } from './definitionList.js';
-import { formatNumber } from './formatNumber.js';
+import { formatCount, formatNumber } from './formatNumber.js';
 import { designLifeText, repeatsText, unitLifeText } from './lifeText.js';
 
 /** The stress-life inputs as the report echoes them. */
@@ -26,7 +26,7 @@ export function summaryList(report: LifeReport, totals?: { cycles: number; rows:
   const loops = report.loops.count;
   let cycles = 0;
   for (let i = 0; i < loops.length; i++) cycles += loops[i];
-  const loopText = totals ? `${formatNumber(totals.cycles)} cycles in ${totals.rows} rows` : loops.length > 0 ? `${formatNumber(cycles)} cycles in ${loops.length} rows` : 'folded into the totals as they closed (kept with --cycles-out)';
+  const loopText = totals ? `${formatCount(totals.cycles)} cycles in ${totals.rows} rows` : loops.length > 0 ? `${formatCount(cycles)} cycles in ${loops.length} rows` : 'folded into the totals as they closed (kept with --cycles-out)';
   return definitionList('summary', [
     ['damage per repeat', formatNumber(report.damage.perRepeat)],
     ['life', `${repeatsText(report.life)} repeats`],

@@ -1,5 +1,5 @@
 import type { WorstLoop } from '@loopwise/engine';
-import { formatInteger, formatNumber, formatPercent } from './formatNumber.js';
+import { formatCount, formatInteger, formatNumber, formatPercent } from './formatNumber.js';
 import { htmlTable, num } from './htmlTable.js';
 import { loopPlaceText } from './loopPlace.js';
 
@@ -23,7 +23,7 @@ export function worstLoopsTable(loops: WorstLoop[], stressUnit: string, events: 
       num(String(k + 1)),
       num(formatPercent(l.share)),
       num(formatNumber(l.damage)),
-      num(formatNumber(l.count)),
+      num(formatCount(l.count)),
       num(formatNumber(l.stressMax)),
       num(formatNumber(l.stressMin)),
       num(l.strainMax === null ? '—' : formatNumber(l.strainMax * 1e6)),

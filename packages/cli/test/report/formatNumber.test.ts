@@ -1,6 +1,6 @@
 // Expected strings are the documented format (common practice, no source).
-import { describe, expect, it } from 'vitest';
-import { formatInteger, formatNumber, formatPercent } from '../../src/report/formatNumber.js';
+import { describe, expect, it, test } from 'vitest';
+import { formatCount, formatInteger, formatNumber, formatPercent } from '../../src/report/formatNumber.js';
 
 describe('formatNumber(x, digits = 4)', () => {
   it.each([
@@ -30,5 +30,16 @@ describe('formatNumber(x, digits = 4)', () => {
     expect(formatPercent(1)).toBe('100 %');
     expect(formatInteger(12000000)).toBe('12000000');
     expect(formatInteger(-1)).toBe('−1');
+  });
+});
+
+describe('formatCount', () => {
+  test('counts are not rounded: halves in full, other fractions to 12 digits, minus as in formatNumber', () => {
+    expect(formatCount(13397.5)).toBe('13397.5');
+    expect(formatCount(380288.5)).toBe('380288.5');
+    expect(formatCount(7)).toBe('7');
+    expect(formatCount(2.37 * 3)).toBe('7.11');
+    expect(formatCount(-0.5)).toBe('−0.5');
+    expect(formatCount(Infinity)).toBe(formatNumber(Infinity));
   });
 });
