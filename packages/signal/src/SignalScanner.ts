@@ -27,6 +27,13 @@ export interface ClippingCheckOptions {
   minimumSamples?: number;
   /** …and at least this share of all samples. Default 0.001 (`common practice, no source`). */
   minimumShare?: number;
+  /**
+   * Only runs of at least this many consecutive samples at the extreme count (default 3,
+   * `common practice, no source`): a periodic signal written with rounded decimals meets its
+   * extreme once or twice per cycle (two samples either side of a peak round alike), which is not
+   * a clipped top; a clipped top is a plateau.
+   */
+  minimumRun?: number;
 }
 
 /** Options of the offset check. */
@@ -74,7 +81,7 @@ export const DIFFERENCE_STRIDE = 16;
 
 const SPIKE_KEYS = ['factor', 'minimumJump', 'blockLength'] as const;
 const STUCK_KEYS = ['minimumSamples'] as const;
-const CLIP_KEYS = ['minimumSamples', 'minimumShare'] as const;
+const CLIP_KEYS = ['minimumSamples', 'minimumShare', 'minimumRun'] as const;
 const SHARE_KEYS = ['share'] as const;
 const SCAN_KEYS = ['spikes', 'stuckRuns', 'clipping', 'offset', 'drift', 'timeBase'] as const;
 
@@ -111,7 +118,8 @@ function section<T extends object>(value: T | false | undefined, keys: readonly 
  * - **Stuck run**: at least `minimumSamples` identical consecutive samples; a `zero-run` when
  *   the value is 0, else a `stuck-run`. Look-ahead: none (a run is reported when it ends).
  * - **Clipping**: at least max(`minimumSamples`, `minimumShare` · n) samples exactly at the
- *   largest (smallest) value of a non-constant record; each run of them is a finding. Needs the
+ *   largest (smallest) value of a non-constant record, in runs of at least `minimumRun` (3)
+ *   consecutive samples (plateaus); each such run is a finding. Needs the
  *   whole record (the extreme is known at the end); memory holds the runs at the running extreme.
  * - **Offset**: |mean| > `share` · (max − min), one finding over the record.
  * - **Drift**: the least-squares line through (i, x[i]) rises or falls by more than `share` ·
@@ -184,7 +192,11 @@ export class SignalScanner {
     this.clipping =
       clip === null
         ? null
-        : { minimumSamples: integerOption(clip.minimumSamples, 'clipping.minimumSamples', 5, 1), minimumShare: positiveOption(clip.minimumShare, 'clipping.minimumShare', 0.001, true) };
+        : {
+            minimumSamples: integerOption(clip.minimumSamples, 'clipping.minimumSamples', 5, 1),
+            minimumShare: positiveOption(clip.minimumShare, 'clipping.minimumShare', 0.001, true),
+            minimumRun: integerOption(clip.minimumRun, 'clipping.minimumRun', 3, 1),
+          };
     if (this.clipping !== null && this.clipping.minimumShare! > 1) throw new SignalError('invalid-option', 'clipping.minimumShare', clip!.minimumShare, 'must be a share in [0, 1]');
     const offset = section(options.offset, SHARE_KEYS, 'offset');
     this.offsetShare = offset === null ? Infinity : positiveOption(offset.share, 'offset.share', 0.5, true);
@@ -304,8 +316,15 @@ export class SignalScanner {
     const range = this.max - this.min;
     if (this.clipping !== null && range > 0) {
       const need = Math.max(this.clipping.minimumSamples!, this.clipping.minimumShare! * n);
-      if (this.atMax >= need) for (let k = 0; k < this.maxRunCount; k++) findings.add('clipped-maximum', this.maxRuns[2 * k], this.maxRuns[2 * k + 1], this.max);
-      if (this.atMin >= need) for (let k = 0; k < this.minRunCount; k++) findings.add('clipped-minimum', this.minRuns[2 * k], this.minRuns[2 * k + 1], this.min);
+      // only plateaus count: runs of at least minimumRun samples at the extreme
+      const run = this.clipping.minimumRun!;
+      const plateau = (runs: Float64Array, count: number) => {
+        let at = 0;
+        for (let k = 0; k < count; k++) if (runs[2 * k + 1] >= run) at += runs[2 * k + 1];
+        return at;
+      };
+      if (plateau(this.maxRuns, this.maxRunCount) >= need) for (let k = 0; k < this.maxRunCount; k++) if (this.maxRuns[2 * k + 1] >= run) findings.add('clipped-maximum', this.maxRuns[2 * k], this.maxRuns[2 * k + 1], this.max);
+      if (plateau(this.minRuns, this.minRunCount) >= need) for (let k = 0; k < this.minRunCount; k++) if (this.minRuns[2 * k + 1] >= run) findings.add('clipped-minimum', this.minRuns[2 * k], this.minRuns[2 * k + 1], this.min);
     }
     const mean = this.sums ? this.sum.valueOf() / n : NaN;
     if (Math.abs(mean) > this.offsetShare * range) findings.add('offset', 0, n, mean);

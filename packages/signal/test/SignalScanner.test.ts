@@ -84,6 +84,20 @@ describe('new SignalScanner(options)', () => {
     expect(scanSignal(x).findings.count('clipped-minimum')).toBe(0);
   });
 
+  it('a rounded periodic signal meets its extreme in single samples or pairs: not clipping; the same signal clipped is', () => {
+    // 200·sin(2πi/50) with one decimal: samples 12 and 13 of every period are both 199.6
+    const x = Float64Array.from({ length: 20000 }, (_, i) => Number((200 * Math.sin((2 * Math.PI * i) / 50)).toFixed(1)));
+    expect(x.filter((v) => v === 199.6).length).toBe(800);
+    expect(scanSignal(x).findings.count('clipped-maximum')).toBe(0);
+    expect(scanSignal(x).findings.count('clipped-minimum')).toBe(0);
+    const clipped = x.map((v) => Math.min(v, 150));
+    const runs = scanSignal(clipped).findings.select('clipped-maximum').toArray();
+    expect(runs.length).toBe(400);
+    expect(runs.every((r) => r.length >= 3)).toBe(true);
+    // a run shorter than minimumRun does not count
+    expect(scanSignal(clipped, { clipping: { minimumRun: 100 } }).findings.count('clipped-maximum')).toBe(0);
+  });
+
   it('finds an offset (|mean| above half the range) and a drift (trend above a quarter of the range)', () => {
     const x = sine(4000);
     for (let i = 0; i < x.length; i++) x[i] += 500;
