@@ -28,7 +28,7 @@ export interface CountedSchedule {
   gate: number;
   /** Reversals the gate removed per repeat of the schedule. */
   removed: number;
-  /** Largest |value + offset| of the schedule (the gate bound's envelope). */
+  /** Largest |value + offset| of the schedule (the gate bound's envelope); 0 when the gate removed nothing. */
   largest: number;
 }
 
@@ -101,7 +101,11 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
   const gate = scheduleGate(job, events);
   const starts = eventStartsOf(events);
   const ordinals = new OrdinalMap();
-  const all = new CycleTable();
+  // room for the cycles up front (a cycle per 12 samples; the reference history has one per 13),
+  // so the table rarely grows: each growth copies every column
+  let samples = 0;
+  for (const e of events) samples += e.history.length * Math.max(1, Math.min(e.repeats, 2));
+  const all = new CycleTable(Math.max(1024, Math.min(1 << 24, Math.ceil(samples / 12))));
   const counter = new RainflowCounter({ gate, residue: job.repeating ? 'repeat' : 'half', sink: new MappedSink(ordinals, all) });
   let removed = 0;
   let largest = 0;
@@ -150,10 +154,13 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
     for (let i = 0; i < c.count.length; i++) all.addCycle(c.from[i], c.to[i], c.count[i] * fraction, starts[k] + c.startIndex[i], starts[k] + c.turnIndex[i], starts[k] + c.closeIndex[i]);
     removed += alone.removedCount * fraction;
   });
-  for (const e of events) {
-    for (let i = 0; i < e.history.length; i++) {
-      const a = Math.abs(e.history[i] + job.offset);
-      if (a > largest) largest = a;
+  // the largest |value| only bounds what the gate removed: not needed (and not scanned) when it removed nothing
+  if (removed > 0) {
+    for (const e of events) {
+      for (let i = 0; i < e.history.length; i++) {
+        const a = Math.abs(e.history[i] + job.offset);
+        if (a > largest) largest = a;
+      }
     }
   }
   const closedRows = all.length;
@@ -195,14 +202,16 @@ export function stressLoopColumns(
   const c = emptyColumns(n, {
     strainMax: new Float64Array(0),
     strainMin: new Float64Array(0),
-    count: Float64Array.from(cycles.count),
-    startIndex: Float64Array.from(cycles.startIndex),
-    turnIndex: Float64Array.from(cycles.turnIndex),
-    closeIndex: Float64Array.from(cycles.closeIndex),
+    count: cycles.count.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
+    startIndex: cycles.startIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
+    turnIndex: cycles.turnIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
+    closeIndex: cycles.closeIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
   });
   if (n === 0) return c;
-  const range = new Float64Array(n);
-  const mean = new Float64Array(n);
+  // scratch in columns written last: the range in `parameter` (its amplitude is range / 2), the
+  // mean in `reversalsToFailure` (2 Nf at the end), so no temporary columns are allocated
+  const range = c.parameter;
+  const mean = c.reversalsToFailure;
   for (let i = 0; i < n; i++) {
     const a = (cycles.from[i] + job.offset) * scale;
     const b = (cycles.to[i] + job.offset) * scale;
@@ -215,7 +224,7 @@ export function stressLoopColumns(
   eventsInto(c.turnIndex, c.turnEvent, starts);
   try {
     cycleLivesInto(s.curve, range, mean, c.cyclesToFailure, { meanStress: s.meanStress });
-    for (let i = 0; i < n; i++) c.parameter[i] = range[i] / 2;
+    for (let i = 0; i < n; i++) c.parameter[i] = range[i] / 2; // in place: range is parameter
     equivalentAmplitudeInto(s.meanStress, c.parameter, mean, c.parameter);
   } catch (err) {
     if (err instanceof StressLifeError && err.index !== undefined) {
