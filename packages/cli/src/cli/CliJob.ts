@@ -1,3 +1,4 @@
+import type { CliHotSpot } from './hotSpotChannel';
 import type { Material } from '@loopwise/material';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { NotchInputKind, NotchRuleName } from '@loopwise/notch';
@@ -47,6 +48,8 @@ export interface CliStressLife {
   sigmaF?: number;
   /** IIW residual-stress category for the f(R) enhancement. */
   iiwCategory?: IiwResidualCategory;
+  /** The channels are gauges at the hot-spot rule's points: one channel, their hot-spot stress, is assessed. */
+  hotSpot?: CliHotSpot;
 }
 
 /** A complete assessment request, from flags or from a job file. */
@@ -191,6 +194,8 @@ export function checkRoute(job: CliJob, where: string | null): void {
     throw new UsageError(`${at('meanStress', 'mean-stress')}: '${job.meanStress}' is a strain-life damage parameter; the stress-life route takes ${STRESS_CORRECTIONS.join(', ')}`);
   }
   for (const c of job.channels) {
+    // strain gauges at the hot-spot rule's points are converted to stress (σ = E·ε) first
+    if (c.quantity === 'strain' && s.hotSpot !== undefined && (c.input === undefined || c.input === 'nominal')) continue;
     if (c.quantity === 'strain' || (c.input !== undefined && c.input !== 'nominal')) {
       throw new UsageError(`${where ? `${where}: channels` : '--quantity'}: the stress-life route assesses stress or load channels (nominal or hot-spot stress); a strain gauge at the notch root takes the strain-life route`);
     }

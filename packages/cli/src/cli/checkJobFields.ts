@@ -189,6 +189,7 @@ const stressLife = objectOf(
     ultimateStrength: positive,
     sigmaF: positive,
     iiwCategory: oneOfText(['I', 'II', 'III']),
+    hotSpot: objectOf({ rule: oneOfText(['typeALinear', 'typeAQuadratic', 'typeBLinear', 'typeBQuadratic']), modulus: positive }, ['rule']),
   },
   ['curve'],
 );

@@ -62,6 +62,9 @@ Stress-life route (an S-N curve instead of the strain-life model; no material ne
   --ultimate-strength <MPa>, --sigma-f <MPa>, --iiw-category I|II|III   constants of those corrections
   --kf <x>                 fatigue notch factor on range and mean (default 1)
   --stress-factor <x>      a factor on every stress, e.g. a load partial factor (default 1)
+  --hot-spot <rule>        the --columns are gauges at the IIW points, in order: typeALinear,
+                           typeAQuadratic, typeBLinear or typeBQuadratic; one hot-spot channel is assessed
+  --hot-spot-modulus <MPa> E for strain gauges (σ = E·ε)
   --service "<x> <unit>"   service one repeat stands for, e.g. "0.5 h" or "12 km"
   --job <file>             take all of the above from a job file (see the CLI README)
   --job-may-read-anywhere  let the job name files outside its own folder (off: they are refused)

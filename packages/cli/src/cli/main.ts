@@ -77,6 +77,8 @@ const MODEL = {
   'mean-stress': { type: 'string' },
   'walker-gamma': { type: 'string' },
   'sn-curve': { type: 'string' },
+  'hot-spot': { type: 'string' },
+  'hot-spot-modulus': { type: 'string' },
   'stress-factor': { type: 'string' },
   'ultimate-strength': { type: 'string' },
   'sigma-f': { type: 'string' },
@@ -254,8 +256,12 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
     set('sigmaF', num(values, 'sigma-f'));
     const cat = oneOf(values, 'iiw-category', ['I', 'II', 'III'] as const);
     if (cat !== undefined) s.iiwCategory = cat;
+    const hot = oneOf(values, 'hot-spot', ['typeALinear', 'typeAQuadratic', 'typeBLinear', 'typeBQuadratic'] as const);
+    const modulus = num(values, 'hot-spot-modulus');
+    if (hot !== undefined) s.hotSpot = { rule: hot, ...(modulus !== undefined ? { modulus } : {}) };
+    else if (modulus !== undefined) throw new UsageError('--hot-spot-modulus: only with --hot-spot');
   } else {
-    for (const k of ['stress-factor', 'ultimate-strength', 'sigma-f', 'iiw-category']) {
+    for (const k of ['stress-factor', 'ultimate-strength', 'sigma-f', 'iiw-category', 'hot-spot', 'hot-spot-modulus']) {
       if (values[k] !== undefined) throw new UsageError(`--${k}: applies to the stress-life route; give --sn-curve`);
     }
   }

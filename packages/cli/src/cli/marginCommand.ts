@@ -52,6 +52,7 @@ interface MarginTarget {
  */
 export async function runMargin(job: CliJob, request: MarginRequest, io: MarginIo, guard: MemoryGuard): Promise<number> {
   const files = job.events ? job.events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })) : [{ path: job.file as string, shown: job.fileShown ?? (job.file as string) }];
+  if (job.stressLife?.hotSpot) throw new UsageError('margin: a hot-spot job is not searched yet; assess it, or write the hot-spot stress as a column and search that');
   guard.checkInMemory(files, job.channels.length, 'the margin search');
   if ((request.targetRepeats === undefined) === (request.targetLife === undefined)) throw new UsageError('--target-repeats or --target-life: give exactly one');
   for (const [name, v] of [['--target-repeats', request.targetRepeats], ['--target-life', request.targetLife]] as const) {

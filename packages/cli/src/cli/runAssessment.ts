@@ -9,9 +9,10 @@ import {
   type LifeReport,
 } from '@loopwise/engine';
 import type { DamageParameterName } from '@loopwise/mean-stress';
-import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
+import { hotSpotStress, type AmplitudeCorrection, type IiwResidualCategory } from '@loopwise/stress-life';
 import { channelConversion, readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestOptions, type IngestReport } from '../ingest';
 import { timeBaseOf, type TimeBase } from './timeBase';
+import { combinedReport, hotSpotPlan, hotSpotReader, type CliHotSpot } from './hotSpotChannel';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
 import { UsageError } from './CliError';
 import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
@@ -197,8 +198,14 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const main = mainCorrection(job);
   const guard = settings.guard ?? new MemoryGuard();
   const keepLoops = settings.keepLoops ?? true;
-  if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
-  const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
+  // a hot-spot job reads its gauges and assesses one channel, their hot-spot stress
+  const hot = job.stressLife?.hotSpot;
+  const plan = hot ? hotSpotPlan(hot, job.channels, job.jobShown ? `${job.jobShown}: stressLife.hotSpot` : '--hot-spot') : null;
+  const gauges = job.channels;
+  if (plan) job = { ...job, channels: [plan.channel] };
+  if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops, hot && plan ? { hot, gauges, plan } : null);
+  const plainRead = settings.parseThread === false ? readDelimited : readDelimitedParallel;
+  const read: typeof readDelimited = hot && plan ? hotSpotReader(plainRead, hot, gauges, plan) : plainRead;
   const onChunk = settings.onChunk;
   const file = job.file as string;
   const name = job.fileShown ?? file;
@@ -300,12 +307,27 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   });
 }
 
-async function runDutyCycle(job: CliJob, main: CliCorrection, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
+async function runDutyCycle(
+  job: CliJob,
+  main: CliCorrection,
+  guard: MemoryGuard,
+  keepLoops: boolean,
+  hotSpot: { hot: CliHotSpot; gauges: CliChannel[]; plan: ReturnType<typeof hotSpotPlan> } | null,
+): Promise<ChannelResult[]> {
   const events = job.events!;
   if (events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
   guard.checkInMemory(events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })), job.channels.length, 'a duty cycle');
   const read: Awaited<ReturnType<typeof readDelimitedColumns>>[] = [];
-  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) }));
+  for (const e of events) {
+    const options = { channels: hotSpot ? hotSpot.gauges : job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
+    const r = await readDelimitedColumns(e.file, options);
+    if (hotSpot) {
+      // the gauges become one channel, their hot-spot stress (IIW recommendations 2.2.3)
+      const { hot, plan } = hotSpot;
+      const inputs = r.channels.map((v, k) => (plan.scales[k] === 1 ? v : v.map((x) => x * plan.scales[k])));
+      read.push({ ...r, report: combinedReport(r.report, plan.name), channels: [hotSpotStress(hot.rule, inputs)] });
+    } else read.push(r);
+  }
   guard.check(() => 'after reading the events');
   return job.channels.map((c, k) => {
     const duty: DutyEvent[] = events.map((e, j) => {

@@ -1,0 +1,89 @@
+import { HOT_SPOT_RULES, hotSpotStressInto, type HotSpotRule } from '@loopwise/stress-life';
+import type { IngestChunk, IngestOptions, IngestReport } from '../ingest';
+import { UsageError } from './CliError';
+import type { CliChannel } from './CliJob';
+
+/** The structural hot-spot stress of a stress-life job: the IIW rule and, for strain gauges, E. */
+export interface CliHotSpot {
+  rule: HotSpotRule;
+  /** Young's modulus (MPa) for gauges that give strain: σ = E·ε (a uniaxial stress state). */
+  modulus?: number;
+}
+
+/**
+ * The one channel a hot-spot job assesses, and the gauges it is made of. The gauges are the
+ * job's channels, in the order of the rule's points (0.4t then 1.0t, …); stress gauges in MPa
+ * as read, strain gauges times `modulus`.
+ */
+export function hotSpotPlan(hot: CliHotSpot, gauges: readonly CliChannel[], where: string): { channel: CliChannel; name: string; scales: number[] } {
+  const rule = HOT_SPOT_RULES[hot.rule];
+  if (rule === undefined) throw new UsageError(`${where}: unknown hot-spot rule "${hot.rule}"; one of ${Object.keys(HOT_SPOT_RULES).join(', ')}`);
+  if (gauges.length !== rule.points.length) {
+    throw new UsageError(`${where}: the ${hot.rule} rule takes ${rule.points.length} gauges (at ${rule.points.map((p) => `${p} ${rule.pointUnit}`).join(', ')}), in that order; ${gauges.length} channel(s) given`);
+  }
+  const scales = gauges.map((g, k) => {
+    if (g.quantity === 'strain') {
+      if (!(hot.modulus !== undefined && hot.modulus > 0 && hot.modulus < Infinity)) throw new UsageError(`${where}: gauge ${k + 1} gives strain; give the modulus E in MPa for σ = E·ε`);
+      return hot.modulus;
+    }
+    if (g.quantity === 'load') throw new UsageError(`${where}: gauge ${k + 1} is a load; the hot-spot rule extrapolates stresses or strains`);
+    return 1;
+  });
+  const term = (c: number, k: number) => `${Math.abs(c)} × ${gauges[k].name ?? String(gauges[k].column)}`;
+  const name = `hot spot (${hot.rule}: ${rule.coefficients.map((c, k) => (k === 0 ? (c < 0 ? '−' : '') : c < 0 ? ' − ' : ' + ') + term(c, k)).join('')})`;
+  return { channel: { column: gauges[0].column, name, quantity: 'stress', unit: 'MPa' }, name, scales };
+}
+
+/**
+ * A reader of the gauges that hands on one channel, the hot-spot stress, sample by sample
+ * (IIW recommendations 2.2.3, by `hotSpotStressInto`): every chunk's gauge columns (times their
+ * scales) become one column, in buffers reused from chunk to chunk. The report names the one
+ * channel; the gauges' own signal warnings stay in it (they name their gauge).
+ */
+export function hotSpotReader<R extends IngestReport>(
+  read: (path: string, options: IngestOptions) => Promise<R>,
+  hot: CliHotSpot,
+  gauges: readonly CliChannel[],
+  plan: { name: string; scales: number[] },
+): (path: string, options: IngestOptions) => Promise<R> {
+  return async (path, options) => {
+    let out = new Float64Array(0);
+    let scaled: Float64Array[] = gauges.map(() => new Float64Array(0));
+    const onChunk = options.onChunk;
+    const report = await read(path, {
+      ...options,
+      channels: gauges,
+      ...(onChunk
+        ? {
+            onChunk: (chunk: IngestChunk) => {
+              const n = chunk.length;
+              if (out.length < n) {
+                out = new Float64Array(n);
+                scaled = gauges.map(() => new Float64Array(n));
+              }
+              const inputs = chunk.channels.map((v, k) => {
+                if (plan.scales[k] === 1) return v;
+                const s = scaled[k];
+                for (let i = 0; i < n; i++) s[i] = v[i] * plan.scales[k];
+                return s.subarray(0, n);
+              });
+              const o = out.subarray(0, n);
+              hotSpotStressInto(hot.rule, inputs, o);
+              onChunk({ firstSample: chunk.firstSample, length: n, channels: [o], time: chunk.time });
+            },
+          }
+        : {}),
+    });
+    return combinedReport(report, plan.name);
+  };
+}
+
+/** The report of the gauges as the report of the one hot-spot channel. */
+export function combinedReport<R extends IngestReport>(report: R, name: string): R {
+  const first = report.channels[0];
+  const { artefacts: _, ...rest } = report as R & { artefacts?: unknown };
+  return {
+    ...rest,
+    channels: [{ ...first, name, quantity: 'stress', conversion: { engineUnit: 'MPa', multiplier: 1, divisor: 1, statement: `structural hot-spot stress from the gauges ${report.channels.map((c) => c.name).join(', ')} (${report.channels.map((c) => c.conversion.statement).join('; ')})` } }],
+  } as unknown as R;
+}

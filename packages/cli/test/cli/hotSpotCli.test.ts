@@ -1,0 +1,76 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { assessDutyCycle, assessLife } from '@loopwise/engine';
+import { hotSpotStress, iiwFatCurve } from '@loopwise/stress-life';
+import { beforeAll, describe, expect, test } from 'vitest';
+import { main, type Io } from '../../src/cli/main';
+
+// Issue 12, item 3 in the CLI: two or three gauges at the IIW reference points become one
+// hot-spot stress history (IIW recommendations 2.2.3, by the library's hotSpotStress), assessed
+// on the stress-life route. Gauge files INVENTED for the test.
+let dir = '';
+const n = 8000;
+const base = Array.from({ length: n }, (_, i) => 60 * Math.sin(i / 17) + 25 * Math.sin(i / 3.1));
+const g = [1.3, 1.1, 0.95].map((f) => base.map((b) => Number((f * b).toFixed(2))));
+
+async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  let stdout = '';
+  let stderr = '';
+  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
+  const code = await main(args, io);
+  return { code, stdout, stderr };
+}
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'loopwise-hotspot-'));
+  writeFileSync(join(dir, 'weld.csv'), 'a_MPa,b_MPa,c_MPa\n' + g[0].map((_, i) => `${g[0][i]},${g[1][i]},${g[2][i]}`).join('\n') + '\n');
+  // the same gauges as microstrain, E = 206000 MPa: ε = σ / E
+  writeFileSync(join(dir, 'weld_ue.csv'), 'a_ue,b_ue\n' + g[0].map((_, i) => `${((g[0][i] / 206000) * 1e6).toFixed(6)},${((g[1][i] / 206000) * 1e6).toFixed(6)}`).join('\n') + '\n');
+});
+
+const fat71 = { stressLife: { curve: iiwFatCurve(71), meanStress: { method: 'none' as const } } };
+
+describe('hot-spot stress in the CLI', () => {
+  test('type a linear from two stress gauges equals the engine on hotSpotStress of the same columns', async () => {
+    const r = await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--column', 'b_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear', '--json']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.channels).toHaveLength(1);
+    expect(j.channels[0].name).toBe('hot spot (typeALinear: 1.67 × a_MPa − 0.67 × b_MPa)');
+    const want = assessLife(hotSpotStress('typeALinear', [g[0], g[1]]), fat71);
+    expect(Math.abs(j.channels[0].report.damage.perRepeat / want.damage.perRepeat - 1)).toBeLessThanOrEqual(1e-12);
+  });
+
+  test('type a quadratic from three gauges, and strain gauges with --hot-spot-modulus (σ = E·ε)', async () => {
+    const q = JSON.parse((await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--column', 'b_MPa', '--column', 'c_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeAQuadratic', '--json'])).stdout);
+    const wantQ = assessLife(hotSpotStress('typeAQuadratic', g), fat71);
+    expect(Math.abs(q.channels[0].report.damage.perRepeat / wantQ.damage.perRepeat - 1)).toBeLessThanOrEqual(1e-12);
+    const s = await cli(['assess', join(dir, 'weld_ue.csv'), '--column', 'a_ue', '--column', 'b_ue', '--quantity', 'strain', '--unit', 'microstrain', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear', '--hot-spot-modulus', '206000', '--json']);
+    expect(s.code).toBe(0);
+    const want = assessLife(hotSpotStress('typeALinear', [g[0], g[1]]), fat71);
+    // the strains carry six decimals of µε: the stresses agree to about 1e-9 of their size
+    expect(Math.abs(JSON.parse(s.stdout).channels[0].report.damage.perRepeat / want.damage.perRepeat - 1)).toBeLessThan(1e-6);
+  });
+
+  test('a duty cycle of a job file with stressLife.hotSpot', async () => {
+    writeFileSync(join(dir, 'job.json'), JSON.stringify({ format: 'loopwise-job', version: 1, stressLife: { curve: 'iiw:71', hotSpot: { rule: 'typeALinear' } }, channels: [{ column: 'a_MPa', quantity: 'stress', unit: 'MPa' }, { column: 'b_MPa', quantity: 'stress', unit: 'MPa' }], events: [{ name: 'site', file: 'weld.csv', repeats: 3 }] }));
+    const r = await cli(['assess', '--job', join(dir, 'job.json'), '--json']);
+    expect(r.stderr).toBe('');
+    const want = assessDutyCycle([{ name: 'site', history: hotSpotStress('typeALinear', [g[0], g[1]]), repeats: 3 }], fat71);
+    expect(Math.abs(JSON.parse(r.stdout).channels[0].report.damage.perRepeat / want.damage.perRepeat - 1)).toBeLessThanOrEqual(1e-12);
+  });
+
+  test('bad input: the wrong number of gauges, strain without a modulus, --hot-spot without --sn-curve: exit 2 naming the option', async () => {
+    const one = await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear']);
+    expect(one.code).toBe(2);
+    expect(one.stderr).toMatch(/--hot-spot: the typeALinear rule takes 2 gauges \(at 0\.4 t, 1 t\)/);
+    const strain = await cli(['assess', join(dir, 'weld_ue.csv'), '--column', 'a_ue', '--column', 'b_ue', '--quantity', 'strain', '--unit', 'microstrain', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear']);
+    expect(strain.code).toBe(2);
+    expect(strain.stderr).toMatch(/modulus/);
+    const route = await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--column', 'b_MPa', '--material', 'SAE 1045', '--hot-spot', 'typeALinear']);
+    expect(route.code).toBe(2);
+    expect(route.stderr).toMatch(/--hot-spot: applies to the stress-life route/);
+  });
+});
