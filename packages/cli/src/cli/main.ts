@@ -21,11 +21,11 @@ import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
 import { runAssessment, type ChannelResult } from './runAssessment';
 import { runMargin } from './marginCommand';
-import { renderChannelsHtml } from './renderChannelsHtml';
+import { renderChannelsHtml, reportTitle } from './renderChannelsHtml';
 
-/** Version printed by --version and written into reports. */
-export const VERSION = '0.2.0';
-const TOOL = `loopwise ${VERSION}`;
+import { TOOL } from './version';
+
+export { VERSION } from './version';
 
 /** Where the command writes (injectable for tests). */
 export interface Io {
@@ -368,7 +368,7 @@ function planOutputs(values: Record<string, unknown>, inputs: InputFiles, io: Io
   if (values['cycles-out'] !== undefined) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => writeCyclesCsv(box.results, sink));
   if (values['html-out'] !== undefined)
     outputs.add('--html-out', values['html-out'] as string, async (sink) =>
-      sink.write(await renderChannelsHtml(box.results, title ?? `loopwise ${command}: ${box.results.map((r) => r.name).join(', ')}`, TOOL)),
+      sink.write(await renderChannelsHtml(box.results, title ?? reportTitle(command, box.results), TOOL)),
     );
   if (outputs.usesStdout && values.json) throw new UsageError('--json: the report cannot go to standard output when an output file is "-"');
   return outputs;

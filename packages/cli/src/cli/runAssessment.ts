@@ -1,74 +1,15 @@
-import {
-  assessDutyCycle,
-  compareCorrections,
-  LifeSession,
-  type CorrectionResult,
-  type DutyEvent,
-  type LifeJob,
-  type LifeLoopColumns,
-  type LifeReport,
-} from '@loopwise/engine';
-import type { DamageParameterName } from '@loopwise/mean-stress';
-import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
-import { readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk, type IngestReport } from '../ingest';
+import { assessDutyCycle, compareCorrections, type DutyEvent } from '@loopwise/engine';
+import { readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk } from '../ingest';
 import { UsageError } from './CliError';
-import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
+import type { CliCorrection, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
-import { LoopSpool } from './LoopSpool';
+import { assessStream, type ChannelResult, type Progress } from './assessStream';
+import { lifeJobOf, mainCorrection, unitLabel, withoutLoops } from './lifeJobOf';
 import { MemoryGuard } from './MemoryGuard';
+import { SpoolFile } from './SpoolFile';
 
-/** The result of one channel. */
-export interface ChannelResult {
-  name: string;
-  unit: string;
-  report: LifeReport;
-  /** Every correction side by side, when the job asked for all. */
-  corrections: CorrectionResult[] | null;
-  /** What was read: one ingestion report per file (one, or one per event). */
-  sources: IngestReport[];
-  history: { index: Float64Array; value: Float64Array } | null;
-  /** The loop table of the stabilised pass (main correction) of a duty cycle, when it was kept; null otherwise. */
-  loops: LifeLoopColumns | null;
-  /** The S-N curve as named, on the stress-life route (null on the strain-life route). */
-  curveLabel: string | null;
-  /** The loops of a streamed file, spooled on disk, when they were kept; null otherwise. */
-  loopStream: LoopSpool | null;
-}
-
-/** Called with the number of samples read so far, for a progress display. */
-export type Progress = (samples: number, pass: 1 | 2) => void;
-
-/** The engine job of one channel of a CLI job, under one mean-stress correction. */
-export function lifeJobOf(job: CliJob, channel: CliChannel, meanStress: CliCorrection): LifeJob {
-  const s = job.stressLife;
-  let out: LifeJob;
-  if (s !== undefined) {
-    out = { stressLife: { curve: s.curve, meanStress: amplitudeCorrection(job, meanStress) }, repeating: job.repeating, scatterFactor: job.scatterFactor };
-    if (s.kf !== undefined) out.stressLife!.kf = s.kf;
-    if (s.stressFactor !== undefined) out.stressLife!.stressFactor = s.stressFactor;
-    if (job.material !== undefined) out.material = job.material;
-  } else {
-    const input = channel.input ?? (channel.quantity === 'strain' ? 'local-strain' : 'nominal');
-    out = { material: job.material, input, meanStress: meanStress as DamageParameterName, repeating: job.repeating, scatterFactor: job.scatterFactor };
-    if (input === 'nominal' && job.notch) out.notch = job.notch;
-    if (input === 'pseudo-elastic' && job.notch?.rule) out.rule = job.notch.rule;
-    if (job.walkerGamma !== undefined) out.walkerGamma = job.walkerGamma;
-  }
-  if (job.gate !== undefined) out.gate = job.gate;
-  if (job.gateFraction !== undefined) out.gateFraction = job.gateFraction;
-  if (job.fullScale !== undefined) out.fullScale = job.fullScale;
-  if (job.cutoffCycles !== undefined) out.cutoffCycles = job.cutoffCycles;
-  if (job.criticalDamage !== undefined) out.criticalDamage = job.criticalDamage;
-  if (job.initial !== undefined) out.initial = job.initial;
-  if (job.offset !== undefined) out.offset = job.offset;
-  if (job.service) out.unit = job.service.perRepeat === undefined ? { label: job.service.unit } : { label: job.service.unit, perRepeat: job.service.perRepeat };
-  return out;
-}
-
-function unitLabel(c: CliChannel): string {
-  if (c.quantity === 'load') return 'MPa nominal (from load)';
-  return c.quantity === 'strain' ? 'strain' : 'MPa';
-}
+export { lifeJobOf, mainCorrection } from './lifeJobOf';
+export type { ChannelResult, Progress } from './assessStream';
 
 /** Settings of {@link runAssessment}. */
 export interface AssessmentSettings {
@@ -91,70 +32,6 @@ export interface AssessmentSettings {
 }
 
 /**
- * The corrections of `--mean-stress all` for a job: on the strain-life route every damage
- * parameter (Walker needs γ or Su); on the stress-life route the amplitude corrections whose
- * constants the job or its material gives (as the engine's compareCorrections).
- */
-function correctionsOf(job: CliJob): CliCorrection[] {
-  const s = job.stressLife;
-  if (s === undefined) {
-    const all: CliCorrection[] = ['none', 'morrow', 'modifiedMorrow', 'smithWatsonTopper', 'walker'];
-    return all.filter((c) => c !== 'walker' || job.walkerGamma !== undefined || job.material?.Su !== undefined);
-  }
-  const su = s.ultimateStrength ?? job.material?.Su;
-  const sigmaF = s.sigmaF ?? job.material?.sigmaF;
-  const out: CliCorrection[] = ['none'];
-  if (su !== undefined) out.push('goodman', 'gerber');
-  if (sigmaF !== undefined) out.push('morrow');
-  out.push('smithWatsonTopper');
-  if (job.walkerGamma !== undefined) out.push('walker');
-  if (s.iiwCategory !== undefined) out.push('iiw');
-  return out;
-}
-
-/** The main correction of a job: the one it names, or with `all` the route's usual one (SWT strain-life, none stress-life). */
-export function mainCorrection(job: CliJob): CliCorrection {
-  if (job.meanStress !== 'all') return job.meanStress;
-  return job.stressLife === undefined ? 'smithWatsonTopper' : 'none';
-}
-
-/** An amplitude correction of the stress-life route by name, with the job's (or material's) constants (checkRoute ensured them). */
-function amplitudeCorrection(job: CliJob, name: CliCorrection): AmplitudeCorrection {
-  const s = job.stressLife as CliStressLife;
-  switch (name) {
-    case 'goodman':
-    case 'gerber':
-      return { method: name, ultimateStrength: (s.ultimateStrength ?? job.material?.Su) as number };
-    case 'morrow':
-      return { method: 'morrow', sigmaF: (s.sigmaF ?? job.material?.sigmaF) as number };
-    case 'walker':
-      return { method: 'walker', gamma: job.walkerGamma as number };
-    case 'iiw':
-      return { method: 'iiw', category: s.iiwCategory as IiwResidualCategory };
-    case 'smithWatsonTopper':
-      return { method: 'smithWatsonTopper' };
-    default:
-      return { method: 'none' };
-  }
-}
-
-/** The report without its loop table (the loops go to the loop table of the result). */
-function withoutLoops(report: LifeReport): LifeReport {
-  const empty = Object.fromEntries(Object.entries(report.loops).map(([k, v]) => [k, (v as Float64Array).subarray(0, 0).slice()])) as unknown as LifeLoopColumns;
-  return { ...report, loops: empty };
-}
-
-function correctionOf(report: LifeReport): CorrectionResult {
-  return {
-    meanStress: report.damage.meanStress,
-    damagePerRepeat: report.damage.perRepeat,
-    firstPassDamage: report.damage.firstPass,
-    life: report.life,
-    warnings: report.warnings.map((w) => w.code),
-  };
-}
-
-/**
  * Runs a job. One file is streamed (twice for a repeating history: the second read goes up to
  * the largest |value|; three times with a gate fraction and no declared full scale, the first
  * read finding the range): each channel's loops are folded into running totals as they close
@@ -170,100 +47,11 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   const keepLoops = settings.keepLoops ?? true;
   if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
   const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
-  const onChunk = settings.onChunk;
-  const file = job.file as string;
-  const name = job.fileShown ?? file;
-  const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
-  const at = (chunk: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${chunk.firstSample + chunk.length})`;
-  // a gate fraction without a declared full scale: a first read finds each channel's range
-  const fullScales: (number | undefined)[] = job.channels.map(() => job.fullScale);
-  if (job.gateFraction !== undefined && job.fullScale === undefined) {
-    const lo = job.channels.map(() => Infinity);
-    const hi = job.channels.map(() => -Infinity);
-    await read(file, {
-      ...options,
-      checks: false,
-      onChunk: (chunk) => {
-        chunk.channels.forEach((v, k) => {
-          for (let i = 0; i < v.length; i++) {
-            if (v[i] < lo[k]) lo[k] = v[i];
-            if (v[i] > hi[k]) hi[k] = v[i];
-          }
-        });
-        guard.check(at(chunk));
-      },
-    });
-    job.channels.forEach((_, k) => (fullScales[k] = hi[k] > lo[k] ? hi[k] - lo[k] : undefined));
-  }
-  const jobOf = (c: CliChannel, k: number, ms: CliCorrection): LifeJob => {
-    const j = lifeJobOf(job, c, ms);
-    if (job.gateFraction !== undefined && job.fullScale === undefined) {
-      if (fullScales[k] === undefined) {
-        delete j.gateFraction;
-        j.gate = 0; // a constant history: no range, nothing to gate
-      } else j.fullScale = fullScales[k];
-    }
-    return j;
-  };
-  const corrections = job.meanStress === 'all' ? correctionsOf(job) : [main];
-  // per channel: one session per correction (loops folded into totals); for --cycles-out the
-  // main correction's session hands its evaluated loops to a spool on disk as they close
-  const spools = job.channels.map(() => (keepLoops ? new LoopSpool() : null));
-  const sessions = job.channels.map((c, k) =>
-    corrections.map((ms) => {
-      const spool = spools[k];
-      return new LifeSession(jobOf(c, k, ms), spool !== null && ms === main ? { onLoops: spool.sink } : { keepLoops: false });
-    }),
-  );
-  const displays = job.channels.map(() => new DisplayHistory());
-  const gates = sessions.map((s) => s[0].gateRange);
-  // parsing runs on a second core while the sessions assess the chunks here
-  const first = await read(file, {
-    ...options,
-    onChunk: (chunk) => {
-      chunk.channels.forEach((values, k) => {
-        for (const s of sessions[k]) s.push(values);
-        displays[k].push(values, chunk.firstSample);
-      });
-      onChunk?.(chunk, gates);
-      guard.check(at(chunk));
-      progress?.(chunk.firstSample + chunk.length, 1);
-    },
-  });
-  const need = Math.max(...sessions.flat().map((s) => s.endFirstPass()));
-  if (need > 0) {
-    // the stabilised pass needs the samples up to the largest |value| once more: read them again
-    await read(file, {
-      ...options,
-      checks: false,
-      onChunk: (chunk) => {
-        chunk.channels.forEach((values, k) => {
-          for (const s of sessions[k]) {
-            const left = s.secondPassSamples - chunk.firstSample;
-            if (left > 0) s.pushSecondPass(left >= values.length ? values : values.subarray(0, left));
-          }
-        });
-        guard.check(at(chunk));
-        progress?.(chunk.firstSample + chunk.length, 2);
-      },
-      stopAfterSamples: need,
-    });
-  }
-  return job.channels.map((c, k) => {
-    const reports = sessions[k].map((s) => s.finish());
-    const m = corrections.indexOf(main);
-    const report = reports[m];
-    return {
-      name: first.channels[k].name,
-      unit: unitLabel(c),
-      report,
-      corrections: job.meanStress === 'all' ? reports.map(correctionOf) : null,
-      sources: [first],
-      history: displays[k].points(),
-      loops: null,
-      curveLabel: job.stressLife?.label ?? null,
-      loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,
-    };
+  return assessStream(job, (options) => read(job.file as string, options), {
+    ...(progress ? { progress } : {}),
+    check: (where) => guard.check(where),
+    newLoopStore: keepLoops ? () => new SpoolFile('the loops of --cycles-out') : null,
+    ...(settings.onChunk ? { onChunk: settings.onChunk } : {}),
   });
 }
 
