@@ -17,4 +17,6 @@ export { UsageError } from './cli/CliError';
 export { VERSION, TOOL } from './cli/version';
 export { repeatsText, unitLifeText, designLifeText } from './report/lifeText';
 export { formatNumber } from './report/formatNumber';
+export { masingLoop, type CyclicConstants, type MasingLoop } from './report/masingLoop';
+export { readCyclicConstants } from './report/readCyclicConstants';
 export type { HtmlChannel, HtmlMatrix } from './report/HtmlReportInput';

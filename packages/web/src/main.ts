@@ -3,8 +3,8 @@ import { designLifeText, formatNumber, repeatsText, unitLifeText, type JobFile }
 import { ASSUMPTIONS, CAUTION } from '@loopwise/engine';
 import { surveyColumns, type ColumnSurvey } from '@loopwise/ingest';
 import { handbookSteels } from '@loopwise/material';
-import { drawHistory, drawMatrix, drawTimeline, type HistoryView } from './plots';
-import { FormError, jobFileOf, type FormText } from './pageJob';
+import { drawHistory, drawHysteresis, drawMatrix, drawTimeline, type HistoryView } from './plots';
+import { dialectOf, FormError, jobFileOf, type FormText } from './pageJob';
 import type { ChannelView, ExportKind, FromWorker, ToWorker } from './protocol';
 
 const $ = <T extends HTMLElement = HTMLElement>(id: string) => document.getElementById(id) as T;
@@ -50,8 +50,9 @@ function setState(state: 'idle' | 'running' | 'done' | 'error' | 'cancelled', te
 async function takeFile(f: File): Promise<void> {
   file = f;
   const head = new Uint8Array(await f.slice(0, SURVEY_BYTES).arrayBuffer());
+  setState('idle', '');
   try {
-    columns = surveyColumns(head, {}, f.name).columns;
+    columns = surveyColumns(head, dialectOf(formText()) ?? {}, f.name).columns;
   } catch (error) {
     columns = [];
     setState('error', `${f.name}: ${(error as Error).message}`);
@@ -95,9 +96,23 @@ function unitOptions(): void {
   unit.replaceChildren(...(q === 'strain' ? [new Option('microstrain (µε)', 'microstrain'), new Option('strain (m/m)', 'strain')] : q === 'stress' ? [new Option('MPa', 'MPa'), new Option('ksi', 'ksi')] : [new Option('as the factor says', 'load')]));
 }
 
+/** The mean-stress corrections of each route (the command's names). */
+const CORRECTIONS: Record<string, [string, string][]> = {
+  strain: [['smithWatsonTopper', 'Smith-Watson-Topper'], ['morrow', 'Morrow'], ['modifiedMorrow', 'modified Morrow'], ['walker', 'Walker'], ['none', 'none'], ['all', 'all, side by side']],
+  stress: [['none', 'none'], ['goodman', 'Goodman'], ['gerber', 'Gerber'], ['morrow', 'Morrow (σf′)'], ['smithWatsonTopper', 'Smith-Watson-Topper'], ['walker', 'Walker (γ)'], ['iiw', 'IIW f(R)'], ['all', 'all, side by side']],
+};
+let shownRoute = '';
+
 function showFields(): void {
   const q = $<HTMLSelectElement>('quantity').value;
+  const route = $<HTMLSelectElement>('route').value;
+  if (route !== shownRoute) {
+    shownRoute = route;
+    $<HTMLSelectElement>('mean-stress').replaceChildren(...CORRECTIONS[route].map(([v, t]) => new Option(t, v)));
+  }
   for (const el of document.querySelectorAll<HTMLElement>('.load-only')) el.hidden = q !== 'load';
+  for (const el of document.querySelectorAll<HTMLElement>('.stress-only')) el.hidden = route !== 'stress';
+  for (const el of document.querySelectorAll<HTMLElement>('.strain-only')) el.hidden = route !== 'strain';
   $<HTMLFieldSetElement>('notch-set').disabled = q === 'strain';
   for (const el of document.querySelectorAll<HTMLElement>('.rate-only')) el.hidden = $<HTMLSelectElement>('time').value !== 'rate';
   const src = $<HTMLSelectElement>('material-source').value;
@@ -118,7 +133,12 @@ $('quantity').addEventListener('change', () => {
   unitOptions();
   showFields();
 });
-for (const id of ['time', 'material-source']) $(id).addEventListener('change', showFields);
+for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
+// a layout part set by hand: survey the file again with it
+for (const id of ['skip-lines', 'delimiter', 'decimal-mark', 'header-row', 'units-row'])
+  $(id).addEventListener('change', () => {
+    if (file) void takeFile(file).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
+  });
 const drop = $('drop');
 drop.addEventListener('click', () => $('file').click());
 drop.addEventListener('keydown', (e) => {
@@ -301,9 +321,10 @@ function redraw(): void {
   frame = requestAnimationFrame(() => {
     frame = 0;
     if (!shown) return;
-    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate);
+    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time);
     drawMatrix($<HTMLCanvasElement>('matrix'), shown.matrix);
     drawTimeline($<HTMLCanvasElement>('timeline'), shown.report.timeline);
+    drawHysteresis($<HTMLCanvasElement>('hysteresis'), shown.hysteresis, 'MPa');
   });
 }
 window.addEventListener('resize', redraw);

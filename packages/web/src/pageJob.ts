@@ -33,7 +33,27 @@ const LABELS: Record<string, string> = {
   gate: 'Gate',
   'scatter-factor': 'Scatter factor',
   'service-amount': 'Service per repeat',
+  'gate-fraction': 'Gate as a share of the largest range',
+  'critical-damage': 'Critical damage sum',
+  'ultimate-strength': 'Ultimate strength',
+  'skip-lines': 'Preamble lines',
+  'sn-curve': 'S-N curve',
 };
+
+/** The file layout the form fixes (the job's `dialect`), or undefined when everything is detected. */
+export function dialectOf(form: FormText): JobFile['dialect'] {
+  const out: NonNullable<JobFile['dialect']> = {};
+  const skip = number(form, 'skip-lines', true);
+  if (skip !== undefined) {
+    if (!Number.isInteger(skip) || skip < 0) throw new FormError('skip-lines', `Preamble lines: a whole number, got ${skip}`);
+    out.skipLines = skip;
+  }
+  if (form.delimiter) out.delimiter = form.delimiter as NonNullable<JobFile['dialect']>['delimiter'];
+  if (form['decimal-mark']) out.decimalComma = form['decimal-mark'] === 'comma';
+  if (form['header-row']) out.header = form['header-row'] === 'yes';
+  if (form['units-row']) out.unitsRow = form['units-row'] === 'yes';
+  return Object.keys(out).length > 0 ? out : undefined;
+}
 
 function number(form: FormText, id: string, optional: true): number | undefined;
 function number(form: FormText, id: string, optional?: false): number;
@@ -62,10 +82,27 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
   if (quantity === 'load') channel = { column, quantity: 'load', mpaPerUnit: number(form, 'mpa-per-unit') };
   else if (quantity === 'strain') channel = { column, quantity: 'strain', unit: form.unit === 'strain' ? 'strain' : 'microstrain' };
   else channel = { column, quantity: 'stress', unit: form.unit === 'ksi' ? 'ksi' : 'MPa' };
-  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels: [channel], material: materialOf(form) };
+  const stressRoute = form.route === 'stress';
+  const material = materialOf(form);
+  if (material === undefined && !stressRoute) throw new FormError('material-source', 'Material: the strain-life route needs one (none is for the stress-life route)');
+  if (stressRoute && quantity === 'strain') throw new FormError('quantity', 'Quantity: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route');
+  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels: [channel] };
+  if (material !== undefined) job.material = material;
+  const dialect = dialectOf(form);
+  if (dialect) job.dialect = dialect;
   if (form.time === 'rate') job.time = { sampleRate: number(form, 'sample-rate') };
   else if (form.time !== 'none' && form.time !== undefined && form.time !== '') job.time = { column: Number(form.time) };
-  if (quantity !== 'strain') {
+  if (stressRoute) {
+    const curve = (form['sn-curve'] ?? '').trim();
+    if (curve === '') throw new FormError('sn-curve', 'S-N curve: name one (iiw:71, en1993:80, basquin:…)');
+    const s: NonNullable<JobFile['stressLife']> = { curve };
+    const kf = number(form, 'kf', true);
+    if (kf !== undefined) s.kf = kf;
+    const su = number(form, 'ultimate-strength', true);
+    if (su !== undefined) s.ultimateStrength = su;
+    if (form['iiw-category']) s.iiwCategory = form['iiw-category'] as 'I' | 'II' | 'III';
+    job.stressLife = s;
+  } else if (quantity !== 'strain') {
     const kt = number(form, 'kt', true);
     const kf = number(form, 'kf', true);
     if (kt !== undefined && kf !== undefined) throw new FormError('kf', 'Kt and Kf: give one of them');
@@ -78,7 +115,12 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
   const gamma = number(form, 'walker-gamma', true);
   if (gamma !== undefined) job.walkerGamma = gamma;
   const gate = number(form, 'gate', true);
+  const fraction = number(form, 'gate-fraction', true);
+  if (gate !== undefined && fraction !== undefined) throw new FormError('gate-fraction', 'Gate: give the smallest range or its share of the largest range, not both');
   if (gate !== undefined) job.gate = gate;
+  if (fraction !== undefined) job.gateFraction = fraction;
+  const critical = number(form, 'critical-damage', true);
+  if (critical !== undefined) job.criticalDamage = critical;
   job.repeating = form.repeating !== 'no';
   job.scatterFactor = number(form, 'scatter-factor');
   const amount = number(form, 'service-amount', true);
@@ -90,8 +132,10 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
   return job;
 }
 
-function materialOf(form: FormText): MaterialSpec {
+function materialOf(form: FormText): MaterialSpec | undefined {
   switch (form['material-source']) {
+    case 'none':
+      return undefined;
     case 'handbook':
       return form.handbook;
     case 'su':

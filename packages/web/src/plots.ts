@@ -65,7 +65,7 @@ export interface HistoryView {
  * Draws samples `[view.from, view.to)` of a history as its min/max envelope per pixel column,
  * with the worst loops marked (a band from the loop's start to its turn, numbered by rank).
  */
-export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, levels: EnvelopeLevel[], view: HistoryView, worst: readonly WorstLoop[], unit: string, sampleRate: number | null): void {
+export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, levels: EnvelopeLevel[], view: HistoryView, worst: readonly WorstLoop[], unit: string, sampleRate: number | null, time: Float64Array | null): void {
   const { g, w, h } = prepare(canvas);
   const pw = Math.max(1, Math.floor(w - M.left - M.right));
   const ph = h - M.top - M.bottom;
@@ -131,8 +131,9 @@ export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, lev
     g.stroke();
   }
   g.restore();
-  const at = (i: number) => (sampleRate ? `${formatNumber(i / sampleRate)} s` : `sample ${i}`);
-  axes(g, w, h, [at(view.from), at(view.to - 1), sampleRate ? 'time' : 'sample index'], [formatNumber(ymin), formatNumber(ymax), unit]);
+  const at = (i: number) => (time ? `${formatNumber(time[i])} s` : sampleRate ? `${formatNumber(i / sampleRate)} s` : `sample ${i}`);
+  const xLabel = time ? 'time (from the time column)' : sampleRate ? 'time (from the sample rate)' : 'sample index';
+  axes(g, w, h, [at(view.from), at(view.to - 1), xLabel], [formatNumber(ymin), formatNumber(ymax), unit]);
 }
 
 /** The colour of a share 0…1 of the largest count (light to dark blue). */
@@ -189,4 +190,59 @@ export function drawTimeline(canvas: HTMLCanvasElement, timeline: { binSize: num
     }
   }
   axes(g, w, h, ['sample 0', `sample ${timeline.samples}`, `bins of ${timeline.binSize} samples`], ['0', formatNumber(most), 'damage per bin']);
+}
+
+/** Colours of the ranks 1 … 5 (distinct in colour and lightness). */
+const RANK_COLOURS = ['#b34d00', '#0b5cad', '#2e7d32', '#7b1fa2', '#5b636e'];
+
+/**
+ * Draws the hysteresis loops of the worst cycles in local stress against local strain (µε): the
+ * report's corners joined by Masing branches of the cyclic curve (the HTML report's loops).
+ */
+export function drawHysteresis(canvas: HTMLCanvasElement, loops: { strain: Float64Array; stress: Float64Array; share: number }[] | null, stressUnit: string): void {
+  const { g, w, h } = prepare(canvas);
+  if (loops === null || loops.length === 0) {
+    g.fillStyle = MUTED;
+    g.fillText(loops === null ? 'no local strain on this route: no hysteresis loops' : 'no closed loops', M.left, M.top + 14);
+    return;
+  }
+  let e0 = Infinity;
+  let e1 = -Infinity;
+  let s0 = Infinity;
+  let s1 = -Infinity;
+  for (const l of loops)
+    for (let i = 0; i < l.strain.length; i++) {
+      e0 = Math.min(e0, l.strain[i] * 1e6);
+      e1 = Math.max(e1, l.strain[i] * 1e6);
+      s0 = Math.min(s0, l.stress[i]);
+      s1 = Math.max(s1, l.stress[i]);
+    }
+  const pe = 0.05 * (e1 - e0 || 1);
+  const ps = 0.05 * (s1 - s0 || 1);
+  e0 -= pe;
+  e1 += pe;
+  s0 -= ps;
+  s1 += ps;
+  const pw = w - M.left - M.right;
+  const ph = h - M.top - M.bottom;
+  const X = (e: number) => M.left + ((e * 1e6 - e0) / (e1 - e0)) * pw;
+  const Y = (s: number) => M.top + (1 - (s - s0) / (s1 - s0)) * ph;
+  // the worst loop last, on top
+  for (let k = loops.length - 1; k >= 0; k--) {
+    const l = loops[k];
+    g.strokeStyle = RANK_COLOURS[k % RANK_COLOURS.length];
+    g.lineWidth = k === 0 ? 2.5 : 1.5;
+    g.beginPath();
+    for (let i = 0; i < l.strain.length; i++) {
+      if (i === 0) g.moveTo(X(l.strain[i]), Y(l.stress[i]));
+      else g.lineTo(X(l.strain[i]), Y(l.stress[i]));
+    }
+    g.closePath();
+    g.stroke();
+    g.fillStyle = g.strokeStyle;
+    g.textAlign = 'left';
+    g.textBaseline = 'top';
+    g.fillText(`${k + 1}: ${formatNumber(100 * l.share, 3)} %`, M.left + 6, M.top + 4 + 14 * k);
+  }
+  axes(g, w, h, [formatNumber(e0), formatNumber(e1), 'local strain ε (µε)'], [formatNumber(s0), formatNumber(s1), `local stress σ (${stressUnit})`]);
 }

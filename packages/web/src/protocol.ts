@@ -20,6 +20,10 @@ export interface ChannelView {
   levels: EnvelopeLevel[];
   /** Samples per second when the job gives a sample rate (for the time axis), else null. */
   sampleRate: number | null;
+  /** The worst loops drawn from the material model (Masing branches between their corners), by rank; null on the stress-life route or without a cyclic curve. */
+  hysteresis: { strain: Float64Array; stress: Float64Array; share: number }[] | null;
+  /** The time column in seconds, when the job takes one (for the time axis), else null. */
+  time: Float64Array | null;
 }
 
 /** Worker → page. */

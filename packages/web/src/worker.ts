@@ -6,7 +6,9 @@ import {
   htmlChannelsOf,
   jobOfJobFile,
   jsonReport,
+  masingLoop,
   MemorySpool,
+  readCyclicConstants,
   renderChannelsHtml,
   reportTitle,
   signalWarningsOf,
@@ -53,15 +55,15 @@ function fileReader(file: File): StreamRead {
   };
 }
 
-/** A growable Float32Array of one channel's samples. */
-class Samples {
-  values = new Float32Array(1 << 16);
+/** A growable typed array of one column's samples. */
+class Samples<T extends Float32Array | Float64Array> {
   length = 0;
+  constructor(public values: T) {}
   push(v: Float64Array): void {
     if (this.length + v.length > this.values.length) {
       let n = this.values.length;
       while (n < this.length + v.length) n *= 2;
-      const bigger = new Float32Array(n);
+      const bigger = new (this.values.constructor as new (n: number) => T)(n);
       bigger.set(this.values.subarray(0, this.length));
       this.values = bigger;
     }
@@ -72,6 +74,7 @@ class Samples {
 
 async function run(file: File, jobFile: JobFile): Promise<void> {
   const t0 = performance.now();
+  const transferLater: Transferable[] = [];
   for (const r of results ?? []) r.loopStream?.remove();
   results = null;
   const job = jobOfJobFile(jobFile, 'the page', {
@@ -81,13 +84,19 @@ async function run(file: File, jobFile: JobFile): Promise<void> {
     },
   });
   if (job.file !== file.name) throw new UsageError(`file: the job names "${job.file}", the page was given "${file.name}"`);
-  const samples = job.channels.map(() => new Samples());
+  const samples = job.channels.map(() => new Samples(new Float32Array(1 << 16)));
+  const time = job.time !== undefined && 'column' in job.time ? new Samples(new Float64Array(1 << 16)) : null;
   const got = await assessStream(job, fileReader(file), {
     newLoopStore: () => new MemorySpool(),
-    onChunk: (chunk) => chunk.channels.forEach((v, k) => samples[k].push(v)),
+    onChunk: (chunk) => {
+      chunk.channels.forEach((v, k) => samples[k].push(v));
+      if (time && chunk.time) time.push(chunk.time);
+    },
   });
+  const times = time ? time.values.slice(0, time.length) : null;
+  if (times) transferLater.push(times.buffer);
   const html = await htmlChannelsOf(got);
-  const transfer: Transferable[] = [];
+  const transfer: Transferable[] = [...transferLater];
   const channels: ChannelView[] = got.map((r, k) => {
     const values = samples[k].values.slice(0, samples[k].length);
     const levels = envelopeLevels(values);
@@ -95,16 +104,24 @@ async function run(file: File, jobFile: JobFile): Promise<void> {
     const { loops: _loops, inputs: _inputs, ...report } = r.report;
     void _loops;
     void _inputs;
+    const cyclic = readCyclicConstants(r.report.inputs);
+    const worst = r.report.worstLoops.slice(0, 5);
+    const hysteresis =
+      cyclic === null || worst.some((l) => l.strainMax === null || l.strainMin === null)
+        ? null
+        : worst.map((l) => ({ ...masingLoop(cyclic, l.stressMax, l.stressMin, l.strainMax as number, l.strainMin as number, 40), share: l.share }));
     return {
       name: r.name,
       unit: r.unit,
       report,
+      hysteresis: hysteresis?.map(({ strain, stress, share }) => ({ strain, stress, share })) ?? null,
       corrections: r.corrections,
       signalWarnings: signalWarningsOf(r),
       matrix: html[k].matrix,
       values,
       levels,
       sampleRate: job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : null,
+      time: times,
     };
   });
   results = got;

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
+import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
 import type { Page } from 'playwright';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
@@ -30,6 +31,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   let session: Awaited<ReturnType<typeof startBrowser>>;
   let dir = '';
   let strain: Float64Array;
+  let hotSpot: Float64Array;
   const problems: { consoleErrors: string[]; outside: string[] }[] = [];
 
   beforeAll(async () => {
@@ -38,6 +40,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     strain = await writeStrainFile(join(dir, 'rig-run.csv'), 120_000);
     await writeStrainFile(join(dir, 'spiky.csv'), 40_000, { spikes: 4, seed: 5 });
     await writeStrainFile(join(dir, 'long.csv'), 3_000_000);
+    hotSpot = await writeStrainFile(join(dir, 'weld.csv'), 60_000, { unit: 'MPa', scale: 0.6, seed: 3 });
     session = await startBrowser(binary as string);
   }, 120_000);
 
@@ -71,6 +74,41 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     return readFileSync((await d.path()) as string);
   }
 
+  /**
+   * Downloads the page's four exports and runs the command in-process on the page's job file with
+   * the measured file beside it: its JSON report, cycles CSV and HTML report must be the page's
+   * bytes. Returns the page's JSON.
+   */
+  async function exportsEqualTheCommand(page: Page, file: string): Promise<Buffer> {
+    const json = await download(page, '#export-json');
+    const csv = await download(page, '#export-csv');
+    const html = await download(page, '#export-html');
+    const job = await download(page, '#export-job');
+    const run = mkdtempSync(join(dir, 'cli-'));
+    writeFileSync(join(run, file), readFileSync(join(dir, file)));
+    writeFileSync(join(run, 'job.json'), job);
+    const err: string[] = [];
+    const here = process.cwd();
+    process.chdir(run);
+    try {
+      const code = await main(['assess', '--job', 'job.json', '--json-out', 'out.json', '--cycles-out', 'cycles.csv', '--html-out', 'report.html', '--quiet'], {
+        stdout: () => undefined,
+        stderr: (t) => void err.push(t),
+        stderrIsTerminal: false,
+      });
+      expect(err.join(''), "the command accepts the page's job file").toBe('');
+      expect(code).toBe(0);
+    } finally {
+      process.chdir(here);
+    }
+    expect(json.length).toBeGreaterThan(1000);
+    expect(csv.toString('utf8').split('\n').length).toBeGreaterThan(100);
+    expect(json.equals(readFileSync(join(run, 'out.json'))), 'JSON report').toBe(true);
+    expect(csv.equals(readFileSync(join(run, 'cycles.csv'))), 'cycles CSV').toBe(true);
+    expect(html.equals(readFileSync(join(run, 'report.html'))), 'HTML report').toBe(true);
+    return json;
+  }
+
   test('the life equals assessLife in Node on the same samples (relative 1e-12), and the exports equal the command\'s bytes', async () => {
     const { page, context } = await open();
     await assess(page, 'rig-run.csv', { 'scatter-factor': '5', 'service-amount': '0.25', 'service-unit': 'h', handbook: STEEL });
@@ -89,36 +127,28 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     expect(Math.abs(design - want.life.designRepeats) / want.life.designRepeats).toBeLessThanOrEqual(1e-12);
     // the caution stands next to the life
     expect(await page.textContent('#lives .life .caution')).toContain('licensed engineer');
-    // the exports, and the command run in-process on the page's job file with the measured file beside it
-    const json = await download(page, '#export-json');
-    const csv = await download(page, '#export-csv');
-    const html = await download(page, '#export-html');
-    const job = await download(page, '#export-job');
-    const run = mkdtempSync(join(dir, 'cli-'));
-    writeFileSync(join(run, 'rig-run.csv'), readFileSync(join(dir, 'rig-run.csv')));
-    writeFileSync(join(run, 'job.json'), job);
-    const err: string[] = [];
-    const here = process.cwd();
-    process.chdir(run);
-    try {
-      const code = await main(['assess', '--job', 'job.json', '--json-out', 'out.json', '--cycles-out', 'cycles.csv', '--html-out', 'report.html', '--quiet'], {
-        stdout: () => undefined,
-        stderr: (t) => void err.push(t),
-        stderrIsTerminal: false,
-      });
-      expect(err.join(''), 'the command accepts the page\'s job file').toBe('');
-      expect(code).toBe(0);
-    } finally {
-      process.chdir(here);
-    }
-    expect(json.length).toBeGreaterThan(1000);
-    expect(csv.toString('utf8').split('\n').length).toBeGreaterThan(1000);
-    expect(json.equals(readFileSync(join(run, 'out.json'))), 'JSON report').toBe(true);
-    expect(csv.equals(readFileSync(join(run, 'cycles.csv'))), 'cycles CSV').toBe(true);
-    if (process.env.LOOPWISE_WEB_DUMP) for (const [name, bytes] of [['page.html', html], ['page.json', json]] as const) writeFileSync(join(process.env.LOOPWISE_WEB_DUMP, name), bytes), writeFileSync(join(process.env.LOOPWISE_WEB_DUMP, `cli-${name}`), readFileSync(join(run, name === 'page.html' ? 'report.html' : 'out.json')));
-    expect(html.equals(readFileSync(join(run, 'report.html'))), 'HTML report').toBe(true);
+    const json = await exportsEqualTheCommand(page, 'rig-run.csv');
     // and the page's own life is the report's
     expect(JSON.parse(json.toString('utf8')).results[0].repeats).toBe(repeats);
+    await context.close();
+  }, 120_000);
+
+  test('the stress-life route: the life equals assessLife with the IIW FAT 71 curve in Node, every correction side by side, the exports the command\'s bytes', async () => {
+    const { page, context } = await open();
+    await assess(page, 'weld.csv', { route: 'stress', 'material-source': 'none', 'sn-curve': 'iiw:71', kf: '1.2', 'critical-damage': '0.5', repeating: 'no', 'mean-stress': 'all' });
+    // the engine in Node: the file's MPa values, the curve of IIW FAT 71 (normal stress, variable amplitude)
+    const want = assessLife(hotSpot, {
+      stressLife: { curve: iiwFatCurve(71, { stress: 'normal', loading: 'variable' }), meanStress: { method: 'none' }, kf: 1.2 },
+      repeating: false,
+      criticalDamage: 0.5,
+    });
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(want.life.repeats).toBeGreaterThan(0);
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    // the corrections side by side (no Su given: none and SWT), with the caution under them
+    expect(await page.$$eval('#corrections tr', (rows) => rows.length)).toBe(3);
+    expect(await page.textContent('#corrections .caution')).toContain('licensed engineer');
+    await exportsEqualTheCommand(page, 'weld.csv');
     await context.close();
   }, 120_000);
 
@@ -234,6 +264,15 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
       return blue / (d.length / 4);
     });
     expect(ink).toBeGreaterThan(0.02);
+    // the hysteresis loops are drawn (coloured strokes on the canvas)
+    const loopInk = await page.$eval('#hysteresis', (c) => {
+      const canvas = c as HTMLCanvasElement;
+      const d = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+      let coloured = 0;
+      for (let i = 0; i < d.length; i += 4) if (d[i + 3] > 0 && Math.max(d[i], d[i + 1], d[i + 2]) - Math.min(d[i], d[i + 1], d[i + 2]) > 60) coloured++;
+      return coloured / (d.length / 4);
+    });
+    expect(loopInk).toBeGreaterThan(0.005);
     await context.close();
   }, 60_000);
 

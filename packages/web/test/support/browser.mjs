@@ -76,12 +76,12 @@ export async function openPage(browser, url, width = 1200, height = 900, init = 
 
 /**
  * Writes a measured file as a data logger would (invented data, for tests): a semicolon-separated
- * table with a units row and decimal commas, columns `t` [s], `SG1` [µε] and `T_oil` [°C]; SG1 is
- * the reference history of fixtures/generate.mjs times 4, rounded to 0.01 µε. `spikes` one-sample
- * spikes of 20 times the signal's scale are put in at seeded places. Returns the SG1 values as
- * written (the numbers the file holds, exactly).
+ * table with a units row and decimal commas, columns `t` [s], `SG1` [`unit`, default µε] and
+ * `T_oil` [°C]; SG1 is the reference history of fixtures/generate.mjs times `scale` (default 4),
+ * rounded to 0.01. `spikes` one-sample spikes of 8000 units are put in at seeded places. Returns
+ * the SG1 values as written (the numbers the file holds, exactly).
  */
-export async function writeStrainFile(path, samples, { spikes = 0, seed = 11 } = {}) {
+export async function writeStrainFile(path, samples, { spikes = 0, seed = 11, unit = 'µε', scale = 4 } = {}) {
   const out = createWriteStream(path);
   const stream = referenceStream();
   const chunk = new Float64Array(65536);
@@ -90,14 +90,14 @@ export async function writeStrainFile(path, samples, { spikes = 0, seed = 11 } =
   const spikeAt = new Set();
   while (spikeAt.size < spikes) spikeAt.add(100 + Math.floor(next() * (samples - 200)));
   const write = (text) => (out.write(text) ? Promise.resolve() : new Promise((r) => out.once('drain', r)));
-  await write('t;SG1;T_oil\n[s];[µε];[°C]\n');
+  await write(`t;SG1;T_oil\n[s];[${unit}];[°C]\n`);
   for (let at = 0; at < samples; at += chunk.length) {
     stream.fill(chunk);
     const n = Math.min(chunk.length, samples - at);
     const lines = [];
     for (let k = 0; k < n; k++) {
       const i = at + k;
-      let v = Math.round(400 * chunk[k]) / 100;
+      let v = Math.round(100 * scale * chunk[k]) / 100;
       if (spikeAt.has(i)) v = Math.round(100 * (v + (i % 2 ? 1 : -1) * 8000)) / 100;
       values[i] = v;
       lines.push(`${(i / 200).toFixed(3).replace('.', ',')};${String(v).replace('.', ',')};${(40 + (i % 7) / 10).toFixed(1).replace('.', ',')}\n`);
