@@ -6,10 +6,14 @@ const packages = ['base', 'material', 'rainflow', 'signal', 'ingest', 'notch', '
 export default defineConfig({
   resolve: {
     // Tests run against src/ without a build; test/dist-smoke.test.ts checks the built output.
-    alias: packages.map((name) => ({
-      find: `@loopwise/${name}`,
-      replacement: fileURLToPath(new URL(`./packages/${name}/src/index.ts`, import.meta.url)),
-    })),
+    // (exact names: `@loopwise/cli/browser` is the cli's second entry)
+    alias: [
+      { find: /^@loopwise\/cli\/browser$/, replacement: fileURLToPath(new URL('./packages/cli/src/browser.ts', import.meta.url)) },
+      ...packages.map((name) => ({
+        find: new RegExp(`^@loopwise/${name}$`),
+        replacement: fileURLToPath(new URL(`./packages/${name}/src/index.ts`, import.meta.url)),
+      })),
+    ],
   },
   test: {
     include: ['packages/*/test/**/*.test.ts', 'test/**/*.test.ts'],

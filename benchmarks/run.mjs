@@ -2,16 +2,20 @@
 // The one benchmark runner (`pnpm bench`). Runs every suite in SUITES in one process, prints a
 // table, and writes benchmarks/results.json. Every figure is a ratio to a baseline measured in
 // the same run (harness.mjs pins the baselines and their warm-up); targets come from the issues.
-// Run one suite with `pnpm bench rainflow`.
-import { writeFileSync } from 'node:fs';
+// Run one suite with `pnpm bench rainflow`; `pnpm bench --merge web` runs one suite and replaces
+// only its rows in results.json (the file then says which suites were measured when).
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { arch, cpus, platform } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import * as harness from './harness.mjs';
 
 /** Suites in run order; each is ./suites/<name>.mjs exporting `run(harness)` → rows. */
-const SUITES = ['rainflow', 'signal', 'mean-stress', 'notch', 'stress-life', 'engine', 'small-calls', 'native', 'ingest', 'cli', 'cli-memory', 'fleet'];
+const SUITES = ['rainflow', 'signal', 'mean-stress', 'notch', 'stress-life', 'engine', 'small-calls', 'native', 'ingest', 'cli', 'cli-memory', 'fleet', 'web'];
 
-const only = process.argv.slice(2);
+const merge = process.argv.includes('--merge');
+const only = process.argv.slice(2).filter((a) => a !== '--merge');
+if (merge && only.length === 0) throw new Error('--merge: name the suites to measure again (pnpm bench --merge web)');
+for (const name of only) if (!SUITES.includes(name)) throw new Error(`no suite "${name}"; suites: ${SUITES.join(', ')}`);
 const rows = [];
 for (const name of SUITES) {
   if (only.length && !only.includes(name)) continue;
@@ -71,9 +75,19 @@ const out = {
   timedRuns: harness.TIMED_RUNS,
   figures: rows,
 };
+const resultsFile = fileURLToPath(new URL('./results.json', import.meta.url));
 if (only.length === 0) {
-  writeFileSync(fileURLToPath(new URL('./results.json', import.meta.url)), JSON.stringify(out, null, 2) + '\n');
+  writeFileSync(resultsFile, JSON.stringify(out, null, 2) + '\n');
   console.error('wrote benchmarks/results.json');
+} else if (merge) {
+  // the other suites' rows stay as they were measured; `measuredApart` says which rows came later
+  const old = existsSync(resultsFile) ? JSON.parse(readFileSync(resultsFile, 'utf8')) : { ...out, figures: [] };
+  const kept = old.figures.filter((r) => !only.includes(r.suite));
+  const apart = (old.measuredApart ?? []).filter((m) => !only.includes(m.suite));
+  for (const suite of only) apart.push({ suite, date: out.date, machine: out.machine });
+  const merged = { ...old, figures: SUITES.flatMap((s) => (only.includes(s) ? rows.filter((r) => r.suite === s) : kept.filter((r) => r.suite === s))), measuredApart: apart };
+  writeFileSync(resultsFile, JSON.stringify(merged, null, 2) + '\n');
+  console.error(`replaced the rows of ${only.join(', ')} in benchmarks/results.json`);
 }
 const failed = rows.filter((r) => r.pass === false);
 if (failed.length) console.error(`${failed.length} figure(s) miss their target: ${failed.map((r) => r.figure).join('; ')}`);

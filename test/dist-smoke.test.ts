@@ -22,6 +22,12 @@ function exportsOf(kind: 'import' | 'require', name: string): string[] {
 }
 
 describe('built packages', () => {
+  test('@loopwise/cli/browser (the browser entry of the cli) loads from dist/ through import and require with the same exports', () => {
+    const esm = exportsOf('import', '@loopwise/cli/browser');
+    expect(esm).toEqual(expect.arrayContaining(['assessStream', 'jsonReport', 'writeCyclesCsv', 'renderChannelsHtml', 'MemorySpool', 'jobOfJobFile']));
+    expect(exportsOf('require', '@loopwise/cli/browser')).toEqual(esm);
+  });
+
   for (const { dir, pkg } of packages) {
     test(`${pkg.name} loads from dist/ through import and require with the same exports`, () => {
       expect(existsSync(join(root, 'packages', dir, 'dist', 'index.js')), 'run pnpm build first').toBe(true);

@@ -1,7 +1,6 @@
 import { accessSync, constants, readFileSync, realpathSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { UsageError } from './CliError';
-import { jsonErrorOffset } from './jsonErrorOffset';
 import { FileError, fileErrorOf } from './FileError';
 import type { InputFiles } from './InputFiles';
 
@@ -97,21 +96,4 @@ function inside(folder: string, path: string): boolean {
   return r !== '' && !r.startsWith('..' + sep) && r !== '..' && !isAbsolute(r);
 }
 
-/**
- * `JSON.parse` with a message that locates the fault by line and column and quotes none of the
- * file (the engine's message quotes its text).
- */
-export function parseJsonText(text: string, shown: string, what: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch {
-    const at = jsonErrorOffset(text);
-    let where = '';
-    if (at >= text.length) where = ': it ends too early';
-    else if (at >= 0) {
-      const before = text.slice(0, at);
-      where = ` at line ${before.split('\n').length}, column ${at - before.lastIndexOf('\n')}`;
-    }
-    throw new UsageError(`${shown}: invalid JSON in the ${what}${where}`);
-  }
-}
+export { parseJsonText } from './parseJsonText';

@@ -1,7 +1,7 @@
 import type { LifeLoopColumns, RowRange } from '@loopwise/engine';
 import { cyclesCsvRow } from './cyclesCsvRow';
 import type { OutputSink } from './OutputSet';
-import { SpoolFile } from './SpoolFile';
+import { utf8Length, type SpoolStore } from './SpoolStore';
 
 /** A sink that begins every line with `prefix`. */
 function prefixed(sink: OutputSink, prefix: string): OutputSink {
@@ -41,15 +41,18 @@ function rowsOf(sink: OutputSink, first: number, from: number, to: number): Outp
 const EVENTS = ['history'];
 
 /**
- * The loops of one channel for `--cycles-out`, written to a spool on disk as they close, so the
- * loop table never sits in memory (issue 16). The engine's `LifeSession` evaluates the loops and
+ * The loops of one channel for `--cycles-out`, written to a spool as they close (on disk for the
+ * command, a {@link SpoolFile}, so the loop table never sits in memory, issue 16; in memory for
+ * the browser page, a {@link MemorySpool}: the same rows, byte for byte). The engine's `LifeSession` evaluates the loops and
  * hands them to {@link LoopSpool.sink} (its `onLoops` option): every row of both passes goes to
  * the spool with the byte offset of every CHECKPOINT-th row noted. At the end the session says
  * which rows make its report's loop table (`reportedLoopRows`: the stabilised pass, or a one-off
  * history's first pass and its residue half cycles), and only those are copied into the output.
  */
 export class LoopSpool {
-  private readonly spool = new SpoolFile('the loops of --cycles-out');
+  /** @param spool - where the rows are kept */
+  constructor(private readonly spool: SpoolStore) {}
+
   /** Byte offset in the spool of every CHECKPOINT-th row (row k·CHECKPOINT at index k). */
   private offsets = new Float64Array(1024);
   private rows = 0;
@@ -70,7 +73,7 @@ export class LoopSpool {
       const line = cyclesCsvRow(cols, i, EVENTS) + '\n';
       if (this.rows % CHECKPOINT === 0) this.offsets[this.rows / CHECKPOINT] = this.bytes;
       this.rows++;
-      this.bytes += Buffer.byteLength(line);
+      this.bytes += utf8Length(line);
       this.spool.append(line);
     }
   };

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileErrorOf } from './FileError';
 import type { OutputSink } from './OutputSet';
+import type { SpoolStore } from './SpoolStore';
 import { holdTemporary, removeTemporary } from './temporaries';
 
 /** Characters gathered before a write to the spool. */
@@ -13,7 +14,7 @@ const SPOOL_CHARACTERS = 1 << 20;
  * in a private temporary file instead of in memory, and copied into its output when the run's
  * outputs are written. Removed at the end of the run, also on SIGINT and SIGTERM.
  */
-export class SpoolFile {
+export class SpoolFile implements SpoolStore {
   private readonly dir: string;
   private readonly path: string;
   private fd: number;

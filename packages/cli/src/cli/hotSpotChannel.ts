@@ -1,5 +1,5 @@
 import { HOT_SPOT_RULES, hotSpotStressInto, type HotSpotRule } from '@loopwise/stress-life';
-import type { IngestChunk, IngestOptions, IngestReport } from '../ingest';
+import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { UsageError } from './CliError';
 import type { CliChannel } from './CliJob';
 
@@ -40,17 +40,17 @@ export function hotSpotPlan(hot: CliHotSpot, gauges: readonly CliChannel[], wher
  * scales) become one column, in buffers reused from chunk to chunk. The report names the one
  * channel; the gauges' own signal warnings stay in it (they name their gauge).
  */
-export function hotSpotReader<R extends IngestReport>(
-  read: (path: string, options: IngestOptions) => Promise<R>,
+export function hotSpotReader(
+  read: (options: ReaderOptions) => Promise<IngestReport>,
   hot: CliHotSpot,
   gauges: readonly CliChannel[],
   plan: { name: string; scales: number[] },
-): (path: string, options: IngestOptions) => Promise<R> {
-  return async (path, options) => {
+): (options: ReaderOptions) => Promise<IngestReport> {
+  return async (options) => {
     let out = new Float64Array(0);
     let scaled: Float64Array[] = gauges.map(() => new Float64Array(0));
     const onChunk = options.onChunk;
-    const report = await read(path, {
+    const report = await read({
       ...options,
       channels: gauges,
       ...(onChunk

@@ -19,14 +19,13 @@ import { HELP } from './helpTexts';
 import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
 import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
-import { withServiceFromTime } from './timeBase';
 import { runAssessment, type ChannelResult } from './runAssessment';
 import { runMargin } from './marginCommand';
-import { renderChannelsHtml } from './renderChannelsHtml';
+import { renderChannelsHtml, reportTitle } from './renderChannelsHtml';
 
-/** Version printed by --version and written into reports. */
-export const VERSION = '0.2.0';
-const TOOL = `loopwise ${VERSION}`;
+import { TOOL } from './version';
+
+export { VERSION } from './version';
 
 /** Where the command writes (injectable for tests). */
 export interface Io {
@@ -351,18 +350,7 @@ async function assessCommand(args: string[], io: Io, margin: boolean): Promise<n
   const outputs = planOutputs(values, inputs, io, command, null, box);
   const progress = progressOf(io, Boolean(values.quiet), job.file);
   // the loop table is kept only when it is written (--cycles-out); otherwise memory stays flat
-  const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined, guard });
-  // no service given: a file with a time base gives the service per repeat in hours
-  if (job.service === undefined && job.events === null) {
-    for (const r of results) {
-      if (!r.timeBase) continue;
-      const samples = r.sources[0].samples;
-      const done = withServiceFromTime(r.report, samples, r.timeBase);
-      r.report = done.report;
-      if (r.corrections) r.corrections = r.corrections.map((c) => ({ ...c, life: withServiceFromTime({ ...r.report, life: c.life }, samples, r.timeBase!).report.life }));
-      if (r === results[0]) (job.notes ??= []).push(done.note);
-    }
-  }
+  const results = await runAssessment(job, progress, { keepLoops: values['cycles-out'] !== undefined, guard, serviceFromTime: true });
   box.results = results;
   if (progress) io.stderr('\r\x1b[K');
   try {
@@ -386,7 +374,7 @@ function planOutputs(values: Record<string, unknown>, inputs: InputFiles, io: Io
   if (values['cycles-out'] !== undefined) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => writeCyclesCsv(box.results, sink));
   if (values['html-out'] !== undefined)
     outputs.add('--html-out', values['html-out'] as string, async (sink) =>
-      sink.write(await renderChannelsHtml(box.results, title ?? `loopwise ${command}: ${box.results.map((r) => r.name).join(', ')}`, TOOL)),
+      sink.write(await renderChannelsHtml(box.results, title ?? reportTitle(command, box.results), TOOL)),
     );
   if (outputs.usesStdout && values.json) throw new UsageError('--json: the report cannot go to standard output when an output file is "-"');
   return outputs;

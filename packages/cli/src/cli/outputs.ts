@@ -1,7 +1,7 @@
 import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
 import { describeDialect } from '@loopwise/ingest';
-import type { ChannelResult } from './runAssessment';
+import type { ChannelResult } from './assessStream';
 import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { loopPlaceText } from '../report/loopPlace.js';
 import { timeText } from './timeBase';

@@ -1,7 +1,7 @@
 import { binIndex } from '@loopwise/base';
 import { binEdges } from '@loopwise/rainflow';
 import { renderHtmlReport, type HtmlChannel } from '../report';
-import type { ChannelResult } from './runAssessment';
+import type { ChannelResult } from './assessStream';
 
 const BINS = 20;
 
@@ -11,6 +11,14 @@ const BINS = 20;
  * against local mean stress, loops per repeat), which is what the damage was computed from.
  */
 export async function renderChannelsHtml(results: ChannelResult[], title: string, generatedBy: string): Promise<string> {
+  return renderHtmlReport({ title, generatedBy, channels: await htmlChannelsOf(results) });
+}
+
+/**
+ * What the HTML report draws of each channel (its history, the loop matrix, the loop totals,
+ * the signal warnings, the stress-life spectrum); the browser page draws the same matrix.
+ */
+export async function htmlChannelsOf(results: ChannelResult[]): Promise<HtmlChannel[]> {
   const channels: HtmlChannel[] = [];
   for (const r of results) {
     const loops = await loopSummary(r);
@@ -29,7 +37,12 @@ export async function renderChannelsHtml(results: ChannelResult[], title: string
       loopTotals: loops ? { cycles: loops.cycles, rows: loops.rows } : null,
     });
   }
-  return renderHtmlReport({ title, generatedBy, channels });
+  return channels;
+}
+
+/** The title of the HTML report of a command without a title of its own: `loopwise assess: SG1, SG2`. */
+export function reportTitle(command: string, results: readonly ChannelResult[]): string {
+  return `loopwise ${command}: ${results.map((r) => r.name).join(', ')}`;
 }
 
 /**

@@ -9,8 +9,12 @@ import {
 } from '@loopwise/material';
 import { UsageError } from './CliError';
 import { JobFieldError, materialConstants } from './checkJobFields';
-import type { FileAccess } from './FileAccess';
-import { parseJsonText } from './FileAccess';
+import { parseJsonText } from './parseJsonText';
+
+/** How {@link resolveMaterial} reads a material file: the command's `FileAccess`, or none where there is no file system. */
+export interface TextAccess {
+  readText(path: string, field: string): { text: string; shown: string };
+}
 
 /** How a job names its material: a handbook row, a JSON file, inline constants, or an estimate. */
 export type MaterialSpec =
@@ -35,7 +39,7 @@ export const DEFAULT_STEEL_E_MPA = 207000;
  * through `access` (relative to the job's folder for a job, as typed on the command line).
  * A material file holds the constants only; unknown fields are errors.
  */
-export function resolveMaterial(spec: MaterialSpec | undefined, access: FileAccess, field = 'material'): Material {
+export function resolveMaterial(spec: MaterialSpec | undefined, access: TextAccess, field = 'material'): Material {
   if (spec === undefined || spec === null) throw new UsageError(`${field}: a material is required (a handbook name, a .json file, or constants)`);
   if (typeof spec === 'string') return spec.toLowerCase().endsWith('.json') ? fromFile(spec, access, field) : handbook(spec, field);
   if (typeof spec !== 'object') throw new UsageError(`${field}: must be a name, a file or an object, got ${JSON.stringify(spec)}`);
@@ -60,7 +64,7 @@ function handbook(name: string, field: string): Material {
   );
 }
 
-function fromFile(path: string, access: FileAccess, field: string): Material {
+function fromFile(path: string, access: TextAccess, field: string): Material {
   const { text, shown } = access.readText(path, field);
   const json = parseJsonText(text, shown, 'material file');
   try {

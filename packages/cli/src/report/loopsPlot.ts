@@ -14,10 +14,23 @@ import { dataNumber, svgNumber } from './svgNumber.js';
 const MICRO = 1e6;
 
 /**
+ * Closure errors below this are the rounding of the branch sums (Math.pow is correct to about
+ * one unit in the last place, and its last bit differs between JavaScript engines: Node and a
+ * browser gave 6.5e-16 and 5.2e-16 for the same loop); they are written as 0, larger ones to
+ * three significant digits, so the report is the same bytes on every engine.
+ */
+const CLOSURE_NOISE = 1e-12;
+
+/** The closure error as the report writes it (see CLOSURE_NOISE). */
+function closureErrorText(error: number): string {
+  return error < CLOSURE_NOISE ? '0' : dataNumber(Number(error.toPrecision(3)));
+}
+
+/**
  * The hysteresis loops of the worst cycles in local stress against local strain (µε): one
  * `<path class="loop">` per worst loop with `data-rank` and its corners (`data-stress-max`,
  * `data-stress-min`, `data-strain-max`, `data-strain-min`, strain dimensionless) and the closure
- * error of the drawn curve. The corners are the assessment's; the branches between them are
+ * error of the drawn curve (0 below 1e-12, else three significant digits: see CLOSURE_NOISE). The corners are the assessment's; the branches between them are
  * drawn from the material model (Masing branches of the cyclic curve in `report.inputs`).
  */
 export function loopsPlot(channel: HtmlChannel, id: string, stressUnit: string): string {
@@ -65,7 +78,7 @@ export function loopsPlot(channel: HtmlChannel, id: string, stressUnit: string):
     const style = `stroke="${colour}"${dash ? ` stroke-dasharray="${dash}"` : ''}${rank === 1 ? ' stroke-width="2.5"' : ''}`;
     paths.push(
       `<path class="loop" d="${d}Z" ${style} data-rank="${rank}" data-stress-max="${dataNumber(l.stressMax)}" data-stress-min="${dataNumber(l.stressMin)}"` +
-        ` data-strain-max="${dataNumber(l.strainMax)}" data-strain-min="${dataNumber(l.strainMin)}" data-damage="${dataNumber(l.damage)}" data-closure-error="${dataNumber(loop.closureError)}"/>` +
+        ` data-strain-max="${dataNumber(l.strainMax)}" data-strain-min="${dataNumber(l.strainMin)}" data-damage="${dataNumber(l.damage)}" data-closure-error="${closureErrorText(loop.closureError)}"/>` +
         `<circle class="loop-corner" cx="${svgNumber(x(l.strainMax * MICRO))}" cy="${svgNumber(y(l.stressMax))}" r="3" fill="${colour}"/>` +
         `<circle class="loop-corner" cx="${svgNumber(x(l.strainMin * MICRO))}" cy="${svgNumber(y(l.stressMin))}" r="3" fill="${colour}"/>`,
     );

@@ -2,9 +2,13 @@ import { LifeSession, type LifeJob } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { describe, expect, test } from 'vitest';
 import { LoopSpool } from '../../src/cli/LoopSpool';
+import { MemorySpool } from '../../src/cli/MemorySpool';
+import { SpoolFile } from '../../src/cli/SpoolFile';
+import type { SpoolStore } from '../../src/cli/SpoolStore';
 import { mulberry32 } from '../../../../fixtures/generate.mjs';
 
-// LoopSpool keeps the loops of --cycles-out on disk as a LifeSession hands them over (onLoops);
+// LoopSpool keeps the loops of --cycles-out on disk (the command) or in memory (the browser page)
+// as a LifeSession hands them over (onLoops);
 // the rows it copies out must equal the loop table of a LifeSession with keepLoops, row for row,
 // on every route (repeating, one-off with residue half cycles, gate, offset, initial value).
 // Histories invented for the test (seeded generator).
@@ -49,8 +53,8 @@ function tableRows(job: LifeJob, h: Float64Array, chunk: number): string {
   return lines.join('');
 }
 
-async function streamRows(job: LifeJob, h: Float64Array, chunk: number): Promise<string> {
-  const spool = new LoopSpool();
+async function streamRows(job: LifeJob, h: Float64Array, chunk: number, store: SpoolStore): Promise<string> {
+  const spool = new LoopSpool(store);
   try {
     const s = new LifeSession(job, { onLoops: spool.sink });
     for (let i = 0; i < h.length; i += chunk) s.push(h.subarray(i, i + chunk));
@@ -74,14 +78,19 @@ const cases: [string, LifeJob, number][] = [
   ['nominal stress, initial value, one-off, modified Morrow', { material: steel, notch: { Kt: 2 }, initial: -50, repeating: false, meanStress: 'modifiedMorrow' }, 250],
 ];
 
+const stores: [string, () => SpoolStore][] = [
+  ['on disk', () => new SpoolFile('the test loops')],
+  ['in memory', () => new MemorySpool()],
+];
+
 describe('LoopSpool rows equal the LifeSession loop table (keepLoops)', () => {
-  for (const [name, job, scale] of cases) {
-    test(name, async () => {
+  for (const [name, job, scale] of cases) for (const [where, store] of stores) {
+    test(`${name}, ${where}`, async () => {
       for (const [seed, n, chunk] of [[1, 20000, 4096], [2, 5000, 333], [3, 70000, 65536]] as const) {
         const h = history(n, seed, scale);
         const want = tableRows(job, h, chunk);
         expect(want.length).toBeGreaterThan(0);
-        const got = (await streamRows(job, h, chunk)).split('\n');
+        const got = (await streamRows(job, h, chunk, store())).split('\n');
         const rows = want.split('\n');
         expect(got.length).toBe(rows.length);
         got.forEach((line, i) => {
@@ -102,4 +111,27 @@ describe('LoopSpool rows equal the LifeSession loop table (keepLoops)', () => {
       }
     });
   }
+});
+
+describe('MemorySpool', () => {
+  test('copyRangeTo(sink, start, end) gives the bytes [start, end) of the text across blocks and characters', async () => {
+    // Arrange: text with characters of 1 to 4 bytes in UTF-8 (14 bytes a piece), longer than a block of 1 MiB
+    const piece = 'a,σ,€,😀\n';
+    const store = new MemorySpool();
+    const parts: string[] = [];
+    for (let i = 0; i < 90000; i++) {
+      store.append(piece);
+      parts.push(piece);
+    }
+    const bytes = new TextEncoder().encode(parts.join(''));
+    expect(bytes.length).toBeGreaterThan(1 << 20);
+    // Act and Assert: ranges that start and end on character boundaries, inside and across blocks
+    for (const [start, end] of [[0, bytes.length], [14, 28], [(1 << 20) - 14 * 3, (1 << 20) + 14 * 5]]) {
+      const s = Math.floor(start / 14) * 14;
+      const e = Math.floor(end / 14) * 14;
+      let got = '';
+      await store.copyRangeTo({ write: async (t) => void (got += t) }, s, e);
+      expect(got).toBe(new TextDecoder().decode(bytes.subarray(s, e)));
+    }
+  });
 });

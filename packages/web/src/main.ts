@@ -1,0 +1,419 @@
+// The page: the form, the worker that reads and assesses, what the result shows, and the exports.
+import { designLifeText, formatNumber, repeatsText, unitLifeText, type JobFile } from '@loopwise/cli/browser';
+import { ASSUMPTIONS, CAUTION } from '@loopwise/engine';
+import { surveyColumns, type ColumnSurvey } from '@loopwise/ingest';
+import { handbookSteels } from '@loopwise/material';
+import { drawHistory, drawHysteresis, drawMatrix, drawTimeline, type HistoryView } from './plots';
+import { dialectOf, FormError, jobFileOf, type FormText } from './pageJob';
+import type { ChannelView, ExportKind, FromWorker, ToWorker } from './protocol';
+
+const $ = <T extends HTMLElement = HTMLElement>(id: string) => document.getElementById(id) as T;
+const form = $<HTMLFormElement>('job');
+const status = $<HTMLOutputElement>('status');
+const progress = $<HTMLProgressElement>('progress');
+const runButton = $<HTMLButtonElement>('run');
+const cancelButton = $<HTMLButtonElement>('cancel');
+
+/** Bytes of the file's head that the column survey reads (as the command). */
+const SURVEY_BYTES = 1 << 16;
+
+let file: File | null = null;
+let columns: ColumnSurvey[] = [];
+let worker: Worker | null = null;
+let lastJob: JobFile | null = null;
+let shown: ChannelView | null = null;
+let view: HistoryView = { from: 0, to: 1 };
+let startedAt = 0;
+
+// the caution and the assumptions, from the engine (the same words as every report)
+$('caution-text').textContent = `${CAUTION} The page states what its model assumes; the result is an estimate, not a certificate.`;
+for (const a of ASSUMPTIONS) {
+  const li = document.createElement('li');
+  li.textContent = a;
+  $('assumptions').append(li);
+}
+for (const m of handbookSteels) {
+  const o = new Option(m.name ?? '', m.name ?? '');
+  if ((m.name ?? '').startsWith('SAE 1045')) o.selected = true;
+  $<HTMLSelectElement>('handbook').add(o);
+}
+
+function setState(state: 'idle' | 'running' | 'done' | 'error' | 'cancelled', text: string): void {
+  document.body.dataset.state = state;
+  status.textContent = text;
+  runButton.disabled = state === 'running';
+  cancelButton.disabled = state !== 'running';
+}
+
+// ---- the file: pick, drop, survey its columns
+
+async function takeFile(f: File): Promise<void> {
+  file = f;
+  const head = new Uint8Array(await f.slice(0, SURVEY_BYTES).arrayBuffer());
+  setState('idle', '');
+  try {
+    columns = surveyColumns(head, dialectOf(formText()) ?? {}, f.name).columns;
+  } catch (error) {
+    columns = [];
+    setState('error', `${f.name}: ${(error as Error).message}`);
+  }
+  $('file-info').textContent = `${f.name}: ${formatNumber(f.size / 1048576, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}`;
+  const column = $<HTMLSelectElement>('column');
+  const time = $<HTMLSelectElement>('time');
+  column.replaceChildren();
+  time.replaceChildren(new Option('none (sample index)', 'none'), new Option('a sample rate', 'rate'));
+  for (const c of columns) {
+    const text = `${c.column}: ${c.name}${c.unit ? ` [${c.unit}]` : ''}`;
+    column.add(new Option(text, String(c.column)));
+    if (c.increasing) time.add(new Option(`column ${text}`, String(c.column)));
+  }
+  // as the command: the one numeric column that is not a time base; a time-like increasing column is the time base
+  const signal = columns.find((c) => c.numeric && !c.increasing && !c.timeLike) ?? columns.find((c) => c.numeric) ?? columns[0];
+  if (signal) column.value = String(signal.column);
+  const base = columns.find((c) => c.increasing && c.timeLike && c !== signal);
+  time.value = base ? String(base.column) : 'none';
+  fromColumnUnit();
+  showFields();
+  if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${f.name}. Choose the channel, material and model, then Assess.`);
+}
+
+function fromColumnUnit(): void {
+  const c = columns.find((x) => String(x.column) === $<HTMLSelectElement>('column').value);
+  const r = c?.reading;
+  if (r?.quantity === 'strain' || r?.quantity === 'stress') {
+    $<HTMLSelectElement>('quantity').value = r.quantity;
+    unitOptions();
+    $<HTMLSelectElement>('unit').value = r.unit;
+  } else if (r?.quantity === 'load') {
+    $<HTMLSelectElement>('quantity').value = 'load';
+    unitOptions();
+  }
+}
+
+function unitOptions(): void {
+  const q = $<HTMLSelectElement>('quantity').value;
+  const unit = $<HTMLSelectElement>('unit');
+  unit.replaceChildren(...(q === 'strain' ? [new Option('microstrain (µε)', 'microstrain'), new Option('strain (m/m)', 'strain')] : q === 'stress' ? [new Option('MPa', 'MPa'), new Option('ksi', 'ksi')] : [new Option('as the factor says', 'load')]));
+}
+
+/** The mean-stress corrections of each route (the command's names). */
+const CORRECTIONS: Record<string, [string, string][]> = {
+  strain: [['smithWatsonTopper', 'Smith-Watson-Topper'], ['morrow', 'Morrow'], ['modifiedMorrow', 'modified Morrow'], ['walker', 'Walker'], ['none', 'none'], ['all', 'all, side by side']],
+  stress: [['none', 'none'], ['goodman', 'Goodman'], ['gerber', 'Gerber'], ['morrow', 'Morrow (σf′)'], ['smithWatsonTopper', 'Smith-Watson-Topper'], ['walker', 'Walker (γ)'], ['iiw', 'IIW f(R)'], ['all', 'all, side by side']],
+};
+let shownRoute = '';
+
+function showFields(): void {
+  const q = $<HTMLSelectElement>('quantity').value;
+  const route = $<HTMLSelectElement>('route').value;
+  if (route !== shownRoute) {
+    shownRoute = route;
+    $<HTMLSelectElement>('mean-stress').replaceChildren(...CORRECTIONS[route].map(([v, t]) => new Option(t, v)));
+  }
+  for (const el of document.querySelectorAll<HTMLElement>('.load-only')) el.hidden = q !== 'load';
+  for (const el of document.querySelectorAll<HTMLElement>('.stress-only')) el.hidden = route !== 'stress';
+  for (const el of document.querySelectorAll<HTMLElement>('.strain-only')) el.hidden = route !== 'strain';
+  $<HTMLFieldSetElement>('notch-set').disabled = q === 'strain';
+  for (const el of document.querySelectorAll<HTMLElement>('.rate-only')) el.hidden = $<HTMLSelectElement>('time').value !== 'rate';
+  const src = $<HTMLSelectElement>('material-source').value;
+  for (const kind of ['handbook', 'constants', 'su', 'hardness']) for (const el of document.querySelectorAll<HTMLElement>(`.src-${kind}`)) el.hidden = kind !== src;
+}
+
+unitOptions();
+showFields();
+$('file').addEventListener('change', () => {
+  const f = $<HTMLInputElement>('file').files?.[0];
+  if (f) void takeFile(f);
+});
+$('column').addEventListener('change', () => {
+  fromColumnUnit();
+  showFields();
+});
+$('quantity').addEventListener('change', () => {
+  unitOptions();
+  showFields();
+});
+for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
+// a layout part set by hand: survey the file again with it
+for (const id of ['skip-lines', 'delimiter', 'decimal-mark', 'header-row', 'units-row'])
+  $(id).addEventListener('change', () => {
+    if (file) void takeFile(file).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
+  });
+const drop = $('drop');
+drop.addEventListener('click', () => $('file').click());
+drop.addEventListener('keydown', (e) => {
+  if (e.key === 'Enter' || e.key === ' ') {
+    e.preventDefault();
+    $('file').click();
+  }
+});
+drop.addEventListener('dragover', (e) => {
+  e.preventDefault();
+  drop.classList.add('over');
+});
+drop.addEventListener('dragleave', () => drop.classList.remove('over'));
+drop.addEventListener('drop', (e) => {
+  e.preventDefault();
+  drop.classList.remove('over');
+  const f = e.dataTransfer?.files[0];
+  if (f) void takeFile(f);
+});
+
+// ---- the run, in a worker
+
+function formText(): FormText {
+  const out: FormText = {};
+  for (const el of form.querySelectorAll<HTMLInputElement | HTMLSelectElement>('input, select')) if (el.id) out[el.id] = el.value;
+  return out;
+}
+
+function stopWorker(): void {
+  worker?.terminate();
+  worker = null;
+}
+
+form.addEventListener('submit', (e) => {
+  e.preventDefault();
+  for (const el of form.querySelectorAll('[aria-invalid]')) el.removeAttribute('aria-invalid');
+  if (file === null) {
+    setState('error', 'Measured file: choose or drop a file first');
+    $('drop').focus();
+    return;
+  }
+  let job: JobFile;
+  try {
+    job = jobFileOf(formText(), file.name);
+  } catch (error) {
+    if (error instanceof FormError) {
+      setState('error', error.message);
+      $(error.field).setAttribute('aria-invalid', 'true');
+      $(error.field).focus();
+      return;
+    }
+    throw error;
+  }
+  stopWorker();
+  lastJob = job;
+  startedAt = performance.now();
+  progress.value = 0;
+  setState('running', `Reading ${file.name}…`);
+  const w = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
+  worker = w;
+  w.onmessage = (m: MessageEvent<FromWorker>) => onWorker(m.data);
+  w.onerror = (ev) => {
+    ev.preventDefault();
+    setState('error', `The assessment stopped: ${ev.message || 'the worker failed'}`);
+    stopWorker();
+  };
+  w.postMessage({ kind: 'run', file, job } satisfies ToWorker);
+});
+
+cancelButton.addEventListener('click', () => {
+  stopWorker();
+  progress.value = 0;
+  setState('cancelled', 'Cancelled: the assessment was stopped and its worker ended.');
+});
+
+function onWorker(m: FromWorker): void {
+  if (m.kind === 'progress') {
+    progress.value = m.fraction;
+    setState('running', `Reading ${file?.name ?? 'the file'}, pass ${m.read}: ${Math.round(100 * m.fraction)} %`);
+  } else if (m.kind === 'error') {
+    setState('error', m.message);
+  } else if (m.kind === 'result') {
+    document.body.dataset.resultAt = String(performance.now());
+    progress.value = 1;
+    const ms = performance.now() - startedAt;
+    document.body.dataset.lastRunMs = String(ms);
+    showResult(m.channels);
+    setState('done', `Done in ${formatNumber(ms / 1000, 3)} s (worker ${formatNumber(m.seconds, 3)} s).`);
+  } else {
+    download(m.blob, m.name);
+  }
+}
+
+// ---- the result
+
+function el<K extends keyof HTMLElementTagNameMap>(tag: K, text?: string, cls?: string): HTMLElementTagNameMap[K] {
+  const e = document.createElement(tag);
+  if (text !== undefined) e.textContent = text;
+  if (cls) e.className = cls;
+  return e;
+}
+
+function showResult(channels: ChannelView[]): void {
+  $('results').hidden = false;
+  const warnings = $('warnings');
+  warnings.replaceChildren();
+  const all = channels.flatMap((c) => [...c.signalWarnings.map((w) => `${c.name} (signal): ${w.message}`), ...c.report.warnings.map((w) => `${c.name}: ${w.message}`)]);
+  if (all.length > 0) {
+    warnings.append(el('strong', `${all.length} warning${all.length === 1 ? '' : 's'}`));
+    const ul = el('ul');
+    for (const w of all) ul.append(el('li', w));
+    warnings.append(ul);
+  }
+  const lives = $('lives');
+  lives.replaceChildren();
+  const corrections = $('corrections');
+  corrections.replaceChildren();
+  for (const c of channels) {
+    const life = c.report.life;
+    const box = el('div', undefined, 'life');
+    box.append(el('h3', `${c.name} (${c.unit}), mean-stress correction ${c.report.damage.meanStress}`));
+    const dl = el('dl');
+    const row = (term: string, value: string, cls: string, exact: number) => {
+      const dd = el('dd', value, cls);
+      dd.dataset.value = String(exact);
+      dl.append(el('dt', term), dd);
+    };
+    row('Life', `${repeatsText(life)} repeats${life.unit ? ` = ${unitLifeText(life)}` : ''}`, 'repeats', life.repeats);
+    row('Design life', designLifeText(life), 'design', life.designRepeats);
+    row('Damage per repeat', `${formatNumber(c.report.damage.perRepeat)} (first pass ${formatNumber(c.report.damage.firstPass)})`, 'damage', c.report.damage.perRepeat);
+    box.append(dl);
+    box.append(el('p', `Caution: ${CAUTION}`, 'caution'));
+    lives.append(box);
+    if (c.corrections) {
+      const t = el('table');
+      t.append(el('caption', 'All corrections side by side'));
+      const head = el('tr');
+      for (const h of ['correction', 'damage per repeat', 'life (repeats)', 'design life (repeats)']) head.append(el('th', h));
+      t.append(head);
+      for (const k of c.corrections) {
+        const tr = el('tr');
+        tr.append(el('td', k.meanStress), el('td', formatNumber(k.damagePerRepeat), 'num'), el('td', repeatsText(k.life), 'num'), el('td', formatNumber(k.life.designRepeats), 'num'));
+        t.append(tr);
+      }
+      corrections.append(t, el('p', `Caution: ${CAUTION}`, 'caution'));
+    }
+  }
+  shown = channels[0] ?? null;
+  view = { from: 0, to: shown?.values.length ?? 1 };
+  $('history-note').textContent = shown
+    ? `${formatNumber(shown.values.length)} samples, drawn as the smallest and largest sample of each pixel column. Bands: the five worst loops (start to turn), numbered by damage. Keys on the plot: ← → pan, + − zoom, Home whole history.`
+    : '';
+  const worst = $('worst');
+  worst.replaceChildren();
+  if (shown && shown.report.worstLoops.length > 0) {
+    const t = el('table');
+    t.append(el('caption', 'Worst loops'));
+    const head = el('tr');
+    for (const h of ['rank', 'samples', 'stress (MPa)', 'strain', 'share of damage']) head.append(el('th', h));
+    t.append(head);
+    shown.report.worstLoops.slice(0, 5).forEach((w, i) => {
+      const tr = el('tr');
+      tr.append(
+        el('td', String(i + 1)),
+        el('td', `${w.startIndex}–${w.turnIndex}`),
+        el('td', `${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}`, 'num'),
+        el('td', w.strainMin === null || w.strainMax === null ? '—' : `${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`, 'num'),
+        el('td', `${formatNumber(100 * w.share, 3)} %`, 'num'),
+      );
+      t.append(tr);
+    });
+    worst.append(t);
+  }
+  redraw();
+}
+
+let frame = 0;
+function redraw(): void {
+  if (frame) return;
+  frame = requestAnimationFrame(() => {
+    frame = 0;
+    if (!shown) return;
+    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time);
+    drawMatrix($<HTMLCanvasElement>('matrix'), shown.matrix);
+    drawTimeline($<HTMLCanvasElement>('timeline'), shown.report.timeline);
+    drawHysteresis($<HTMLCanvasElement>('hysteresis'), shown.hysteresis, 'MPa');
+  });
+}
+window.addEventListener('resize', redraw);
+
+// ---- zoom and pan of the history
+
+function zoom(factor: number, centre = 0.5): void {
+  if (!shown) return;
+  const n = shown.values.length;
+  const span = view.to - view.from;
+  const next = Math.max(Math.min(n, 10), Math.min(n, Math.round(span * factor)));
+  const mid = view.from + centre * span;
+  let from = Math.round(mid - centre * next);
+  from = Math.max(0, Math.min(n - next, from));
+  view = { from, to: from + next };
+  redraw();
+}
+
+function pan(share: number): void {
+  if (!shown) return;
+  const n = shown.values.length;
+  const span = view.to - view.from;
+  const from = Math.max(0, Math.min(n - span, view.from + Math.round(share * span)));
+  view = { from, to: from + span };
+  redraw();
+}
+
+$('zoom-in').addEventListener('click', () => zoom(0.5));
+$('zoom-out').addEventListener('click', () => zoom(2));
+$('pan-left').addEventListener('click', () => pan(-0.5));
+$('pan-right').addEventListener('click', () => pan(0.5));
+$('zoom-reset').addEventListener('click', () => zoom(Infinity));
+const history = $<HTMLCanvasElement>('history');
+history.addEventListener('keydown', (e) => {
+  const act: Record<string, () => void> = { ArrowLeft: () => pan(-0.25), ArrowRight: () => pan(0.25), '+': () => zoom(0.5), '=': () => zoom(0.5), '-': () => zoom(2), Home: () => zoom(Infinity) };
+  const f = act[e.key];
+  if (f) {
+    e.preventDefault();
+    f();
+  }
+});
+history.addEventListener(
+  'wheel',
+  (e) => {
+    e.preventDefault();
+    const r = history.getBoundingClientRect();
+    const centre = Math.max(0, Math.min(1, (e.clientX - r.left - 64) / Math.max(1, r.width - 76)));
+    zoom(e.deltaY < 0 ? 0.8 : 1.25, centre);
+  },
+  { passive: false },
+);
+let dragFrom: { x: number; from: number } | null = null;
+history.addEventListener('pointerdown', (e) => {
+  dragFrom = { x: e.clientX, from: view.from };
+  history.setPointerCapture(e.pointerId);
+});
+history.addEventListener('pointermove', (e) => {
+  if (!dragFrom || !shown) return;
+  const span = view.to - view.from;
+  const perPixel = span / Math.max(1, history.clientWidth - 76);
+  const from = Math.max(0, Math.min(shown.values.length - span, Math.round(dragFrom.from - (e.clientX - dragFrom.x) * perPixel)));
+  view = { from, to: from + span };
+  redraw();
+});
+history.addEventListener('pointerup', () => (dragFrom = null));
+
+// ---- exports
+
+function download(blob: Blob, name: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 60_000);
+}
+
+function askExport(what: ExportKind): void {
+  if (!worker) return setState('error', 'Exports: assess a file first');
+  worker.postMessage({ kind: 'export', what } satisfies ToWorker);
+}
+$('export-json').addEventListener('click', () => askExport('json'));
+$('export-csv').addEventListener('click', () => askExport('csv'));
+$('export-html').addEventListener('click', () => askExport('html'));
+$('export-job').addEventListener('click', () => {
+  if (!lastJob) return setState('error', 'Job file: assess a file first');
+  download(new Blob([JSON.stringify(lastJob, null, 2) + '\n'], { type: 'application/json' }), 'loopwise-job.json');
+});
+
+setState('idle', 'Choose or drop a measured file.');

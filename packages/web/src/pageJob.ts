@@ -1,0 +1,156 @@
+import type { CliChannel, JobFile, MaterialSpec } from '@loopwise/cli/browser';
+
+/** What the page's form holds, as text (field ids of index.html). */
+export type FormText = Record<string, string>;
+
+/** An input the page cannot use, naming the field by its label. */
+export class FormError extends Error {
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'FormError';
+  }
+}
+
+/** Labels of the fields, for messages. */
+const LABELS: Record<string, string> = {
+  'mpa-per-unit': 'Nominal stress per unit of load',
+  'sample-rate': 'Sample rate',
+  'm-E': 'E',
+  'm-sigmaF': 'σf′',
+  'm-b': 'b',
+  'm-epsilonF': 'εf′',
+  'm-c': 'c',
+  'm-K': 'K′',
+  'm-n': 'n′',
+  su: 'Tensile strength Su',
+  hardness: 'Brinell hardness',
+  kt: 'Kt',
+  kf: 'Kf',
+  'walker-gamma': 'Walker γ',
+  gate: 'Gate',
+  'scatter-factor': 'Scatter factor',
+  'service-amount': 'Service per repeat',
+  'gate-fraction': 'Gate as a share of the largest range',
+  'critical-damage': 'Critical damage sum',
+  'ultimate-strength': 'Ultimate strength',
+  'skip-lines': 'Preamble lines',
+  'sn-curve': 'S-N curve',
+};
+
+/** The file layout the form fixes (the job's `dialect`), or undefined when everything is detected. */
+export function dialectOf(form: FormText): JobFile['dialect'] {
+  const out: NonNullable<JobFile['dialect']> = {};
+  const skip = number(form, 'skip-lines', true);
+  if (skip !== undefined) {
+    if (!Number.isInteger(skip) || skip < 0) throw new FormError('skip-lines', `Preamble lines: a whole number, got ${skip}`);
+    out.skipLines = skip;
+  }
+  if (form.delimiter) out.delimiter = form.delimiter as NonNullable<JobFile['dialect']>['delimiter'];
+  if (form['decimal-mark']) out.decimalComma = form['decimal-mark'] === 'comma';
+  if (form['header-row']) out.header = form['header-row'] === 'yes';
+  if (form['units-row']) out.unitsRow = form['units-row'] === 'yes';
+  return Object.keys(out).length > 0 ? out : undefined;
+}
+
+function number(form: FormText, id: string, optional: true): number | undefined;
+function number(form: FormText, id: string, optional?: false): number;
+function number(form: FormText, id: string, optional = false): number | undefined {
+  const text = (form[id] ?? '').trim();
+  if (text === '') {
+    if (optional) return undefined;
+    throw new FormError(id, `${LABELS[id] ?? id}: a number is needed`);
+  }
+  const x = Number(text);
+  if (!Number.isFinite(x)) throw new FormError(id, `${LABELS[id] ?? id}: expected a number, got "${text}"`);
+  return x;
+}
+
+/**
+ * The job file of the page's form for the measured file `fileName`: the same JSON the command
+ * reads with `loopwise assess --job` (format `loopwise-job`, version 1). The page runs its jobs
+ * through the command's own reader of job files, so what it shows is what the command computes
+ * from this file.
+ */
+export function jobFileOf(form: FormText, fileName: string): JobFile {
+  const column = Number(form.column);
+  if (!Number.isInteger(column) || column < 1) throw new FormError('column', 'Column assessed: choose a column of the file');
+  const quantity = form.quantity;
+  let channel: CliChannel;
+  if (quantity === 'load') channel = { column, quantity: 'load', mpaPerUnit: number(form, 'mpa-per-unit') };
+  else if (quantity === 'strain') channel = { column, quantity: 'strain', unit: form.unit === 'strain' ? 'strain' : 'microstrain' };
+  else channel = { column, quantity: 'stress', unit: form.unit === 'ksi' ? 'ksi' : 'MPa' };
+  const stressRoute = form.route === 'stress';
+  const material = materialOf(form);
+  if (material === undefined && !stressRoute) throw new FormError('material-source', 'Material: the strain-life route needs one (none is for the stress-life route)');
+  if (stressRoute && quantity === 'strain') throw new FormError('quantity', 'Quantity: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route');
+  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels: [channel] };
+  if (material !== undefined) job.material = material;
+  const dialect = dialectOf(form);
+  if (dialect) job.dialect = dialect;
+  if (form.time === 'rate') job.time = { sampleRate: number(form, 'sample-rate') };
+  else if (form.time !== 'none' && form.time !== undefined && form.time !== '') job.time = { column: Number(form.time) };
+  if (stressRoute) {
+    const curve = (form['sn-curve'] ?? '').trim();
+    if (curve === '') throw new FormError('sn-curve', 'S-N curve: name one (iiw:71, en1993:80, basquin:…)');
+    const s: NonNullable<JobFile['stressLife']> = { curve };
+    const kf = number(form, 'kf', true);
+    if (kf !== undefined) s.kf = kf;
+    const su = number(form, 'ultimate-strength', true);
+    if (su !== undefined) s.ultimateStrength = su;
+    if (form['iiw-category']) s.iiwCategory = form['iiw-category'] as 'I' | 'II' | 'III';
+    job.stressLife = s;
+  } else if (quantity !== 'strain') {
+    const kt = number(form, 'kt', true);
+    const kf = number(form, 'kf', true);
+    if (kt !== undefined && kf !== undefined) throw new FormError('kf', 'Kt and Kf: give one of them');
+    const notch: NonNullable<JobFile['notch']> = { rule: form.rule as 'neuber' | 'glinka' | 'linear' };
+    if (kt !== undefined) notch.Kt = kt;
+    if (kf !== undefined) notch.Kf = kf;
+    job.notch = notch;
+  }
+  job.meanStress = form['mean-stress'] as JobFile['meanStress'];
+  const gamma = number(form, 'walker-gamma', true);
+  if (gamma !== undefined) job.walkerGamma = gamma;
+  const gate = number(form, 'gate', true);
+  const fraction = number(form, 'gate-fraction', true);
+  if (gate !== undefined && fraction !== undefined) throw new FormError('gate-fraction', 'Gate: give the smallest range or its share of the largest range, not both');
+  if (gate !== undefined) job.gate = gate;
+  if (fraction !== undefined) job.gateFraction = fraction;
+  const critical = number(form, 'critical-damage', true);
+  if (critical !== undefined) job.criticalDamage = critical;
+  job.repeating = form.repeating !== 'no';
+  job.scatterFactor = number(form, 'scatter-factor');
+  const amount = number(form, 'service-amount', true);
+  const unit = (form['service-unit'] ?? '').trim();
+  if (amount !== undefined) {
+    if (unit === '') throw new FormError('service-unit', 'Service unit: give the unit of the service per repeat (h, km, flights…)');
+    job.service = { unit, perRepeat: amount };
+  }
+  return job;
+}
+
+function materialOf(form: FormText): MaterialSpec | undefined {
+  switch (form['material-source']) {
+    case 'none':
+      return undefined;
+    case 'handbook':
+      return form.handbook;
+    case 'su':
+      return { estimate: { method: 'uniform-material-law', SuMPa: number(form, 'su') } };
+    case 'hardness':
+      return { estimate: { method: 'hardness', hardnessHB: number(form, 'hardness') } };
+    default:
+      return {
+        E: number(form, 'm-E'),
+        sigmaF: number(form, 'm-sigmaF'),
+        b: number(form, 'm-b'),
+        epsilonF: number(form, 'm-epsilonF'),
+        c: number(form, 'm-c'),
+        K: number(form, 'm-K'),
+        n: number(form, 'm-n'),
+      };
+  }
+}
