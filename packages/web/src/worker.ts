@@ -88,6 +88,8 @@ async function run(file: File, jobFile: JobFile): Promise<void> {
   const time = job.time !== undefined && 'column' in job.time ? new Samples(new Float64Array(1 << 16)) : null;
   const got = await assessStream(job, fileReader(file), {
     newLoopStore: () => new MemorySpool(),
+    // as the command: with no service, a file with a time base gives it (the record's duration in h)
+    serviceFromTime: true,
     onChunk: (chunk) => {
       chunk.channels.forEach((v, k) => samples[k].push(v));
       if (time && chunk.time) time.push(chunk.time);
