@@ -219,14 +219,17 @@ export class ArtefactStudy {
       repeatsAsMeasured: measuredReport.life.repeats,
       repeatsCleaned: cleaned.life.repeats,
     };
+    // flagged samples that change nothing (no damaging loop at them, the same life to 1e-3) say so in few words
+    const idle = share < 1e-3 && Number.isFinite(ratio) && Math.abs(ratio - 1) < 1e-3;
     const warning: SignalWarning = {
       kind: 'artefact-damage',
       channel: this.channel,
       samples: f.spikeCount + f.runSamples,
       ranges: [],
       rangesOmitted: 0,
-      message:
-        `${this.channel}: loops that start or turn at a flagged sample carry ${formatNumber(100 * share, 3)} % of the damage; ` +
+      message: idle
+        ? `${this.channel}: no damaging loop starts or turns at a flagged sample, and with them removed (${what}) the life is the same, ${lifeOf(measuredReport.life)}.`
+        : `${this.channel}: loops that start or turn at a flagged sample carry ${formatNumber(100 * share, 3)} % of the damage; ` +
         `with the flagged samples removed (${what}) the life is ${lifeOf(cleaned.life)}${change} (as measured: ${lifeOf(measuredReport.life)}). ` +
         'Look at the flagged samples before trusting either figure.',
     };

@@ -143,3 +143,22 @@ describe('artefacts and damage side by side', () => {
     );
   });
 });
+
+describe('flagged samples that change nothing', () => {
+  test('a dropout in a quiet stretch: the warning says the life is the same', async () => {
+    // the same INVENTED gauge, with a dropout to zero where the signal is near zero anyway and no spike
+    // (samples 3000 … 5299 are a small ripple of ±30 µε, and 4000 … 4299 of them drop to zero)
+    const quiet = Array.from({ length: n }, (_, i) => (i >= 4000 && i < 4300 ? 0 : i >= 3000 && i < 5300 ? Number((30 * Math.sin(i / 37.1)).toFixed(2)) : signal(i)));
+    const rows = ['gauge_ue', ...quiet.map((v) => v.toFixed(2))];
+    writeFileSync(join(dir, 'quiet.csv'), rows.join('\n') + '\n');
+    const r = await cli(['assess', join(dir, 'quiet.csv'), '--quantity', 'strain', '--unit', 'microstrain', '--material', 'SAE 1045', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    const w = j.warnings.find((x: { code: string }) => x.code === 'artefact-damage');
+    expect(w).toBeDefined();
+    const a = j.channels[0].artefactStudy;
+    expect(a.shareOfDamage).toBeLessThan(1e-3);
+    expect(Math.abs(a.repeatsCleaned / a.repeatsAsMeasured - 1)).toBeLessThan(1e-3);
+    expect(w.message).toMatch(/no damaging loop starts or turns at a flagged sample, and with them removed \(1 flat or zero run\(s\) of 300 samples cut out\) the life is the same/);
+  });
+});
