@@ -86,7 +86,7 @@ export function loopsPlot(channel: HtmlChannel, id: string, stressUnit: string):
     if (ly < f.height - f.bottom) {
       legend.push(
         `<line x1="${lx}" x2="${lx + 28}" y1="${ly}" y2="${ly}" ${style} stroke-width="${rank === 1 ? 3 : 2}"/>` +
-          `<text x="${lx + 36}" y="${ly}" dy="0.35em">${rank}: Δσ ${escapeHtml(formatNumber(l.stressMax - l.stressMin))}, ${escapeHtml(formatPercent(l.share))} of damage</text>`,
+          `<text x="${lx + 36}" y="${ly}" dy="0.35em">${rank}: Δσ ${escapeHtml(formatNumber(l.stressMax - l.stressMin))} ${escapeHtml(stressUnit)}, ${escapeHtml(formatPercent(l.share))} of damage</text>`,
       );
     }
   });

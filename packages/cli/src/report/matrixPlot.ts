@@ -98,8 +98,14 @@ function legend(f: ReturnType<typeof plotFrame>, id: string, cmin: number, cmax:
     .map(([o, c]) => `<stop offset="${o}" stop-color="${c}"/>`)
     .join('');
   const y = linearScale(logMin, logMax > logMin ? logMax : logMin + 1, bottom, top);
+  // the smallest and the largest count, and the powers of ten between them that leave room
+  // (14 px) to both, so no label overprints another
+  const at = (c: number) => (logMax > logMin ? y(Math.log10(c)) : bottom);
   const labels: number[] = [cmin];
-  for (let p = Math.ceil(logMin + 1e-9); p < logMax - 1e-9; p++) labels.push(Math.pow(10, p));
+  for (let p = Math.ceil(logMin + 1e-9); p < logMax - 1e-9; p++) {
+    const c = Math.pow(10, p);
+    if (Math.abs(at(c) - at(cmin)) >= 14 && Math.abs(at(c) - at(cmax)) >= 14) labels.push(c);
+  }
   if (cmax > cmin) labels.push(cmax);
   const ticks = labels
     .map((c) => {
