@@ -58,42 +58,66 @@ async function takeFile(f: File): Promise<void> {
     setState('error', `${f.name}: ${(error as Error).message}`);
   }
   $('file-info').textContent = `${f.name}: ${formatNumber(f.size / 1048576, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}`;
-  const column = $<HTMLSelectElement>('column');
   const time = $<HTMLSelectElement>('time');
-  column.replaceChildren();
   time.replaceChildren(new Option('none (sample index)', 'none'), new Option('a sample rate', 'rate'));
-  for (const c of columns) {
-    const text = `${c.column}: ${c.name}${c.unit ? ` [${c.unit}]` : ''}`;
-    column.add(new Option(text, String(c.column)));
-    if (c.increasing) time.add(new Option(`column ${text}`, String(c.column)));
-  }
+  for (const c of columns) if (c.increasing) time.add(new Option(`column ${columnText(c)}`, String(c.column)));
   // as the command: the one numeric column that is not a time base; a time-like increasing column is the time base
   const signal = columns.find((c) => c.numeric && !c.increasing && !c.timeLike) ?? columns.find((c) => c.numeric) ?? columns[0];
-  if (signal) column.value = String(signal.column);
   const base = columns.find((c) => c.increasing && c.timeLike && c !== signal);
   time.value = base ? String(base.column) : 'none';
-  fromColumnUnit();
+  channelRows(signal);
   showFields();
   if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${f.name}. Choose the channel, material and model, then Assess.`);
 }
 
-function fromColumnUnit(): void {
-  const c = columns.find((x) => String(x.column) === $<HTMLSelectElement>('column').value);
-  const r = c?.reading;
-  if (r?.quantity === 'strain' || r?.quantity === 'stress') {
-    $<HTMLSelectElement>('quantity').value = r.quantity;
-    unitOptions();
-    $<HTMLSelectElement>('unit').value = r.unit;
-  } else if (r?.quantity === 'load') {
-    $<HTMLSelectElement>('quantity').value = 'load';
-    unitOptions();
-  }
+function columnText(c: ColumnSurvey): string {
+  return `${c.column}: ${c.name}${c.unit ? ` [${c.unit}]` : ''}`;
 }
 
-function unitOptions(): void {
-  const q = $<HTMLSelectElement>('quantity').value;
-  const unit = $<HTMLSelectElement>('unit');
-  unit.replaceChildren(...(q === 'strain' ? [new Option('microstrain (µε)', 'microstrain'), new Option('strain (m/m)', 'strain')] : q === 'stress' ? [new Option('MPa', 'MPa'), new Option('ksi', 'ksi')] : [new Option('as the factor says', 'load')]));
+const UNITS: Record<string, [string, string][]> = {
+  strain: [['microstrain', 'microstrain (µε)'], ['strain', 'strain (m/m)']],
+  stress: [['MPa', 'MPa'], ['ksi', 'ksi']],
+  load: [],
+};
+
+/** One row per numeric column: assess it or not, its quantity and unit (preset from the file's unit), a factor for loads. */
+function channelRows(signal: ColumnSurvey | undefined): void {
+  const body = $('channels').querySelector('tbody') as HTMLTableSectionElement;
+  body.replaceChildren();
+  for (const c of columns.filter((x) => x.numeric || x === signal)) {
+    const k = c.column;
+    const tr = document.createElement('tr');
+    const use = Object.assign(document.createElement('input'), { type: 'checkbox', id: `use-${k}`, checked: c === signal });
+    const useLabel = Object.assign(document.createElement('label'), { htmlFor: `use-${k}`, textContent: columnText(c) });
+    const quantity = Object.assign(document.createElement('select'), { id: `quantity-${k}` });
+    quantity.setAttribute('aria-label', `Quantity of column ${columnText(c)}`);
+    quantity.append(new Option('strain (gauge at the notch root)', 'strain'), new Option('stress (nominal; times Kt)', 'stress'), new Option('load (times a factor)', 'load'));
+    const unit = Object.assign(document.createElement('select'), { id: `unit-${k}` });
+    unit.setAttribute('aria-label', `Unit of column ${columnText(c)}`);
+    const factor = Object.assign(document.createElement('input'), { type: 'number', step: 'any', id: `mpa-${k}`, value: '1', className: 'factor' });
+    factor.setAttribute('aria-label', `Nominal stress in MPa per unit of load of column ${columnText(c)}`);
+    const r = c.reading;
+    quantity.value = r?.quantity === 'strain' || r?.quantity === 'stress' || r?.quantity === 'load' ? r.quantity : 'stress';
+    const units = () => {
+      unit.replaceChildren(...UNITS[quantity.value].map(([v, t]) => new Option(t, v)));
+      unit.hidden = quantity.value === 'load';
+      factor.hidden = quantity.value !== 'load';
+    };
+    units();
+    if (r?.quantity === 'strain' || r?.quantity === 'stress') unit.value = r.unit;
+    quantity.addEventListener('change', () => {
+      units();
+      showFields();
+    });
+    use.addEventListener('change', showFields);
+    const cells = [[use, useLabel], [quantity], [unit, factor]].map((parts) => {
+      const td = document.createElement('td');
+      td.append(...parts);
+      return td;
+    });
+    tr.append(...cells);
+    body.append(tr);
+  }
 }
 
 /** The mean-stress corrections of each route (the command's names). */
@@ -103,35 +127,30 @@ const CORRECTIONS: Record<string, [string, string][]> = {
 };
 let shownRoute = '';
 
+/** The quantities of the ticked columns. */
+function chosenQuantities(): string[] {
+  return [...document.querySelectorAll<HTMLInputElement>('#channels input[type=checkbox]')].filter((u) => u.checked).map((u) => $<HTMLSelectElement>(u.id.replace('use-', 'quantity-')).value);
+}
+
 function showFields(): void {
-  const q = $<HTMLSelectElement>('quantity').value;
+  const quantities = chosenQuantities();
   const route = $<HTMLSelectElement>('route').value;
   if (route !== shownRoute) {
     shownRoute = route;
     $<HTMLSelectElement>('mean-stress').replaceChildren(...CORRECTIONS[route].map(([v, t]) => new Option(t, v)));
   }
-  for (const el of document.querySelectorAll<HTMLElement>('.load-only')) el.hidden = q !== 'load';
   for (const el of document.querySelectorAll<HTMLElement>('.stress-only')) el.hidden = route !== 'stress';
   for (const el of document.querySelectorAll<HTMLElement>('.strain-only')) el.hidden = route !== 'strain';
-  $<HTMLFieldSetElement>('notch-set').disabled = q === 'strain';
+  $<HTMLFieldSetElement>('notch-set').disabled = quantities.length > 0 && quantities.every((q) => q === 'strain');
   for (const el of document.querySelectorAll<HTMLElement>('.rate-only')) el.hidden = $<HTMLSelectElement>('time').value !== 'rate';
   const src = $<HTMLSelectElement>('material-source').value;
   for (const kind of ['handbook', 'constants', 'su', 'hardness']) for (const el of document.querySelectorAll<HTMLElement>(`.src-${kind}`)) el.hidden = kind !== src;
 }
 
-unitOptions();
 showFields();
 $('file').addEventListener('change', () => {
   const f = $<HTMLInputElement>('file').files?.[0];
   if (f) void takeFile(f);
-});
-$('column').addEventListener('change', () => {
-  fromColumnUnit();
-  showFields();
-});
-$('quantity').addEventListener('change', () => {
-  unitOptions();
-  showFields();
 });
 for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
 // a layout part set by hand: survey the file again with it
@@ -163,7 +182,9 @@ drop.addEventListener('drop', (e) => {
 
 function formText(): FormText {
   const out: FormText = {};
-  for (const el of form.querySelectorAll<HTMLInputElement | HTMLSelectElement>('input, select')) if (el.id) out[el.id] = el.value;
+  for (const el of form.querySelectorAll<HTMLInputElement | HTMLSelectElement>('input, select')) {
+    if (el.id) out[el.id] = el instanceof HTMLInputElement && el.type === 'checkbox' ? (el.checked ? 'yes' : '') : el.value;
+  }
   return out;
 }
 
@@ -286,7 +307,18 @@ function showResult(channels: ChannelView[]): void {
       corrections.append(t, el('p', `Caution: ${CAUTION}`, 'caution'));
     }
   }
-  shown = channels[0] ?? null;
+  resultChannels = channels;
+  const pick = $<HTMLSelectElement>('shown-channel');
+  pick.replaceChildren(...channels.map((c, k) => new Option(`${c.name} (${c.unit})`, String(k))));
+  $('shown-channel-box').hidden = channels.length < 2;
+  showChannel(0);
+}
+
+let resultChannels: ChannelView[] = [];
+
+/** Shows channel `k` of the result in the plots and the worst-loops table. */
+function showChannel(k: number): void {
+  shown = resultChannels[k] ?? null;
   view = { from: 0, to: shown?.values.length ?? 1 };
   $('history-note').textContent = shown
     ? `${formatNumber(shown.values.length)} samples, drawn as the smallest and largest sample of each pixel column. Bands: the five worst loops (start to turn), numbered by damage. Keys on the plot: ← → pan, + − zoom, Home whole history.`
@@ -328,6 +360,7 @@ function redraw(): void {
   });
 }
 window.addEventListener('resize', redraw);
+$('shown-channel').addEventListener('change', () => showChannel(Number($<HTMLSelectElement>('shown-channel').value)));
 
 // ---- zoom and pan of the history
 

@@ -16,7 +16,6 @@ export class FormError extends Error {
 
 /** Labels of the fields, for messages. */
 const LABELS: Record<string, string> = {
-  'mpa-per-unit': 'Nominal stress per unit of load',
   'sample-rate': 'Sample rate',
   'm-E': 'E',
   'm-sigmaF': 'σf′',
@@ -59,12 +58,13 @@ function number(form: FormText, id: string, optional: true): number | undefined;
 function number(form: FormText, id: string, optional?: false): number;
 function number(form: FormText, id: string, optional = false): number | undefined {
   const text = (form[id] ?? '').trim();
+  const label = LABELS[id] ?? (/^mpa-(\d+)$/.test(id) ? `Nominal stress per unit of load of column ${id.slice(4)}` : id);
   if (text === '') {
     if (optional) return undefined;
-    throw new FormError(id, `${LABELS[id] ?? id}: a number is needed`);
+    throw new FormError(id, `${label}: a number is needed`);
   }
   const x = Number(text);
-  if (!Number.isFinite(x)) throw new FormError(id, `${LABELS[id] ?? id}: expected a number, got "${text}"`);
+  if (!Number.isFinite(x)) throw new FormError(id, `${label}: expected a number, got "${text}"`);
   return x;
 }
 
@@ -75,18 +75,30 @@ function number(form: FormText, id: string, optional = false): number | undefine
  * from this file.
  */
 export function jobFileOf(form: FormText, fileName: string): JobFile {
-  const column = Number(form.column);
-  if (!Number.isInteger(column) || column < 1) throw new FormError('column', 'Column assessed: choose a column of the file');
-  const quantity = form.quantity;
-  let channel: CliChannel;
-  if (quantity === 'load') channel = { column, quantity: 'load', mpaPerUnit: number(form, 'mpa-per-unit') };
-  else if (quantity === 'strain') channel = { column, quantity: 'strain', unit: form.unit === 'strain' ? 'strain' : 'microstrain' };
-  else channel = { column, quantity: 'stress', unit: form.unit === 'ksi' ? 'ksi' : 'MPa' };
+  // the ticked columns (`use-<column>`), each with its quantity and unit
+  const channels: CliChannel[] = [];
+  for (const key of Object.keys(form)) {
+    const m = /^use-(\d+)$/.exec(key);
+    if (m === null || form[key] !== 'yes') continue;
+    const column = Number(m[1]);
+    const quantity = form[`quantity-${column}`];
+    if (quantity === 'load') channels.push({ column, quantity: 'load', mpaPerUnit: number(form, `mpa-${column}`) });
+    else if (quantity === 'strain') channels.push({ column, quantity: 'strain', unit: form[`unit-${column}`] === 'strain' ? 'strain' : 'microstrain' });
+    else channels.push({ column, quantity: 'stress', unit: form[`unit-${column}`] === 'ksi' ? 'ksi' : 'MPa' });
+  }
+  channels.sort((a, b) => (a.column as number) - (b.column as number));
+  const firstColumn = Object.keys(form).find((k) => k.startsWith('use-')) ?? 'channels';
+  if (channels.length === 0) throw new FormError(firstColumn, 'Channels: tick at least one column to assess');
+  const allStrain = channels.every((c) => c.quantity === 'strain');
+  const anyStrain = channels.some((c) => c.quantity === 'strain');
   const stressRoute = form.route === 'stress';
   const material = materialOf(form);
   if (material === undefined && !stressRoute) throw new FormError('material-source', 'Material: the strain-life route needs one (none is for the stress-life route)');
-  if (stressRoute && quantity === 'strain') throw new FormError('quantity', 'Quantity: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route');
-  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels: [channel] };
+  if (stressRoute && anyStrain) {
+    const c = channels.find((x) => x.quantity === 'strain') as CliChannel;
+    throw new FormError(`quantity-${c.column}`, `Quantity of column ${c.column}: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route`);
+  }
+  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels };
   if (material !== undefined) job.material = material;
   const dialect = dialectOf(form);
   if (dialect) job.dialect = dialect;
@@ -102,7 +114,7 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
     if (su !== undefined) s.ultimateStrength = su;
     if (form['iiw-category']) s.iiwCategory = form['iiw-category'] as 'I' | 'II' | 'III';
     job.stressLife = s;
-  } else if (quantity !== 'strain') {
+  } else if (!allStrain) {
     const kt = number(form, 'kt', true);
     const kf = number(form, 'kf', true);
     if (kt !== undefined && kf !== undefined) throw new FormError('kf', 'Kt and Kf: give one of them');

@@ -9,7 +9,7 @@ import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
 import type { Page } from 'playwright';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { chromiumBinary, observeLongTasks, openPage, pageBuilt, startBrowser, writeStrainFile } from './support/browser.mjs';
+import { chromiumBinary, observeLongTasks, openPage, pageBuilt, startBrowser, writeStrainFile, writeTwoGaugeFile } from './support/browser.mjs';
 
 // Issue 13, the tests in a real browser: the built page served from 127.0.0.1 (a free port),
 // Debian's Chromium driven by Playwright, generated (invented) measured files uploaded through
@@ -32,6 +32,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   let dir = '';
   let strain: Float64Array;
   let hotSpot: Float64Array;
+  let twoGauges: Float64Array[];
   const problems: { consoleErrors: string[]; outside: string[] }[] = [];
 
   beforeAll(async () => {
@@ -41,6 +42,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await writeStrainFile(join(dir, 'spiky.csv'), 40_000, { spikes: 4, seed: 5 });
     await writeStrainFile(join(dir, 'long.csv'), 3_000_000);
     hotSpot = await writeStrainFile(join(dir, 'weld.csv'), 60_000, { unit: 'MPa', scale: 0.6, seed: 3 });
+    twoGauges = await writeTwoGaugeFile(join(dir, 'two-gauges.csv'), 50_000);
     session = await startBrowser(binary as string);
   }, 120_000);
 
@@ -149,6 +151,31 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     expect(await page.$$eval('#corrections tr', (rows) => rows.length)).toBe(3);
     expect(await page.textContent('#corrections .caution')).toContain('licensed engineer');
     await exportsEqualTheCommand(page, 'weld.csv');
+    await context.close();
+  }, 120_000);
+
+  test('two channels in one run: each life equals assessLife in Node, the exports the command\'s bytes', async () => {
+    const { page, context } = await open();
+    await page.setInputFiles('#file', join(dir, 'two-gauges.csv'));
+    await page.waitForFunction(() => document.getElementById('file-info')?.textContent?.startsWith('two-gauges.csv'));
+    // the survey preset SG2 [MPa] as stress in MPa; tick it beside SG1 and give the notch
+    expect(await page.inputValue('#quantity-3')).toBe('stress');
+    expect(await page.inputValue('#unit-3')).toBe('MPa');
+    await page.check('#use-3');
+    await assess(page, 'two-gauges.csv', { handbook: STEEL, kt: '2.2' });
+    const steel = handbookSteels.find((m) => m.name === STEEL)!;
+    const wants = [
+      assessLife(twoGauges[0].map((v) => v / 1e6), { material: steel, input: 'local-strain' }),
+      assessLife(twoGauges[1], { material: steel, input: 'nominal', notch: { Kt: 2.2 } }),
+    ];
+    const got = (await page.$$eval('#lives .repeats', (els) => els.map((e) => Number((e as HTMLElement).dataset.value)))) as number[];
+    expect(got).toHaveLength(2);
+    got.forEach((repeats, k) => expect(Math.abs(repeats - wants[k].life.repeats) / wants[k].life.repeats, `channel ${k + 1}`).toBeLessThanOrEqual(1e-12));
+    // the plots follow the channel chosen
+    const first = await page.textContent('#worst');
+    await page.selectOption('#shown-channel', '1');
+    expect(await page.textContent('#worst')).not.toBe(first);
+    await exportsEqualTheCommand(page, 'two-gauges.csv');
     await context.close();
   }, 120_000);
 
