@@ -17,7 +17,8 @@ const cancelButton = $<HTMLButtonElement>('cancel');
 /** Bytes of the file's head that the column survey reads (as the command). */
 const SURVEY_BYTES = 1 << 16;
 
-let file: File | null = null;
+/** The chosen files: one measured file, or the events of a duty cycle in order. */
+let files: File[] = [];
 let columns: ColumnSurvey[] = [];
 let worker: Worker | null = null;
 let lastJob: JobFile | null = null;
@@ -47,8 +48,10 @@ function setState(state: 'idle' | 'running' | 'done' | 'error' | 'cancelled', te
 
 // ---- the file: pick, drop, survey its columns
 
-async function takeFile(f: File): Promise<void> {
-  file = f;
+async function takeFiles(list: File[]): Promise<void> {
+  files = list;
+  const f = list[0];
+  eventRows(list);
   const head = new Uint8Array(await f.slice(0, SURVEY_BYTES).arrayBuffer());
   setState('idle', '');
   try {
@@ -57,7 +60,8 @@ async function takeFile(f: File): Promise<void> {
     columns = [];
     setState('error', `${f.name}: ${(error as Error).message}`);
   }
-  $('file-info').textContent = `${f.name}: ${formatNumber(f.size / 1048576, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}`;
+  const mib = list.reduce((a, x) => a + x.size, 0) / 1048576;
+  $('file-info').textContent = `${list.length === 1 ? f.name : `${list.length} files (${list.map((x) => x.name).join(', ')})`}: ${formatNumber(mib, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}${list.length > 1 ? ` (surveyed in ${f.name})` : ''}`;
   const time = $<HTMLSelectElement>('time');
   time.replaceChildren(new Option('none (sample index)', 'none'), new Option('a sample rate', 'rate'));
   for (const c of columns) if (c.increasing) time.add(new Option(`column ${columnText(c)}`, String(c.column)));
@@ -67,7 +71,7 @@ async function takeFile(f: File): Promise<void> {
   time.value = base ? String(base.column) : 'none';
   channelRows(signal);
   showFields();
-  if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${f.name}. Choose the channel, material and model, then Assess.`);
+  if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${list.length === 1 ? f.name : `a duty cycle of ${list.length} events`}. Choose the channels, material and model, then Assess.`);
 }
 
 function columnText(c: ColumnSurvey): string {
@@ -79,6 +83,29 @@ const UNITS: Record<string, [string, string][]> = {
   stress: [['MPa', 'MPa'], ['ksi', 'ksi']],
   load: [],
 };
+
+/** With several files, one row per event: its name (the file's, without the extension), repeats and service per repeat. */
+function eventRows(list: File[]): void {
+  $('events-set').hidden = list.length < 2;
+  const body = $('events').querySelector('tbody') as HTMLTableSectionElement;
+  body.replaceChildren();
+  if (list.length < 2) return;
+  list.forEach((f, k) => {
+    const name = Object.assign(document.createElement('input'), { type: 'text', id: `event-name-${k}`, value: f.name.replace(/\.[^.]*$/, '') });
+    name.setAttribute('aria-label', `Name of event ${k + 1} (file ${f.name})`);
+    const repeats = Object.assign(document.createElement('input'), { type: 'number', step: 'any', min: '1', id: `event-repeats-${k}`, value: '1' });
+    repeats.setAttribute('aria-label', `Repeats of event ${k + 1} in a row`);
+    const duration = Object.assign(document.createElement('input'), { type: 'number', step: 'any', min: '0', id: `event-duration-${k}`, value: '' });
+    duration.setAttribute('aria-label', `Service per repeat of event ${k + 1} (empty: none)`);
+    const tr = document.createElement('tr');
+    for (const input of [name, repeats, duration]) {
+      const td = document.createElement('td');
+      td.append(input);
+      tr.append(td);
+    }
+    body.append(tr);
+  });
+}
 
 /** One row per numeric column: assess it or not, its quantity and unit (preset from the file's unit), a factor for loads. */
 function channelRows(signal: ColumnSurvey | undefined): void {
@@ -149,14 +176,14 @@ function showFields(): void {
 
 showFields();
 $('file').addEventListener('change', () => {
-  const f = $<HTMLInputElement>('file').files?.[0];
-  if (f) void takeFile(f);
+  const list = [...($<HTMLInputElement>('file').files ?? [])];
+  if (list.length > 0) void takeFiles(list);
 });
 for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
 // a layout part set by hand: survey the file again with it
 for (const id of ['skip-lines', 'delimiter', 'decimal-mark', 'header-row', 'units-row'])
   $(id).addEventListener('change', () => {
-    if (file) void takeFile(file).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
+    if (files.length > 0) void takeFiles(files).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
   });
 const drop = $('drop');
 drop.addEventListener('click', () => $('file').click());
@@ -174,8 +201,8 @@ drop.addEventListener('dragleave', () => drop.classList.remove('over'));
 drop.addEventListener('drop', (e) => {
   e.preventDefault();
   drop.classList.remove('over');
-  const f = e.dataTransfer?.files[0];
-  if (f) void takeFile(f);
+  const list = [...(e.dataTransfer?.files ?? [])];
+  if (list.length > 0) void takeFiles(list);
 });
 
 // ---- the run, in a worker
@@ -196,14 +223,14 @@ function stopWorker(): void {
 form.addEventListener('submit', (e) => {
   e.preventDefault();
   for (const el of form.querySelectorAll('[aria-invalid]')) el.removeAttribute('aria-invalid');
-  if (file === null) {
+  if (files.length === 0) {
     setState('error', 'Measured file: choose or drop a file first');
     $('drop').focus();
     return;
   }
   let job: JobFile;
   try {
-    job = jobFileOf(formText(), file.name);
+    job = jobFileOf(formText(), files.map((f) => f.name));
   } catch (error) {
     if (error instanceof FormError) {
       setState('error', error.message);
@@ -217,7 +244,7 @@ form.addEventListener('submit', (e) => {
   lastJob = job;
   startedAt = performance.now();
   progress.value = 0;
-  setState('running', `Reading ${file.name}…`);
+  setState('running', `Reading ${files.map((f) => f.name).join(', ')}…`);
   const w = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
   worker = w;
   w.onmessage = (m: MessageEvent<FromWorker>) => onWorker(m.data);
@@ -226,7 +253,7 @@ form.addEventListener('submit', (e) => {
     setState('error', `The assessment stopped: ${ev.message || 'the worker failed'}`);
     stopWorker();
   };
-  w.postMessage({ kind: 'run', file, job } satisfies ToWorker);
+  w.postMessage({ kind: 'run', files, job } satisfies ToWorker);
 });
 
 cancelButton.addEventListener('click', () => {
@@ -238,7 +265,7 @@ cancelButton.addEventListener('click', () => {
 function onWorker(m: FromWorker): void {
   if (m.kind === 'progress') {
     progress.value = m.fraction;
-    setState('running', `Reading ${file?.name ?? 'the file'}, pass ${m.read}: ${Math.round(100 * m.fraction)} %`);
+    setState('running', `Reading ${m.what}, pass ${m.read}: ${Math.round(100 * m.fraction)} %`);
   } else if (m.kind === 'error') {
     setState('error', m.message);
   } else if (m.kind === 'result') {
@@ -344,6 +371,25 @@ function showChannel(k: number): void {
     });
     worst.append(t);
   }
+  const damage = $('event-damage');
+  damage.replaceChildren();
+  if (shown && shown.report.events.length > 1) {
+    const t = el('table');
+    t.append(el('caption', `Damage by event (${shown.name})`));
+    const head = el('tr');
+    for (const h of ['event', 'repeats', 'samples', 'damage per repeat of the schedule', 'share']) head.append(el('th', h));
+    t.append(head);
+    for (const e of shown.report.events) {
+      const tr = el('tr');
+      const share = el('td', undefined, 'num');
+      const bar = el('span', undefined, 'share');
+      bar.style.width = `${Math.round(120 * e.share)}px`;
+      share.append(bar, document.createTextNode(`${formatNumber(100 * e.share, 3)} %`));
+      tr.append(el('td', e.name), el('td', formatNumber(e.repeats), 'num'), el('td', formatNumber(e.samples), 'num'), el('td', formatNumber(e.damage), 'num'), share);
+      t.append(tr);
+    }
+    damage.append(t);
+  }
   redraw();
 }
 
@@ -353,7 +399,7 @@ function redraw(): void {
   frame = requestAnimationFrame(() => {
     frame = 0;
     if (!shown) return;
-    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time);
+    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time, shown.eventStarts);
     drawMatrix($<HTMLCanvasElement>('matrix'), shown.matrix);
     drawTimeline($<HTMLCanvasElement>('timeline'), shown.report.timeline);
     drawHysteresis($<HTMLCanvasElement>('hysteresis'), shown.hysteresis, 'MPa');

@@ -39,6 +39,13 @@ const LABELS: Record<string, string> = {
   'sn-curve': 'S-N curve',
 };
 
+/** The label of an event field (`event-repeats-0` → 'Repeats of event 1'). */
+function eventLabel(id: string): string | undefined {
+  const m = /^event-(repeats|duration)-(\d+)$/.exec(id);
+  if (m === null) return undefined;
+  return `${m[1] === 'repeats' ? 'Repeats' : 'Service per repeat'} of event ${Number(m[2]) + 1}`;
+}
+
 /** The file layout the form fixes (the job's `dialect`), or undefined when everything is detected. */
 export function dialectOf(form: FormText): JobFile['dialect'] {
   const out: NonNullable<JobFile['dialect']> = {};
@@ -58,7 +65,7 @@ function number(form: FormText, id: string, optional: true): number | undefined;
 function number(form: FormText, id: string, optional?: false): number;
 function number(form: FormText, id: string, optional = false): number | undefined {
   const text = (form[id] ?? '').trim();
-  const label = LABELS[id] ?? (/^mpa-(\d+)$/.test(id) ? `Nominal stress per unit of load of column ${id.slice(4)}` : id);
+  const label = LABELS[id] ?? eventLabel(id) ?? (/^mpa-(\d+)$/.test(id) ? `Nominal stress per unit of load of column ${id.slice(4)}` : id);
   if (text === '') {
     if (optional) return undefined;
     throw new FormError(id, `${label}: a number is needed`);
@@ -69,12 +76,13 @@ function number(form: FormText, id: string, optional = false): number | undefine
 }
 
 /**
- * The job file of the page's form for the measured file `fileName`: the same JSON the command
+ * The job file of the page's form for the measured files `fileNames` (one: `file`; several: the
+ * events of a duty cycle, in order): the same JSON the command
  * reads with `loopwise assess --job` (format `loopwise-job`, version 1). The page runs its jobs
  * through the command's own reader of job files, so what it shows is what the command computes
  * from this file.
  */
-export function jobFileOf(form: FormText, fileName: string): JobFile {
+export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile {
   // the ticked columns (`use-<column>`), each with its quantity and unit
   const channels: CliChannel[] = [];
   for (const key of Object.keys(form)) {
@@ -98,7 +106,10 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
     const c = channels.find((x) => x.quantity === 'strain') as CliChannel;
     throw new FormError(`quantity-${c.column}`, `Quantity of column ${c.column}: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route`);
   }
-  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels };
+  const job: JobFile = { format: 'loopwise-job', version: 1, channels };
+  if (fileNames.length === 1) job.file = fileNames[0];
+  else job.events = eventsOf(form, fileNames);
+  const timed = job.events?.some((e) => e.duration !== undefined) ?? false;
   if (material !== undefined) job.material = material;
   const dialect = dialectOf(form);
   if (dialect) job.dialect = dialect;
@@ -137,9 +148,10 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
   job.scatterFactor = number(form, 'scatter-factor');
   const amount = number(form, 'service-amount', true);
   const unit = (form['service-unit'] ?? '').trim();
-  if (amount !== undefined) {
+  if (amount !== undefined && timed) throw new FormError('service-amount', 'Service per repeat: the events give their service per repeat; leave this empty');
+  if (amount !== undefined || timed) {
     if (unit === '') throw new FormError('service-unit', 'Service unit: give the unit of the service per repeat (h, km, flights…)');
-    job.service = { unit, perRepeat: amount };
+    job.service = amount !== undefined ? { unit, perRepeat: amount } : { unit };
   }
   return job;
 }
@@ -165,4 +177,22 @@ function materialOf(form: FormText): MaterialSpec | undefined {
         n: number(form, 'm-n'),
       };
   }
+}
+
+/** The events of a duty cycle: one per file, in order, named and repeated as the form says (`event-name-<k>`, `event-repeats-<k>`, `event-duration-<k>`). */
+function eventsOf(form: FormText, fileNames: readonly string[]): NonNullable<JobFile['events']> {
+  const seenFiles = new Set<string>();
+  const seenNames = new Set<string>();
+  return fileNames.map((file, k) => {
+    if (seenFiles.has(file)) throw new FormError('file', `File: two files are named "${file}"; a job names each event's file by its name, so rename one`);
+    seenFiles.add(file);
+    const name = (form[`event-name-${k}`] ?? '').trim();
+    if (name === '') throw new FormError(`event-name-${k}`, `Event ${k + 1}: give it a name`);
+    if (seenNames.has(name)) throw new FormError(`event-name-${k}`, `Event ${k + 1}: the name "${name}" is taken by an earlier event`);
+    seenNames.add(name);
+    const repeats = number(form, `event-repeats-${k}`);
+    if (!(repeats >= 1)) throw new FormError(`event-repeats-${k}`, `Repeats of event ${name}: a number >= 1 (a fraction allowed), got ${repeats}`);
+    const duration = number(form, `event-duration-${k}`, true);
+    return duration === undefined ? { name, file, repeats } : { name, file, repeats, duration };
+  });
 }

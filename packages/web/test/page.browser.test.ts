@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { assessLife } from '@loopwise/engine';
+import { assessDutyCycle, assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
@@ -33,6 +33,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   let strain: Float64Array;
   let hotSpot: Float64Array;
   let twoGauges: Float64Array[];
+  let events: Float64Array[];
   const problems: { consoleErrors: string[]; outside: string[] }[] = [];
 
   beforeAll(async () => {
@@ -43,6 +44,7 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await writeStrainFile(join(dir, 'long.csv'), 3_000_000);
     hotSpot = await writeStrainFile(join(dir, 'weld.csv'), 60_000, { unit: 'MPa', scale: 0.6, seed: 3 });
     twoGauges = await writeTwoGaugeFile(join(dir, 'two-gauges.csv'), 50_000);
+    events = [await writeStrainFile(join(dir, 'cobbles.csv'), 30_000, { scale: 3 }), await writeStrainFile(join(dir, 'braking.csv'), 8_000, { scale: 5 })];
     session = await startBrowser(binary as string);
   }, 120_000);
 
@@ -58,9 +60,10 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   }
 
   /** Picks `file`, sets the form's fields (by id) and runs the assessment; waits for the result. */
-  async function assess(page: Page, file: string, fields: Record<string, string> = {}): Promise<void> {
-    await page.setInputFiles('#file', join(dir, file));
-    await page.waitForFunction((name) => document.getElementById('file-info')?.textContent?.startsWith(name), file);
+  async function assess(page: Page, file: string | string[], fields: Record<string, string> = {}): Promise<void> {
+    const list = typeof file === 'string' ? [file] : file;
+    await page.setInputFiles('#file', list.map((f) => join(dir, f)));
+    await page.waitForFunction((name) => document.getElementById('file-info')?.textContent?.includes(name), list[list.length - 1]);
     for (const [id, value] of Object.entries(fields)) {
       const tag = await page.$eval(`#${id}`, (e) => e.tagName);
       if (tag === 'SELECT') await page.selectOption(`#${id}`, value);
@@ -81,13 +84,13 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
    * the measured file beside it: its JSON report, cycles CSV and HTML report must be the page's
    * bytes. Returns the page's JSON.
    */
-  async function exportsEqualTheCommand(page: Page, file: string): Promise<Buffer> {
+  async function exportsEqualTheCommand(page: Page, file: string | string[]): Promise<Buffer> {
     const json = await download(page, '#export-json');
     const csv = await download(page, '#export-csv');
     const html = await download(page, '#export-html');
     const job = await download(page, '#export-job');
     const run = mkdtempSync(join(dir, 'cli-'));
-    writeFileSync(join(run, file), readFileSync(join(dir, file)));
+    for (const f of typeof file === 'string' ? [file] : file) writeFileSync(join(run, f), readFileSync(join(dir, f)));
     writeFileSync(join(run, 'job.json'), job);
     const err: string[] = [];
     const here = process.cwd();
@@ -176,6 +179,56 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await page.selectOption('#shown-channel', '1');
     expect(await page.textContent('#worst')).not.toBe(first);
     await exportsEqualTheCommand(page, 'two-gauges.csv');
+    await context.close();
+  }, 120_000);
+
+  test('a bad cell stops the run with the reader\'s message naming the file, line and column; a bad field names its label', async () => {
+    const lines = readFileSync(join(dir, 'spiky.csv'), 'utf8').split('\n');
+    lines[1000] = lines[1000].replace(/;[^;]*;/, ';12,5x;');
+    writeFileSync(join(dir, 'bad-cell.csv'), lines.join('\n'));
+    const { page, context } = await open();
+    await page.setInputFiles('#file', join(dir, 'bad-cell.csv'));
+    await page.waitForFunction(() => document.getElementById('file-info')?.textContent?.startsWith('bad-cell.csv'));
+    await page.click('#run');
+    await page.waitForFunction(() => ['done', 'error'].includes(document.body.dataset.state ?? ''), undefined, { timeout: 60_000 });
+    expect(await page.evaluate(() => document.body.dataset.state)).toBe('error');
+    // line 1001 of the file (header and units rows included), field 2
+    expect(await page.textContent('#status')).toMatch(/bad-cell\.csv.*line 1001.*column 2|bad-cell\.csv:1001:2/);
+    expect(await page.isHidden('#results')).toBe(true);
+    // a field of the form that cannot be used is named and focused
+    await page.fill('#scatter-factor', '');
+    await page.click('#run');
+    expect(await page.textContent('#status')).toBe('Scatter factor: a number is needed');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('scatter-factor');
+    expect(await page.getAttribute('#scatter-factor', 'aria-invalid')).toBe('true');
+    await context.close();
+  }, 60_000);
+
+  test('a duty cycle of two event files: the life equals assessDutyCycle in Node, damage by event is shown, the exports the command\'s bytes', async () => {
+    const { page, context } = await open();
+    await assess(page, ['cobbles.csv', 'braking.csv'], {
+      handbook: STEEL,
+      'event-repeats-0': '20',
+      'event-duration-0': '0.05',
+      'event-repeats-1': '2.5',
+      'event-duration-1': '0.01',
+      'service-unit': 'h',
+    });
+    const steel = handbookSteels.find((m) => m.name === STEEL)!;
+    const want = assessDutyCycle(
+      [
+        { name: 'cobbles', history: events[0].map((v) => v / 1e6), repeats: 20, duration: 0.05 },
+        { name: 'braking', history: events[1].map((v) => v / 1e6), repeats: 2.5, duration: 0.01 },
+      ],
+      { material: steel, input: 'local-strain', unit: { label: 'h' } },
+    );
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    // damage by event, in the order of the schedule, with the engine's shares
+    const rows = await page.$$eval('#event-damage tr', (trs) => trs.slice(1).map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent ?? '')));
+    expect(rows.map((r) => r[0])).toEqual(['cobbles', 'braking']);
+    expect(want.events.map((e) => e.name)).toEqual(['cobbles', 'braking']);
+    await exportsEqualTheCommand(page, ['cobbles.csv', 'braking.csv']);
     await context.close();
   }, 120_000);
 

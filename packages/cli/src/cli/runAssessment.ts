@@ -1,10 +1,8 @@
-import { assessDutyCycle, compareCorrections, type DutyEvent } from '@loopwise/engine';
 import { readDelimited, readDelimitedColumns, readDelimitedParallel, type IngestChunk } from '../ingest';
 import { UsageError } from './CliError';
-import type { CliCorrection, CliJob } from './CliJob';
-import { DisplayHistory } from '../report/displayHistory';
+import type { CliJob } from './CliJob';
+import { assessEvents } from './assessEvents';
 import { assessStream, type ChannelResult, type Progress } from './assessStream';
-import { lifeJobOf, mainCorrection, unitLabel, withoutLoops } from './lifeJobOf';
 import { MemoryGuard } from './MemoryGuard';
 import { SpoolFile } from './SpoolFile';
 
@@ -42,10 +40,9 @@ export interface AssessmentSettings {
  * Reports come without their loop table; it is the result's `loops`.
  */
 export async function runAssessment(job: CliJob, progress?: Progress, settings: AssessmentSettings = {}): Promise<ChannelResult[]> {
-  const main = mainCorrection(job);
   const guard = settings.guard ?? new MemoryGuard();
   const keepLoops = settings.keepLoops ?? true;
-  if (job.events !== null) return runDutyCycle(job, main, guard, keepLoops);
+  if (job.events !== null) return runDutyCycle(job, guard, keepLoops);
   const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
   return assessStream(job, (options) => read(job.file as string, options), {
     ...(progress ? { progress } : {}),
@@ -55,36 +52,9 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
   });
 }
 
-async function runDutyCycle(job: CliJob, main: CliCorrection, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
+async function runDutyCycle(job: CliJob, guard: MemoryGuard, keepLoops: boolean): Promise<ChannelResult[]> {
   const events = job.events!;
   if (events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
   guard.checkInMemory(events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })), job.channels.length, 'a duty cycle');
-  const read: Awaited<ReturnType<typeof readDelimitedColumns>>[] = [];
-  for (const e of events) read.push(await readDelimitedColumns(e.file, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) }));
-  guard.check(() => 'after reading the events');
-  return job.channels.map((c, k) => {
-    const duty: DutyEvent[] = events.map((e, j) => {
-      const d: DutyEvent = { name: e.name, history: read[j].channels[k], repeats: e.repeats };
-      if (e.duration !== undefined) d.duration = e.duration;
-      return d;
-    });
-    const display = new DisplayHistory();
-    let at = 0;
-    for (const d of duty) {
-      display.push(d.history as Float64Array, at);
-      at += d.history.length;
-    }
-    const full = assessDutyCycle(duty, lifeJobOf(job, c, main));
-    return {
-      name: read[0].report.channels[k].name,
-      unit: unitLabel(c),
-      report: withoutLoops(full),
-      corrections: job.meanStress === 'all' ? compareCorrections(duty, lifeJobOf(job, c, main)) : null,
-      sources: read.map((r) => r.report),
-      history: display.points(),
-      loops: keepLoops ? full.loops : null,
-      curveLabel: job.stressLife?.label ?? null,
-      loopStream: null,
-    };
-  });
+  return assessEvents(job, (event, options) => readDelimitedColumns(event.file, options), { keepLoops, check: (where) => guard.check(where) });
 }
