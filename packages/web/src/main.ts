@@ -399,7 +399,13 @@ function redraw(): void {
   frame = requestAnimationFrame(() => {
     frame = 0;
     if (!shown) return;
-    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time, shown.eventStarts);
+    const canvas = $<HTMLCanvasElement>('history');
+    const t0 = performance.now();
+    drawHistory(canvas, shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time, shown.eventStarts);
+    // what is drawn and how long it took, for the tests and the benchmark
+    canvas.dataset.from = String(view.from);
+    canvas.dataset.to = String(view.to);
+    canvas.dataset.drawMs = String(performance.now() - t0);
     drawMatrix($<HTMLCanvasElement>('matrix'), shown.matrix);
     drawTimeline($<HTMLCanvasElement>('timeline'), shown.report.timeline);
     drawHysteresis($<HTMLCanvasElement>('hysteresis'), shown.hysteresis, 'MPa');

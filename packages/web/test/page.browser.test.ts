@@ -9,6 +9,7 @@ import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
 import type { Page } from 'playwright';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { startStaticServer } from '../scripts/staticServer.mjs';
 import { chromiumBinary, observeLongTasks, openPage, pageBuilt, startBrowser, writeStrainFile, writeTwoGaugeFile } from './support/browser.mjs';
 
 // Issue 13, the tests in a real browser: the built page served from 127.0.0.1 (a free port),
@@ -301,6 +302,25 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await page.keyboard.press('Enter');
     await page.waitForFunction(() => document.body.dataset.state === 'done', undefined, { timeout: 60_000 });
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
+    // the history plot from the keyboard: + zooms in to half, → pans later, Home shows it all
+    const span = async () => page.$eval('#history', (c) => [Number((c as HTMLElement).dataset.from), Number((c as HTMLElement).dataset.to)]);
+    const frame = () => page.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
+    await frame();
+    const [from0, to0] = await span();
+    expect([from0, to0]).toEqual([0, 40_000]);
+    await page.focus('#history');
+    await page.keyboard.press('+');
+    await frame();
+    const [from1, to1] = await span();
+    expect(to1 - from1).toBe(20_000);
+    await page.keyboard.press('ArrowRight');
+    await frame();
+    expect((await span())[0]).toBeGreaterThan(from1);
+    await page.keyboard.press('Home');
+    await frame();
+    expect(await span()).toEqual([0, 40_000]);
+    mkdirSync(ARTEFACTS, { recursive: true });
+    await page.screenshot({ fullPage: true, path: join(ARTEFACTS, 'page-420.png') });
     await context.close();
   }, 60_000);
 
@@ -354,6 +374,19 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     });
     expect(loopInk).toBeGreaterThan(0.005);
     await context.close();
+  }, 60_000);
+
+  test('the built folder works from a sub-folder of another server (relative paths)', async () => {
+    const server = await startStaticServer(fileURLToPath(new URL('..', import.meta.url)));
+    try {
+      const opened = await openPage(session.browser, `${server.url}dist/`);
+      problems.push(opened.problems);
+      await assess(opened.page, 'spiky.csv', { handbook: STEEL });
+      expect(Number(await opened.page.getAttribute('#lives .repeats', 'data-value'))).toBeGreaterThan(0);
+      await opened.context.close();
+    } finally {
+      await server.close();
+    }
   }, 60_000);
 
   test('no console errors and no request outside the page\'s origin in any of these pages', () => {
