@@ -2,7 +2,7 @@
 // Assess to the result on the page, in Debian's Chromium driven by Playwright against the built
 // page served from 127.0.0.1, and the main thread's longest task while the worker reads and
 // assesses (PerformanceObserver 'longtask', which reports tasks over 50 ms; target: none over
-// 100 ms). The baseline of the time is the command on the same file and job in this process
+// 100 ms), and the time of each redraw of the history plot while zooming by keys. The baseline of the time is the command on the same file and job in this process
 // (`loopwise assess --job`, loops kept as the page keeps them: --cycles-out). The file is written
 // outside the timed region; the page's life is checked against the command's JSON. One run each
 // (a run takes tens of seconds); without a Chromium or a built page the figures are skipped with
@@ -41,6 +41,7 @@ export async function run(h) {
   let longest;
   let count;
   let showing;
+  const drawMs = [];
   let job;
   let repeats;
   try {
@@ -61,6 +62,16 @@ export async function run(h) {
     longest = during.reduce((m, t) => Math.max(m, t[1]), 0);
     showing = tasks.filter((t) => t[0] + t[1] > resultAt).reduce((m, t) => Math.max(m, t[1]), 0);
     repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    // the history plot at 10^7 samples: the time of each redraw while zooming in and out by keys
+    const frame = () => page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
+    await page.focus('#history');
+    await frame();
+    for (const key of [...Array(8).fill('+'), ...Array(8).fill('-'), 'ArrowRight', 'ArrowLeft', 'Home']) {
+      await page.keyboard.press(key);
+      await frame();
+      drawMs.push(Number(await page.$eval('#history', (c) => c.dataset.drawMs)));
+    }
+    h.check(drawMs.every((x) => x >= 0 && Number.isFinite(x)), 'web: a redraw time is missing');
     // the observer is live: a busy main thread of 120 ms must be reported
     await page.evaluate(() => {
       // a task of the page's own event loop (a timer), not Playwright's evaluation
@@ -100,7 +111,18 @@ export async function run(h) {
     rmSync(dir, { recursive: true, force: true });
   }
   const sizes = { samples: SAMPLES, bytes };
+  const sorted = [...drawMs].sort((a, b) => a - b);
   return [
+    {
+      figure: 'web/history plot redraw at 1e7 samples, slowest of 19 zoom and pan steps (ms)',
+      ratio: sorted[sorted.length - 1],
+      baseline: 'absolute ms',
+      baselineSeconds: null,
+      seconds: sorted[sorted.length - 1] / 1000,
+      sizes: { ...sizes, steps: drawMs.length },
+      target: null,
+      note: `median ${sorted[Math.floor(sorted.length / 2)].toFixed(2)} ms; a frame at 60 Hz is 16.7 ms`,
+    },
     {
       figure: 'web/drop to result, 1e7-sample file, Chromium vs the command in Node',
       ratio: pageMs / 1000 / cliSeconds,

@@ -3,6 +3,7 @@
 // exactly what the command does. Nothing here may import a `node:` module (test/browserEntry.test.ts
 // follows every import from this file and fails on one).
 export { assessStream, type ChannelResult, type Progress, type StreamRead, type StreamSettings } from './cli/assessStream';
+export { assessEvents, type EventRead, type EventSettings } from './cli/assessEvents';
 export { lifeJobOf, mainCorrection } from './cli/lifeJobOf';
 export { jobOfJobFile, checkRoute, type JobFileAccess } from './cli/jobOfJobFile';
 export type { CliChannel, CliCorrection, CliEvent, CliJob, CliStressLife, JobFile } from './cli/CliJob';

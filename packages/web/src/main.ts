@@ -17,7 +17,8 @@ const cancelButton = $<HTMLButtonElement>('cancel');
 /** Bytes of the file's head that the column survey reads (as the command). */
 const SURVEY_BYTES = 1 << 16;
 
-let file: File | null = null;
+/** The chosen files: one measured file, or the events of a duty cycle in order. */
+let files: File[] = [];
 let columns: ColumnSurvey[] = [];
 let worker: Worker | null = null;
 let lastJob: JobFile | null = null;
@@ -47,8 +48,10 @@ function setState(state: 'idle' | 'running' | 'done' | 'error' | 'cancelled', te
 
 // ---- the file: pick, drop, survey its columns
 
-async function takeFile(f: File): Promise<void> {
-  file = f;
+async function takeFiles(list: File[]): Promise<void> {
+  files = list;
+  const f = list[0];
+  eventRows(list);
   const head = new Uint8Array(await f.slice(0, SURVEY_BYTES).arrayBuffer());
   setState('idle', '');
   try {
@@ -57,43 +60,91 @@ async function takeFile(f: File): Promise<void> {
     columns = [];
     setState('error', `${f.name}: ${(error as Error).message}`);
   }
-  $('file-info').textContent = `${f.name}: ${formatNumber(f.size / 1048576, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}`;
-  const column = $<HTMLSelectElement>('column');
+  const mib = list.reduce((a, x) => a + x.size, 0) / 1048576;
+  $('file-info').textContent = `${list.length === 1 ? f.name : `${list.length} files (${list.map((x) => x.name).join(', ')})`}: ${formatNumber(mib, 3)} MiB, ${columns.length} column${columns.length === 1 ? '' : 's'}${list.length > 1 ? ` (surveyed in ${f.name})` : ''}`;
   const time = $<HTMLSelectElement>('time');
-  column.replaceChildren();
   time.replaceChildren(new Option('none (sample index)', 'none'), new Option('a sample rate', 'rate'));
-  for (const c of columns) {
-    const text = `${c.column}: ${c.name}${c.unit ? ` [${c.unit}]` : ''}`;
-    column.add(new Option(text, String(c.column)));
-    if (c.increasing) time.add(new Option(`column ${text}`, String(c.column)));
-  }
+  for (const c of columns) if (c.increasing) time.add(new Option(`column ${columnText(c)}`, String(c.column)));
   // as the command: the one numeric column that is not a time base; a time-like increasing column is the time base
   const signal = columns.find((c) => c.numeric && !c.increasing && !c.timeLike) ?? columns.find((c) => c.numeric) ?? columns[0];
-  if (signal) column.value = String(signal.column);
   const base = columns.find((c) => c.increasing && c.timeLike && c !== signal);
   time.value = base ? String(base.column) : 'none';
-  fromColumnUnit();
+  channelRows(signal);
   showFields();
-  if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${f.name}. Choose the channel, material and model, then Assess.`);
+  if (document.body.dataset.state !== 'error') setState('idle', `Ready: ${list.length === 1 ? f.name : `a duty cycle of ${list.length} events`}. Choose the channels, material and model, then Assess.`);
 }
 
-function fromColumnUnit(): void {
-  const c = columns.find((x) => String(x.column) === $<HTMLSelectElement>('column').value);
-  const r = c?.reading;
-  if (r?.quantity === 'strain' || r?.quantity === 'stress') {
-    $<HTMLSelectElement>('quantity').value = r.quantity;
-    unitOptions();
-    $<HTMLSelectElement>('unit').value = r.unit;
-  } else if (r?.quantity === 'load') {
-    $<HTMLSelectElement>('quantity').value = 'load';
-    unitOptions();
+function columnText(c: ColumnSurvey): string {
+  return `${c.column}: ${c.name}${c.unit ? ` [${c.unit}]` : ''}`;
+}
+
+const UNITS: Record<string, [string, string][]> = {
+  strain: [['microstrain', 'microstrain (µε)'], ['strain', 'strain (m/m)']],
+  stress: [['MPa', 'MPa'], ['ksi', 'ksi']],
+  load: [],
+};
+
+/** With several files, one row per event: its name (the file's, without the extension), repeats and service per repeat. */
+function eventRows(list: File[]): void {
+  $('events-set').hidden = list.length < 2;
+  const body = $('events').querySelector('tbody') as HTMLTableSectionElement;
+  body.replaceChildren();
+  if (list.length < 2) return;
+  list.forEach((f, k) => {
+    const name = Object.assign(document.createElement('input'), { type: 'text', id: `event-name-${k}`, value: f.name.replace(/\.[^.]*$/, '') });
+    name.setAttribute('aria-label', `Name of event ${k + 1} (file ${f.name})`);
+    const repeats = Object.assign(document.createElement('input'), { type: 'number', step: 'any', min: '1', id: `event-repeats-${k}`, value: '1' });
+    repeats.setAttribute('aria-label', `Repeats of event ${k + 1} in a row`);
+    const duration = Object.assign(document.createElement('input'), { type: 'number', step: 'any', min: '0', id: `event-duration-${k}`, value: '' });
+    duration.setAttribute('aria-label', `Service per repeat of event ${k + 1} (empty: none)`);
+    const tr = document.createElement('tr');
+    for (const input of [name, repeats, duration]) {
+      const td = document.createElement('td');
+      td.append(input);
+      tr.append(td);
+    }
+    body.append(tr);
+  });
+}
+
+/** One row per numeric column: assess it or not, its quantity and unit (preset from the file's unit), a factor for loads. */
+function channelRows(signal: ColumnSurvey | undefined): void {
+  const body = $('channels').querySelector('tbody') as HTMLTableSectionElement;
+  body.replaceChildren();
+  for (const c of columns.filter((x) => x.numeric || x === signal)) {
+    const k = c.column;
+    const tr = document.createElement('tr');
+    const use = Object.assign(document.createElement('input'), { type: 'checkbox', id: `use-${k}`, checked: c === signal });
+    const useLabel = Object.assign(document.createElement('label'), { htmlFor: `use-${k}`, textContent: columnText(c) });
+    const quantity = Object.assign(document.createElement('select'), { id: `quantity-${k}` });
+    quantity.setAttribute('aria-label', `Quantity of column ${columnText(c)}`);
+    quantity.append(new Option('strain (gauge at the notch root)', 'strain'), new Option('stress (nominal; times Kt)', 'stress'), new Option('load (times a factor)', 'load'));
+    const unit = Object.assign(document.createElement('select'), { id: `unit-${k}` });
+    unit.setAttribute('aria-label', `Unit of column ${columnText(c)}`);
+    const factor = Object.assign(document.createElement('input'), { type: 'number', step: 'any', id: `mpa-${k}`, value: '1', className: 'factor' });
+    factor.setAttribute('aria-label', `Nominal stress in MPa per unit of load of column ${columnText(c)}`);
+    const r = c.reading;
+    quantity.value = r?.quantity === 'strain' || r?.quantity === 'stress' || r?.quantity === 'load' ? r.quantity : 'stress';
+    const units = () => {
+      unit.replaceChildren(...UNITS[quantity.value].map(([v, t]) => new Option(t, v)));
+      unit.hidden = quantity.value === 'load';
+      factor.hidden = quantity.value !== 'load';
+    };
+    units();
+    if (r?.quantity === 'strain' || r?.quantity === 'stress') unit.value = r.unit;
+    quantity.addEventListener('change', () => {
+      units();
+      showFields();
+    });
+    use.addEventListener('change', showFields);
+    const cells = [[use, useLabel], [quantity], [unit, factor]].map((parts) => {
+      const td = document.createElement('td');
+      td.append(...parts);
+      return td;
+    });
+    tr.append(...cells);
+    body.append(tr);
   }
-}
-
-function unitOptions(): void {
-  const q = $<HTMLSelectElement>('quantity').value;
-  const unit = $<HTMLSelectElement>('unit');
-  unit.replaceChildren(...(q === 'strain' ? [new Option('microstrain (µε)', 'microstrain'), new Option('strain (m/m)', 'strain')] : q === 'stress' ? [new Option('MPa', 'MPa'), new Option('ksi', 'ksi')] : [new Option('as the factor says', 'load')]));
 }
 
 /** The mean-stress corrections of each route (the command's names). */
@@ -103,41 +154,36 @@ const CORRECTIONS: Record<string, [string, string][]> = {
 };
 let shownRoute = '';
 
+/** The quantities of the ticked columns. */
+function chosenQuantities(): string[] {
+  return [...document.querySelectorAll<HTMLInputElement>('#channels input[type=checkbox]')].filter((u) => u.checked).map((u) => $<HTMLSelectElement>(u.id.replace('use-', 'quantity-')).value);
+}
+
 function showFields(): void {
-  const q = $<HTMLSelectElement>('quantity').value;
+  const quantities = chosenQuantities();
   const route = $<HTMLSelectElement>('route').value;
   if (route !== shownRoute) {
     shownRoute = route;
     $<HTMLSelectElement>('mean-stress').replaceChildren(...CORRECTIONS[route].map(([v, t]) => new Option(t, v)));
   }
-  for (const el of document.querySelectorAll<HTMLElement>('.load-only')) el.hidden = q !== 'load';
   for (const el of document.querySelectorAll<HTMLElement>('.stress-only')) el.hidden = route !== 'stress';
   for (const el of document.querySelectorAll<HTMLElement>('.strain-only')) el.hidden = route !== 'strain';
-  $<HTMLFieldSetElement>('notch-set').disabled = q === 'strain';
+  $<HTMLFieldSetElement>('notch-set').disabled = quantities.length > 0 && quantities.every((q) => q === 'strain');
   for (const el of document.querySelectorAll<HTMLElement>('.rate-only')) el.hidden = $<HTMLSelectElement>('time').value !== 'rate';
   const src = $<HTMLSelectElement>('material-source').value;
   for (const kind of ['handbook', 'constants', 'su', 'hardness']) for (const el of document.querySelectorAll<HTMLElement>(`.src-${kind}`)) el.hidden = kind !== src;
 }
 
-unitOptions();
 showFields();
 $('file').addEventListener('change', () => {
-  const f = $<HTMLInputElement>('file').files?.[0];
-  if (f) void takeFile(f);
-});
-$('column').addEventListener('change', () => {
-  fromColumnUnit();
-  showFields();
-});
-$('quantity').addEventListener('change', () => {
-  unitOptions();
-  showFields();
+  const list = [...($<HTMLInputElement>('file').files ?? [])];
+  if (list.length > 0) void takeFiles(list);
 });
 for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
 // a layout part set by hand: survey the file again with it
 for (const id of ['skip-lines', 'delimiter', 'decimal-mark', 'header-row', 'units-row'])
   $(id).addEventListener('change', () => {
-    if (file) void takeFile(file).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
+    if (files.length > 0) void takeFiles(files).catch((error: unknown) => setState('error', error instanceof Error ? error.message : String(error)));
   });
 const drop = $('drop');
 drop.addEventListener('click', () => $('file').click());
@@ -155,15 +201,17 @@ drop.addEventListener('dragleave', () => drop.classList.remove('over'));
 drop.addEventListener('drop', (e) => {
   e.preventDefault();
   drop.classList.remove('over');
-  const f = e.dataTransfer?.files[0];
-  if (f) void takeFile(f);
+  const list = [...(e.dataTransfer?.files ?? [])];
+  if (list.length > 0) void takeFiles(list);
 });
 
 // ---- the run, in a worker
 
 function formText(): FormText {
   const out: FormText = {};
-  for (const el of form.querySelectorAll<HTMLInputElement | HTMLSelectElement>('input, select')) if (el.id) out[el.id] = el.value;
+  for (const el of form.querySelectorAll<HTMLInputElement | HTMLSelectElement>('input, select')) {
+    if (el.id) out[el.id] = el instanceof HTMLInputElement && el.type === 'checkbox' ? (el.checked ? 'yes' : '') : el.value;
+  }
   return out;
 }
 
@@ -175,14 +223,14 @@ function stopWorker(): void {
 form.addEventListener('submit', (e) => {
   e.preventDefault();
   for (const el of form.querySelectorAll('[aria-invalid]')) el.removeAttribute('aria-invalid');
-  if (file === null) {
+  if (files.length === 0) {
     setState('error', 'Measured file: choose or drop a file first');
     $('drop').focus();
     return;
   }
   let job: JobFile;
   try {
-    job = jobFileOf(formText(), file.name);
+    job = jobFileOf(formText(), files.map((f) => f.name));
   } catch (error) {
     if (error instanceof FormError) {
       setState('error', error.message);
@@ -196,7 +244,7 @@ form.addEventListener('submit', (e) => {
   lastJob = job;
   startedAt = performance.now();
   progress.value = 0;
-  setState('running', `Reading ${file.name}…`);
+  setState('running', `Reading ${files.map((f) => f.name).join(', ')}…`);
   const w = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
   worker = w;
   w.onmessage = (m: MessageEvent<FromWorker>) => onWorker(m.data);
@@ -205,7 +253,7 @@ form.addEventListener('submit', (e) => {
     setState('error', `The assessment stopped: ${ev.message || 'the worker failed'}`);
     stopWorker();
   };
-  w.postMessage({ kind: 'run', file, job } satisfies ToWorker);
+  w.postMessage({ kind: 'run', files, job } satisfies ToWorker);
 });
 
 cancelButton.addEventListener('click', () => {
@@ -217,7 +265,7 @@ cancelButton.addEventListener('click', () => {
 function onWorker(m: FromWorker): void {
   if (m.kind === 'progress') {
     progress.value = m.fraction;
-    setState('running', `Reading ${file?.name ?? 'the file'}, pass ${m.read}: ${Math.round(100 * m.fraction)} %`);
+    setState('running', `Reading ${m.what}, pass ${m.read}: ${Math.round(100 * m.fraction)} %`);
   } else if (m.kind === 'error') {
     setState('error', m.message);
   } else if (m.kind === 'result') {
@@ -286,7 +334,18 @@ function showResult(channels: ChannelView[]): void {
       corrections.append(t, el('p', `Caution: ${CAUTION}`, 'caution'));
     }
   }
-  shown = channels[0] ?? null;
+  resultChannels = channels;
+  const pick = $<HTMLSelectElement>('shown-channel');
+  pick.replaceChildren(...channels.map((c, k) => new Option(`${c.name} (${c.unit})`, String(k))));
+  $('shown-channel-box').hidden = channels.length < 2;
+  showChannel(0);
+}
+
+let resultChannels: ChannelView[] = [];
+
+/** Shows channel `k` of the result in the plots and the worst-loops table. */
+function showChannel(k: number): void {
+  shown = resultChannels[k] ?? null;
   view = { from: 0, to: shown?.values.length ?? 1 };
   $('history-note').textContent = shown
     ? `${formatNumber(shown.values.length)} samples, drawn as the smallest and largest sample of each pixel column. Bands: the five worst loops (start to turn), numbered by damage. Keys on the plot: ← → pan, + − zoom, Home whole history.`
@@ -312,6 +371,25 @@ function showResult(channels: ChannelView[]): void {
     });
     worst.append(t);
   }
+  const damage = $('event-damage');
+  damage.replaceChildren();
+  if (shown && shown.report.events.length > 1) {
+    const t = el('table');
+    t.append(el('caption', `Damage by event (${shown.name})`));
+    const head = el('tr');
+    for (const h of ['event', 'repeats', 'samples', 'damage per repeat of the schedule', 'share']) head.append(el('th', h));
+    t.append(head);
+    for (const e of shown.report.events) {
+      const tr = el('tr');
+      const share = el('td', undefined, 'num');
+      const bar = el('span', undefined, 'share');
+      bar.style.width = `${Math.round(120 * e.share)}px`;
+      share.append(bar, document.createTextNode(`${formatNumber(100 * e.share, 3)} %`));
+      tr.append(el('td', e.name), el('td', formatNumber(e.repeats), 'num'), el('td', formatNumber(e.samples), 'num'), el('td', formatNumber(e.damage), 'num'), share);
+      t.append(tr);
+    }
+    damage.append(t);
+  }
   redraw();
 }
 
@@ -321,13 +399,20 @@ function redraw(): void {
   frame = requestAnimationFrame(() => {
     frame = 0;
     if (!shown) return;
-    drawHistory($<HTMLCanvasElement>('history'), shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time);
+    const canvas = $<HTMLCanvasElement>('history');
+    const t0 = performance.now();
+    drawHistory(canvas, shown.values, shown.levels, view, shown.report.worstLoops, shown.unit, shown.sampleRate, shown.time, shown.eventStarts);
+    // what is drawn and how long it took, for the tests and the benchmark
+    canvas.dataset.from = String(view.from);
+    canvas.dataset.to = String(view.to);
+    canvas.dataset.drawMs = String(performance.now() - t0);
     drawMatrix($<HTMLCanvasElement>('matrix'), shown.matrix);
     drawTimeline($<HTMLCanvasElement>('timeline'), shown.report.timeline);
     drawHysteresis($<HTMLCanvasElement>('hysteresis'), shown.hysteresis, 'MPa');
   });
 }
 window.addEventListener('resize', redraw);
+$('shown-channel').addEventListener('change', () => showChannel(Number($<HTMLSelectElement>('shown-channel').value)));
 
 // ---- zoom and pan of the history
 

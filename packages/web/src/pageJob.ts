@@ -16,7 +16,6 @@ export class FormError extends Error {
 
 /** Labels of the fields, for messages. */
 const LABELS: Record<string, string> = {
-  'mpa-per-unit': 'Nominal stress per unit of load',
   'sample-rate': 'Sample rate',
   'm-E': 'E',
   'm-sigmaF': 'σf′',
@@ -40,6 +39,13 @@ const LABELS: Record<string, string> = {
   'sn-curve': 'S-N curve',
 };
 
+/** The label of an event field (`event-repeats-0` → 'Repeats of event 1'). */
+function eventLabel(id: string): string | undefined {
+  const m = /^event-(repeats|duration)-(\d+)$/.exec(id);
+  if (m === null) return undefined;
+  return `${m[1] === 'repeats' ? 'Repeats' : 'Service per repeat'} of event ${Number(m[2]) + 1}`;
+}
+
 /** The file layout the form fixes (the job's `dialect`), or undefined when everything is detected. */
 export function dialectOf(form: FormText): JobFile['dialect'] {
   const out: NonNullable<JobFile['dialect']> = {};
@@ -59,34 +65,51 @@ function number(form: FormText, id: string, optional: true): number | undefined;
 function number(form: FormText, id: string, optional?: false): number;
 function number(form: FormText, id: string, optional = false): number | undefined {
   const text = (form[id] ?? '').trim();
+  const label = LABELS[id] ?? eventLabel(id) ?? (/^mpa-(\d+)$/.test(id) ? `Nominal stress per unit of load of column ${id.slice(4)}` : id);
   if (text === '') {
     if (optional) return undefined;
-    throw new FormError(id, `${LABELS[id] ?? id}: a number is needed`);
+    throw new FormError(id, `${label}: a number is needed`);
   }
   const x = Number(text);
-  if (!Number.isFinite(x)) throw new FormError(id, `${LABELS[id] ?? id}: expected a number, got "${text}"`);
+  if (!Number.isFinite(x)) throw new FormError(id, `${label}: expected a number, got "${text}"`);
   return x;
 }
 
 /**
- * The job file of the page's form for the measured file `fileName`: the same JSON the command
+ * The job file of the page's form for the measured files `fileNames` (one: `file`; several: the
+ * events of a duty cycle, in order): the same JSON the command
  * reads with `loopwise assess --job` (format `loopwise-job`, version 1). The page runs its jobs
  * through the command's own reader of job files, so what it shows is what the command computes
  * from this file.
  */
-export function jobFileOf(form: FormText, fileName: string): JobFile {
-  const column = Number(form.column);
-  if (!Number.isInteger(column) || column < 1) throw new FormError('column', 'Column assessed: choose a column of the file');
-  const quantity = form.quantity;
-  let channel: CliChannel;
-  if (quantity === 'load') channel = { column, quantity: 'load', mpaPerUnit: number(form, 'mpa-per-unit') };
-  else if (quantity === 'strain') channel = { column, quantity: 'strain', unit: form.unit === 'strain' ? 'strain' : 'microstrain' };
-  else channel = { column, quantity: 'stress', unit: form.unit === 'ksi' ? 'ksi' : 'MPa' };
+export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile {
+  // the ticked columns (`use-<column>`), each with its quantity and unit
+  const channels: CliChannel[] = [];
+  for (const key of Object.keys(form)) {
+    const m = /^use-(\d+)$/.exec(key);
+    if (m === null || form[key] !== 'yes') continue;
+    const column = Number(m[1]);
+    const quantity = form[`quantity-${column}`];
+    if (quantity === 'load') channels.push({ column, quantity: 'load', mpaPerUnit: number(form, `mpa-${column}`) });
+    else if (quantity === 'strain') channels.push({ column, quantity: 'strain', unit: form[`unit-${column}`] === 'strain' ? 'strain' : 'microstrain' });
+    else channels.push({ column, quantity: 'stress', unit: form[`unit-${column}`] === 'ksi' ? 'ksi' : 'MPa' });
+  }
+  channels.sort((a, b) => (a.column as number) - (b.column as number));
+  const firstColumn = Object.keys(form).find((k) => k.startsWith('use-')) ?? 'channels';
+  if (channels.length === 0) throw new FormError(firstColumn, 'Channels: tick at least one column to assess');
+  const allStrain = channels.every((c) => c.quantity === 'strain');
+  const anyStrain = channels.some((c) => c.quantity === 'strain');
   const stressRoute = form.route === 'stress';
   const material = materialOf(form);
   if (material === undefined && !stressRoute) throw new FormError('material-source', 'Material: the strain-life route needs one (none is for the stress-life route)');
-  if (stressRoute && quantity === 'strain') throw new FormError('quantity', 'Quantity: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route');
-  const job: JobFile = { format: 'loopwise-job', version: 1, file: fileName, channels: [channel] };
+  if (stressRoute && anyStrain) {
+    const c = channels.find((x) => x.quantity === 'strain') as CliChannel;
+    throw new FormError(`quantity-${c.column}`, `Quantity of column ${c.column}: the stress-life route assesses stress or load channels; a strain gauge at the notch root takes the strain-life route`);
+  }
+  const job: JobFile = { format: 'loopwise-job', version: 1, channels };
+  if (fileNames.length === 1) job.file = fileNames[0];
+  else job.events = eventsOf(form, fileNames);
+  const timed = job.events?.some((e) => e.duration !== undefined) ?? false;
   if (material !== undefined) job.material = material;
   const dialect = dialectOf(form);
   if (dialect) job.dialect = dialect;
@@ -102,7 +125,7 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
     if (su !== undefined) s.ultimateStrength = su;
     if (form['iiw-category']) s.iiwCategory = form['iiw-category'] as 'I' | 'II' | 'III';
     job.stressLife = s;
-  } else if (quantity !== 'strain') {
+  } else if (!allStrain) {
     const kt = number(form, 'kt', true);
     const kf = number(form, 'kf', true);
     if (kt !== undefined && kf !== undefined) throw new FormError('kf', 'Kt and Kf: give one of them');
@@ -125,9 +148,10 @@ export function jobFileOf(form: FormText, fileName: string): JobFile {
   job.scatterFactor = number(form, 'scatter-factor');
   const amount = number(form, 'service-amount', true);
   const unit = (form['service-unit'] ?? '').trim();
-  if (amount !== undefined) {
+  if (amount !== undefined && timed) throw new FormError('service-amount', 'Service per repeat: the events give their service per repeat; leave this empty');
+  if (amount !== undefined || timed) {
     if (unit === '') throw new FormError('service-unit', 'Service unit: give the unit of the service per repeat (h, km, flights…)');
-    job.service = { unit, perRepeat: amount };
+    job.service = amount !== undefined ? { unit, perRepeat: amount } : { unit };
   }
   return job;
 }
@@ -153,4 +177,22 @@ function materialOf(form: FormText): MaterialSpec | undefined {
         n: number(form, 'm-n'),
       };
   }
+}
+
+/** The events of a duty cycle: one per file, in order, named and repeated as the form says (`event-name-<k>`, `event-repeats-<k>`, `event-duration-<k>`). */
+function eventsOf(form: FormText, fileNames: readonly string[]): NonNullable<JobFile['events']> {
+  const seenFiles = new Set<string>();
+  const seenNames = new Set<string>();
+  return fileNames.map((file, k) => {
+    if (seenFiles.has(file)) throw new FormError('file', `File: two files are named "${file}"; a job names each event's file by its name, so rename one`);
+    seenFiles.add(file);
+    const name = (form[`event-name-${k}`] ?? '').trim();
+    if (name === '') throw new FormError(`event-name-${k}`, `Event ${k + 1}: give it a name`);
+    if (seenNames.has(name)) throw new FormError(`event-name-${k}`, `Event ${k + 1}: the name "${name}" is taken by an earlier event`);
+    seenNames.add(name);
+    const repeats = number(form, `event-repeats-${k}`);
+    if (!(repeats >= 1)) throw new FormError(`event-repeats-${k}`, `Repeats of event ${name}: a number >= 1 (a fraction allowed), got ${repeats}`);
+    const duration = number(form, `event-duration-${k}`, true);
+    return duration === undefined ? { name, file, repeats } : { name, file, repeats, duration };
+  });
 }

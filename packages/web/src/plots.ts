@@ -65,7 +65,7 @@ export interface HistoryView {
  * Draws samples `[view.from, view.to)` of a history as its min/max envelope per pixel column,
  * with the worst loops marked (a band from the loop's start to its turn, numbered by rank).
  */
-export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, levels: EnvelopeLevel[], view: HistoryView, worst: readonly WorstLoop[], unit: string, sampleRate: number | null, time: Float64Array | null): void {
+export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, levels: EnvelopeLevel[], view: HistoryView, worst: readonly WorstLoop[], unit: string, sampleRate: number | null, time: Float64Array | null, events: readonly { name: string; start: number }[] = []): void {
   const { g, w, h } = prepare(canvas);
   const pw = Math.max(1, Math.floor(w - M.left - M.right));
   const ph = h - M.top - M.bottom;
@@ -110,6 +110,18 @@ export function drawHistory(canvas: HTMLCanvasElement, values: Float32Array, lev
       g.fillText(String(rank + 1), xa + 3, M.top + 2 + 12 * rank);
     }
   });
+  // the events of a duty cycle: a line where each starts, with its name
+  if (events.length > 1) {
+    g.fillStyle = MUTED;
+    g.textAlign = 'left';
+    g.textBaseline = 'bottom';
+    for (const e of events) {
+      if (e.start < view.from || e.start >= view.to) continue;
+      const x = X(e.start);
+      g.fillRect(x, M.top, 1, ph);
+      g.fillText(e.name, x + 3, M.top + ph - 2);
+    }
+  }
   g.strokeStyle = LINE;
   g.fillStyle = LINE;
   g.lineWidth = 1;

@@ -1,8 +1,8 @@
 import type { ChannelResult, HtmlMatrix, JobFile } from '@loopwise/cli/browser';
 import type { EnvelopeLevel } from './envelope';
 
-/** Page → worker: assess `file` with `job` (a job file as the command reads it), or write an export of the last result. */
-export type ToWorker = { kind: 'run'; file: File; job: JobFile } | { kind: 'export'; what: ExportKind };
+/** Page → worker: assess `files` (one, or a duty cycle's events by their names) with `job` (a job file as the command reads it), or write an export of the last result. */
+export type ToWorker = { kind: 'run'; files: File[]; job: JobFile } | { kind: 'export'; what: ExportKind };
 
 /** The exports that the worker writes (the job file is the page's own). */
 export type ExportKind = 'json' | 'csv' | 'html';
@@ -22,13 +22,15 @@ export interface ChannelView {
   sampleRate: number | null;
   /** The worst loops drawn from the material model (Masing branches between their corners), by rank; null on the stress-life route or without a cyclic curve. */
   hysteresis: { strain: Float64Array; stress: Float64Array; share: number }[] | null;
+  /** Where each event of a duty cycle starts in `values`, with its name (one event for one file). */
+  eventStarts: { name: string; start: number }[];
   /** The time column in seconds, when the job takes one (for the time axis), else null. */
   time: Float64Array | null;
 }
 
 /** Worker → page. */
 export type FromWorker =
-  | { kind: 'progress'; read: number; fraction: number }
+  | { kind: 'progress'; what: string; read: number; fraction: number }
   | { kind: 'result'; channels: ChannelView[]; seconds: number }
   | { kind: 'error'; message: string }
   | { kind: 'export'; what: ExportKind; blob: Blob; name: string };

@@ -2,6 +2,7 @@
 // code as the command (`assessStream`, the loops kept in memory), and writes the command's
 // exports from the result it keeps.
 import {
+  assessEvents,
   assessStream,
   htmlChannelsOf,
   jobOfJobFile,
@@ -19,7 +20,7 @@ import {
   type JobFile,
   type StreamRead,
 } from '@loopwise/cli/browser';
-import { DelimitedReader } from '@loopwise/ingest';
+import { DelimitedReader, type IngestReport, type ReaderOptions } from '@loopwise/ingest';
 import { envelopeLevels } from './envelope';
 import type { ChannelView, FromWorker, ToWorker } from './protocol';
 
@@ -48,11 +49,37 @@ function fileReader(file: File): StreamRead {
       const now = performance.now();
       if (now - last >= PROGRESS_MS) {
         last = now;
-        post({ kind: 'progress', read, fraction: Math.min(1, (at + bytes.length) / file.size) });
+        post({ kind: 'progress', what: file.name, read, fraction: Math.min(1, (at + bytes.length) / file.size) });
       }
     }
     return reader.finish();
   };
+}
+
+/**
+ * Reads an event's file whole for assessEvents: every chunk of every channel (and of the time
+ * column, for `time`) collected into one Float64Array per channel.
+ */
+async function readColumns(file: File, options: Omit<ReaderOptions, 'onChunk'>, time: Samples<Float64Array> | null): Promise<{ report: IngestReport; channels: Float64Array[] }> {
+  const columns = options.channels.map(() => new Samples(new Float64Array(1 << 16)));
+  const reader = new DelimitedReader({
+    ...options,
+    onChunk: (chunk) => {
+      chunk.channels.forEach((v, k) => columns[k].push(v));
+      if (time && chunk.time) time.push(chunk.time);
+    },
+  });
+  let last = 0;
+  for (let at = 0; at < file.size && !reader.stopped; at += CHUNK_BYTES) {
+    reader.push(new Uint8Array(await file.slice(at, at + CHUNK_BYTES).arrayBuffer()));
+    const now = performance.now();
+    if (now - last >= PROGRESS_MS) {
+      last = now;
+      post({ kind: 'progress', what: file.name, read: 1, fraction: Math.min(1, (at + CHUNK_BYTES) / file.size) });
+    }
+  }
+  const report = reader.finish();
+  return { report, channels: columns.map((c) => c.values.slice(0, c.length)) };
 }
 
 /** A growable typed array of one column's samples. */
@@ -72,7 +99,7 @@ class Samples<T extends Float32Array | Float64Array> {
   }
 }
 
-async function run(file: File, jobFile: JobFile): Promise<void> {
+async function run(files: File[], jobFile: JobFile): Promise<void> {
   const t0 = performance.now();
   const transferLater: Transferable[] = [];
   for (const r of results ?? []) r.loopStream?.remove();
@@ -80,21 +107,39 @@ async function run(file: File, jobFile: JobFile): Promise<void> {
   const job = jobOfJobFile(jobFile, 'the page', {
     resolve: (path) => ({ path, shown: path }),
     readText: (path, field) => {
-      throw new UsageError(`${field}: the page reads no files but the measured one ("${path}"); give the material's constants`);
+      throw new UsageError(`${field}: the page reads no files but the measured ones ("${path}"); give the material's constants`);
     },
   });
-  if (job.file !== file.name) throw new UsageError(`file: the job names "${job.file}", the page was given "${file.name}"`);
+  const byName = new Map(files.map((f) => [f.name, f]));
+  const fileOf = (name: string, field: string): File => {
+    const f = byName.get(name);
+    if (f === undefined) throw new UsageError(`${field}: the job names "${name}", which the page was not given`);
+    return f;
+  };
   const samples = job.channels.map(() => new Samples(new Float32Array(1 << 16)));
   const time = job.time !== undefined && 'column' in job.time ? new Samples(new Float64Array(1 << 16)) : null;
-  const got = await assessStream(job, fileReader(file), {
-    newLoopStore: () => new MemorySpool(),
-    // as the command: with no service, a file with a time base gives it (the record's duration in h)
-    serviceFromTime: true,
-    onChunk: (chunk) => {
-      chunk.channels.forEach((v, k) => samples[k].push(v));
-      if (time && chunk.time) time.push(chunk.time);
-    },
-  });
+  const eventStarts: { name: string; start: number }[] = [];
+  let got: ChannelResult[];
+  if (job.events !== null) {
+    // a duty cycle: each event's file read whole, then assessed in memory (the command's route)
+    got = await assessEvents(job, async (event, options) => {
+      eventStarts.push({ name: event.name, start: samples[0].length });
+      const read = await readColumns(fileOf(event.file, 'events'), options, time);
+      read.channels.forEach((v, k) => samples[k].push(v));
+      return read;
+    });
+  } else {
+    eventStarts.push({ name: 'history', start: 0 });
+    got = await assessStream(job, fileReader(fileOf(job.file as string, 'file')), {
+      newLoopStore: () => new MemorySpool(),
+      // as the command: with no service, a file with a time base gives it (the record's duration in h)
+      serviceFromTime: true,
+      onChunk: (chunk) => {
+        chunk.channels.forEach((v, k) => samples[k].push(v));
+        if (time && chunk.time) time.push(chunk.time);
+      },
+    });
+  }
   const times = time ? time.values.slice(0, time.length) : null;
   if (times) transferLater.push(times.buffer);
   const html = await htmlChannelsOf(got);
@@ -124,6 +169,7 @@ async function run(file: File, jobFile: JobFile): Promise<void> {
       levels,
       sampleRate: job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : null,
       time: times,
+      eventStarts,
     };
   });
   results = got;
@@ -144,6 +190,6 @@ async function exportOf(what: 'json' | 'csv' | 'html'): Promise<void> {
 
 scope.onmessage = (e) => {
   const m = e.data;
-  const work = m.kind === 'run' ? run(m.file, m.job) : exportOf(m.what);
+  const work = m.kind === 'run' ? run(m.files, m.job) : exportOf(m.what);
   work.catch((error: unknown) => post({ kind: 'error', message: error instanceof Error ? error.message : String(error) }));
 };

@@ -3,13 +3,14 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { assessLife } from '@loopwise/engine';
+import { assessDutyCycle, assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
 import type { Page } from 'playwright';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { chromiumBinary, observeLongTasks, openPage, pageBuilt, startBrowser, writeStrainFile } from './support/browser.mjs';
+import { startStaticServer } from '../scripts/staticServer.mjs';
+import { chromiumBinary, observeLongTasks, openPage, pageBuilt, startBrowser, writeStrainFile, writeTwoGaugeFile } from './support/browser.mjs';
 
 // Issue 13, the tests in a real browser: the built page served from 127.0.0.1 (a free port),
 // Debian's Chromium driven by Playwright, generated (invented) measured files uploaded through
@@ -32,6 +33,8 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   let dir = '';
   let strain: Float64Array;
   let hotSpot: Float64Array;
+  let twoGauges: Float64Array[];
+  let events: Float64Array[];
   const problems: { consoleErrors: string[]; outside: string[] }[] = [];
 
   beforeAll(async () => {
@@ -41,6 +44,8 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await writeStrainFile(join(dir, 'spiky.csv'), 40_000, { spikes: 4, seed: 5 });
     await writeStrainFile(join(dir, 'long.csv'), 3_000_000);
     hotSpot = await writeStrainFile(join(dir, 'weld.csv'), 60_000, { unit: 'MPa', scale: 0.6, seed: 3 });
+    twoGauges = await writeTwoGaugeFile(join(dir, 'two-gauges.csv'), 50_000);
+    events = [await writeStrainFile(join(dir, 'cobbles.csv'), 30_000, { scale: 3 }), await writeStrainFile(join(dir, 'braking.csv'), 8_000, { scale: 5 })];
     session = await startBrowser(binary as string);
   }, 120_000);
 
@@ -56,9 +61,10 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
   }
 
   /** Picks `file`, sets the form's fields (by id) and runs the assessment; waits for the result. */
-  async function assess(page: Page, file: string, fields: Record<string, string> = {}): Promise<void> {
-    await page.setInputFiles('#file', join(dir, file));
-    await page.waitForFunction((name) => document.getElementById('file-info')?.textContent?.startsWith(name), file);
+  async function assess(page: Page, file: string | string[], fields: Record<string, string> = {}): Promise<void> {
+    const list = typeof file === 'string' ? [file] : file;
+    await page.setInputFiles('#file', list.map((f) => join(dir, f)));
+    await page.waitForFunction((name) => document.getElementById('file-info')?.textContent?.includes(name), list[list.length - 1]);
     for (const [id, value] of Object.entries(fields)) {
       const tag = await page.$eval(`#${id}`, (e) => e.tagName);
       if (tag === 'SELECT') await page.selectOption(`#${id}`, value);
@@ -79,13 +85,13 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
    * the measured file beside it: its JSON report, cycles CSV and HTML report must be the page's
    * bytes. Returns the page's JSON.
    */
-  async function exportsEqualTheCommand(page: Page, file: string): Promise<Buffer> {
+  async function exportsEqualTheCommand(page: Page, file: string | string[]): Promise<Buffer> {
     const json = await download(page, '#export-json');
     const csv = await download(page, '#export-csv');
     const html = await download(page, '#export-html');
     const job = await download(page, '#export-job');
     const run = mkdtempSync(join(dir, 'cli-'));
-    writeFileSync(join(run, file), readFileSync(join(dir, file)));
+    for (const f of typeof file === 'string' ? [file] : file) writeFileSync(join(run, f), readFileSync(join(dir, f)));
     writeFileSync(join(run, 'job.json'), job);
     const err: string[] = [];
     const here = process.cwd();
@@ -149,6 +155,81 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     expect(await page.$$eval('#corrections tr', (rows) => rows.length)).toBe(3);
     expect(await page.textContent('#corrections .caution')).toContain('licensed engineer');
     await exportsEqualTheCommand(page, 'weld.csv');
+    await context.close();
+  }, 120_000);
+
+  test('two channels in one run: each life equals assessLife in Node, the exports the command\'s bytes', async () => {
+    const { page, context } = await open();
+    await page.setInputFiles('#file', join(dir, 'two-gauges.csv'));
+    await page.waitForFunction(() => document.getElementById('file-info')?.textContent?.startsWith('two-gauges.csv'));
+    // the survey preset SG2 [MPa] as stress in MPa; tick it beside SG1 and give the notch
+    expect(await page.inputValue('#quantity-3')).toBe('stress');
+    expect(await page.inputValue('#unit-3')).toBe('MPa');
+    await page.check('#use-3');
+    await assess(page, 'two-gauges.csv', { handbook: STEEL, kt: '2.2' });
+    const steel = handbookSteels.find((m) => m.name === STEEL)!;
+    const wants = [
+      assessLife(twoGauges[0].map((v) => v / 1e6), { material: steel, input: 'local-strain' }),
+      assessLife(twoGauges[1], { material: steel, input: 'nominal', notch: { Kt: 2.2 } }),
+    ];
+    const got = (await page.$$eval('#lives .repeats', (els) => els.map((e) => Number((e as HTMLElement).dataset.value)))) as number[];
+    expect(got).toHaveLength(2);
+    got.forEach((repeats, k) => expect(Math.abs(repeats - wants[k].life.repeats) / wants[k].life.repeats, `channel ${k + 1}`).toBeLessThanOrEqual(1e-12));
+    // the plots follow the channel chosen
+    const first = await page.textContent('#worst');
+    await page.selectOption('#shown-channel', '1');
+    expect(await page.textContent('#worst')).not.toBe(first);
+    await exportsEqualTheCommand(page, 'two-gauges.csv');
+    await context.close();
+  }, 120_000);
+
+  test('a bad cell stops the run with the reader\'s message naming the file, line and column; a bad field names its label', async () => {
+    const lines = readFileSync(join(dir, 'spiky.csv'), 'utf8').split('\n');
+    lines[1000] = lines[1000].replace(/;[^;]*;/, ';12,5x;');
+    writeFileSync(join(dir, 'bad-cell.csv'), lines.join('\n'));
+    const { page, context } = await open();
+    await page.setInputFiles('#file', join(dir, 'bad-cell.csv'));
+    await page.waitForFunction(() => document.getElementById('file-info')?.textContent?.startsWith('bad-cell.csv'));
+    await page.click('#run');
+    await page.waitForFunction(() => ['done', 'error'].includes(document.body.dataset.state ?? ''), undefined, { timeout: 60_000 });
+    expect(await page.evaluate(() => document.body.dataset.state)).toBe('error');
+    // line 1001 of the file (header and units rows included), field 2
+    expect(await page.textContent('#status')).toMatch(/bad-cell\.csv.*line 1001.*column 2|bad-cell\.csv:1001:2/);
+    expect(await page.isHidden('#results')).toBe(true);
+    // a field of the form that cannot be used is named and focused
+    await page.fill('#scatter-factor', '');
+    await page.click('#run');
+    expect(await page.textContent('#status')).toBe('Scatter factor: a number is needed');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('scatter-factor');
+    expect(await page.getAttribute('#scatter-factor', 'aria-invalid')).toBe('true');
+    await context.close();
+  }, 60_000);
+
+  test('a duty cycle of two event files: the life equals assessDutyCycle in Node, damage by event is shown, the exports the command\'s bytes', async () => {
+    const { page, context } = await open();
+    await assess(page, ['cobbles.csv', 'braking.csv'], {
+      handbook: STEEL,
+      'event-repeats-0': '20',
+      'event-duration-0': '0.05',
+      'event-repeats-1': '2.5',
+      'event-duration-1': '0.01',
+      'service-unit': 'h',
+    });
+    const steel = handbookSteels.find((m) => m.name === STEEL)!;
+    const want = assessDutyCycle(
+      [
+        { name: 'cobbles', history: events[0].map((v) => v / 1e6), repeats: 20, duration: 0.05 },
+        { name: 'braking', history: events[1].map((v) => v / 1e6), repeats: 2.5, duration: 0.01 },
+      ],
+      { material: steel, input: 'local-strain', unit: { label: 'h' } },
+    );
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    // damage by event, in the order of the schedule, with the engine's shares
+    const rows = await page.$$eval('#event-damage tr', (trs) => trs.slice(1).map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent ?? '')));
+    expect(rows.map((r) => r[0])).toEqual(['cobbles', 'braking']);
+    expect(want.events.map((e) => e.name)).toEqual(['cobbles', 'braking']);
+    await exportsEqualTheCommand(page, ['cobbles.csv', 'braking.csv']);
     await context.close();
   }, 120_000);
 
@@ -221,6 +302,25 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await page.keyboard.press('Enter');
     await page.waitForFunction(() => document.body.dataset.state === 'done', undefined, { timeout: 60_000 });
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
+    // the history plot from the keyboard: + zooms in to half, → pans later, Home shows it all
+    const span = async () => page.$eval('#history', (c) => [Number((c as HTMLElement).dataset.from), Number((c as HTMLElement).dataset.to)]);
+    const frame = () => page.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))));
+    await frame();
+    const [from0, to0] = await span();
+    expect([from0, to0]).toEqual([0, 40_000]);
+    await page.focus('#history');
+    await page.keyboard.press('+');
+    await frame();
+    const [from1, to1] = await span();
+    expect(to1 - from1).toBe(20_000);
+    await page.keyboard.press('ArrowRight');
+    await frame();
+    expect((await span())[0]).toBeGreaterThan(from1);
+    await page.keyboard.press('Home');
+    await frame();
+    expect(await span()).toEqual([0, 40_000]);
+    mkdirSync(ARTEFACTS, { recursive: true });
+    await page.screenshot({ fullPage: true, path: join(ARTEFACTS, 'page-420.png') });
     await context.close();
   }, 60_000);
 
@@ -274,6 +374,19 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     });
     expect(loopInk).toBeGreaterThan(0.005);
     await context.close();
+  }, 60_000);
+
+  test('the built folder works from a sub-folder of another server (relative paths)', async () => {
+    const server = await startStaticServer(fileURLToPath(new URL('..', import.meta.url)));
+    try {
+      const opened = await openPage(session.browser, `${server.url}dist/`);
+      problems.push(opened.problems);
+      await assess(opened.page, 'spiky.csv', { handbook: STEEL });
+      expect(Number(await opened.page.getAttribute('#lives .repeats', 'data-value'))).toBeGreaterThan(0);
+      await opened.context.close();
+    } finally {
+      await server.close();
+    }
   }, 60_000);
 
   test('no console errors and no request outside the page\'s origin in any of these pages', () => {

@@ -1,4 +1,5 @@
-import { HOT_SPOT_RULES, hotSpotStressInto, type HotSpotRule } from '@loopwise/stress-life';
+import { HOT_SPOT_RULES, hotSpotStress, hotSpotStressInto, type HotSpotRule } from '@loopwise/stress-life';
+import type { EventRead } from './assessEvents';
 import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { UsageError } from './CliError';
 import type { CliChannel } from './CliJob';
@@ -86,4 +87,16 @@ export function combinedReport<R extends IngestReport>(report: R, name: string):
     ...rest,
     channels: [{ ...first, name, quantity: 'stress', conversion: { engineUnit: 'MPa', multiplier: 1, divisor: 1, statement: `structural hot-spot stress from the gauges ${report.channels.map((c) => c.name).join(', ')} (${report.channels.map((c) => c.conversion.statement).join('; ')})` } }],
   } as unknown as R;
+}
+
+/**
+ * The same for a duty cycle's events, each read whole: the gauges of an event's file become its
+ * one hot-spot channel (`hotSpotStress`).
+ */
+export function hotSpotEventReader(read: EventRead, hot: CliHotSpot, gauges: readonly CliChannel[], plan: { name: string; scales: number[] }): EventRead {
+  return async (event, options) => {
+    const r = await read(event, { ...options, channels: gauges });
+    const inputs = r.channels.map((v, k) => (plan.scales[k] === 1 ? v : v.map((x) => x * plan.scales[k])));
+    return { ...r, report: combinedReport(r.report, plan.name), channels: [hotSpotStress(hot.rule, inputs)] };
+  };
 }

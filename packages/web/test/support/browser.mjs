@@ -82,25 +82,47 @@ export async function openPage(browser, url, width = 1200, height = 900, init = 
  * the SG1 values as written (the numbers the file holds, exactly).
  */
 export async function writeStrainFile(path, samples, { spikes = 0, seed = 11, unit = 'µε', scale = 4 } = {}) {
+  const [values] = await writeLoggerFile(path, samples, [{ name: 'SG1', unit, scale, spikes, seed, stream: referenceStream() }]);
+  return values;
+}
+
+/**
+ * As {@link writeStrainFile} with two gauges: `SG1` [µε] (the reference history × 4) and `SG2`
+ * [MPa] (the reference history of another seed × 0.5). Returns both as written.
+ */
+export async function writeTwoGaugeFile(path, samples) {
+  return writeLoggerFile(path, samples, [
+    { name: 'SG1', unit: 'µε', scale: 4, spikes: 0, seed: 1, stream: referenceStream() },
+    { name: 'SG2', unit: 'MPa', scale: 0.5, spikes: 0, seed: 2, stream: referenceStream(0x2bad5eed) },
+  ]);
+}
+
+async function writeLoggerFile(path, samples, signals) {
   const out = createWriteStream(path);
-  const stream = referenceStream();
-  const chunk = new Float64Array(65536);
-  const values = new Float64Array(samples);
-  const next = mulberry32(seed);
-  const spikeAt = new Set();
-  while (spikeAt.size < spikes) spikeAt.add(100 + Math.floor(next() * (samples - 200)));
+  const chunks = signals.map(() => new Float64Array(65536));
+  const values = signals.map(() => new Float64Array(samples));
+  const spikeAt = signals.map((g) => {
+    const next = mulberry32(g.seed);
+    const at = new Set();
+    while (at.size < g.spikes) at.add(100 + Math.floor(next() * (samples - 200)));
+    return at;
+  });
   const write = (text) => (out.write(text) ? Promise.resolve() : new Promise((r) => out.once('drain', r)));
-  await write(`t;SG1;T_oil\n[s];[${unit}];[°C]\n`);
-  for (let at = 0; at < samples; at += chunk.length) {
-    stream.fill(chunk);
-    const n = Math.min(chunk.length, samples - at);
+  const comma = (x) => String(x).replace('.', ',');
+  await write(`t;${signals.map((g) => g.name).join(';')};T_oil\n[s];${signals.map((g) => `[${g.unit}]`).join(';')};[°C]\n`);
+  for (let at = 0; at < samples; at += 65536) {
+    signals.forEach((g, j) => g.stream.fill(chunks[j]));
+    const n = Math.min(65536, samples - at);
     const lines = [];
     for (let k = 0; k < n; k++) {
       const i = at + k;
-      let v = Math.round(100 * scale * chunk[k]) / 100;
-      if (spikeAt.has(i)) v = Math.round(100 * (v + (i % 2 ? 1 : -1) * 8000)) / 100;
-      values[i] = v;
-      lines.push(`${(i / 200).toFixed(3).replace('.', ',')};${String(v).replace('.', ',')};${(40 + (i % 7) / 10).toFixed(1).replace('.', ',')}\n`);
+      const fields = signals.map((g, j) => {
+        let v = Math.round(100 * g.scale * chunks[j][k]) / 100;
+        if (spikeAt[j].has(i)) v = Math.round(100 * (v + (i % 2 ? 1 : -1) * 8000)) / 100;
+        values[j][i] = v;
+        return comma(v);
+      });
+      lines.push(`${(i / 200).toFixed(3).replace('.', ',')};${fields.join(';')};${(40 + (i % 7) / 10).toFixed(1).replace('.', ',')}\n`);
     }
     await write(lines.join(''));
   }
