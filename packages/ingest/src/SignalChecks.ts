@@ -4,6 +4,7 @@ import { IngestOptionError } from './IngestError.js';
 /** Kinds of {@link SignalWarning}. */
 export type SignalWarningKind =
   | 'spike'
+  | 'spikes-interpolated'
   | 'flat-line'
   | 'dropout'
   | 'clipped-maximum'

@@ -85,6 +85,8 @@ export interface CliJob {
   notes?: string[];
   initial?: number;
   offset?: number;
+  /** Replace the one-sample spikes the signal checks find by the line between their neighbours before assessing (a single file). */
+  interpolateSpikes?: boolean;
 }
 
 /** The job file format (JSON). Relative paths are read from the job file's folder. */
@@ -111,6 +113,7 @@ export interface JobFile {
   dialect?: DialectOverride;
   initial?: number;
   offset?: number;
+  interpolateSpikes?: boolean;
 }
 
 /**

@@ -5,6 +5,7 @@ import type { CliEvent, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
 import type { ChannelResult } from './assessStream';
 import { inOwnUnit, lifeJobOf, mainCorrection, unitLabel, withoutLoops } from './lifeJobOf';
+import { interpolatedWarning } from './spikeInterpolation';
 
 /**
  * Reads one event's file whole, with these options (channels, name, time, dialect), into one
@@ -33,7 +34,10 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
   const main = mainCorrection(job);
   const keepLoops = settings.keepLoops ?? true;
   const got: Awaited<ReturnType<EventRead>>[] = [];
-  for (const e of events) got.push(await read(e, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) }));
+  for (const e of events) {
+    const r = await read(e, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) });
+    got.push(job.interpolateSpikes ? interpolatedEvent(r) : r);
+  }
   settings.check?.(() => 'after reading the events');
   return job.channels.map((c, k) => {
     const duty: DutyEvent[] = events.map((e, j) => {
@@ -61,4 +65,28 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
       loopStream: null,
     };
   });
+}
+
+/** An event read whole with its flagged one-sample spikes on the line between their neighbours, and a warning saying so. */
+function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): Awaited<ReturnType<EventRead>> {
+  const warnings = [...r.report.warnings];
+  const channels = r.channels.map((v, k) => {
+    const s = r.report.artefacts?.[k]?.spikes;
+    if (s === undefined || s.length === 0) return v;
+    const out = v.slice();
+    for (let q = 0; q < s.length; q++) {
+      let last = q;
+      while (last + 1 < s.length && s[last + 1] === s[last] + 1) last++;
+      const i0 = s[q];
+      const i1 = s[last];
+      const a = i0 > 0 ? v[i0 - 1] : v[i1 + 1];
+      const b = i1 + 1 < v.length ? v[i1 + 1] : a;
+      const h = i1 - i0 + 1;
+      for (let j = 0; j < h; j++) out[i0 + j] = (1 - (j + 1) / (h + 1)) * a + ((j + 1) / (h + 1)) * b;
+      q = last;
+    }
+    warnings.push(interpolatedWarning(r.report.channels[k].name, s));
+    return out;
+  });
+  return { ...r, channels, report: { ...r.report, warnings } };
 }

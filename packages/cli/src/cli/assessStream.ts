@@ -5,6 +5,7 @@ import { DisplayHistory } from '../report/displayHistory';
 import { correctionOf, correctionsOf, inOwnUnit, lifeJobOf, mainCorrection, unitLabel } from './lifeJobOf';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
 import { timeBaseOf, withServiceFromTime, type TimeBase } from './timeBase';
+import { interpolatedWarning, spikeInterpolatedReader } from './spikeInterpolation';
 import { LoopSpool } from './LoopSpool';
 import type { SpoolStore } from './SpoolStore';
 
@@ -70,7 +71,7 @@ export interface StreamSettings {
  * correction, `all` included), and handed to a {@link LoopSpool} on `newLoopStore` when one is
  * given. The command and the browser page both call it, so their results are the same.
  */
-export async function assessStream(job: CliJob, read: StreamRead, settings: StreamSettings = {}): Promise<ChannelResult[]> {
+export async function assessStream(job: CliJob, givenRead: StreamRead, settings: StreamSettings = {}): Promise<ChannelResult[]> {
   const main = mainCorrection(job);
   const check = settings.check ?? (() => undefined);
   const progress = settings.progress;
@@ -79,6 +80,15 @@ export async function assessStream(job: CliJob, read: StreamRead, settings: Stre
   const name = job.fileShown ?? job.file ?? 'the file';
   const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   const at = (chunk: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${chunk.firstSample + chunk.length})`;
+  // spikes to interpolate: a first read finds them (the signal checks), the reads after it hand
+  // on the corrected samples at the same indices
+  let read = givenRead;
+  let spikes: Float64Array[] | null = null;
+  if (job.interpolateSpikes) {
+    const pre = await givenRead({ ...options, onChunk: (chunk) => { check(at(chunk)); progress?.(chunk.firstSample + chunk.length, 3); } });
+    spikes = job.channels.map((_, k) => pre.artefacts?.[k]?.spikes ?? new Float64Array(0));
+    read = spikeInterpolatedReader(givenRead, spikes);
+  }
   // a gate fraction without a declared full scale: a first read finds each channel's range
   const fullScales: (number | undefined)[] = job.channels.map(() => job.fullScale);
   if (job.gateFraction !== undefined && job.fullScale === undefined) {
@@ -155,7 +165,10 @@ export async function assessStream(job: CliJob, read: StreamRead, settings: Stre
   }
   const finished = job.channels.map((_, k) => sessions[k].map((s) => s.finish()));
   const m = corrections.indexOf(main);
-  const studied = await studyArtefacts(first, (k) => jobOf(job.channels[k], k, main), (k) => finished[k][m], read, { options, check, at, ...(progress ? { progress } : {}) });
+  // with the spikes interpolated, the study weighs what is left flagged (flat and zero runs), and
+  // the source says which samples were corrected
+  const measured: IngestReport = spikes === null ? first : withInterpolated(first, spikes);
+  const studied = await studyArtefacts(measured, (k) => jobOf(job.channels[k], k, main), (k) => finished[k][m], read, { options, check, at, ...(progress ? { progress } : {}) });
   const results: ChannelResult[] = job.channels.map((c, k) => {
     const reports = finished[k];
     const report = reports[m];
@@ -243,4 +256,11 @@ async function studyArtefacts(
   const done = studies.map((s, k) => (s === null ? null : s.finish(reportOf(k))));
   const added = done.flatMap((d) => (d === null ? [] : [d.warning]));
   return { source: { ...first, warnings: [...first.warnings, ...added] }, figures: done.map((d) => d?.figures ?? null) };
+}
+
+/** The first read's report with the interpolated spikes said (a warning each channel) and no longer flagged for the study. */
+function withInterpolated(first: IngestReport, spikes: readonly Float64Array[]): IngestReport {
+  const added = first.channels.flatMap((c, k) => (spikes[k].length > 0 ? [interpolatedWarning(c.name, spikes[k])] : []));
+  const artefacts = first.artefacts?.map((a) => ({ spikes: new Float64Array(0), runs: a.runs }));
+  return { ...first, warnings: [...first.warnings, ...added], ...(artefacts ? { artefacts } : {}) };
 }

@@ -232,6 +232,9 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
   }),
   initial: number(),
   offset: number(),
+  interpolateSpikes: (v, p) => {
+    if (typeof v !== 'boolean') throw new JobFieldError(p, `expected true or false, got ${shown(v)}`);
+  },
 };
 
 /** Checks a parsed job file: every field known and of its type; `file` or `events`, not both. */

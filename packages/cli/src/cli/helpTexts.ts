@@ -51,6 +51,8 @@ Model:
   --mean-stress <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
   --gate <x>               gate range in the channel's unit; or --gate-fraction <f> [--full-scale <x>]
   --one-off                the history does not repeat (open loops count as half cycles)
+  --interpolate-spikes     assess with the one-sample spikes the signal checks find replaced by the
+                           line between their neighbours (one more read; the output says which)
   --scatter-factor <x>     design life = life / x (default 1)
   --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
   --critical-damage <x>    damage sum at failure (default 1)

@@ -77,6 +77,7 @@ const MODEL = {
   'walker-gamma': { type: 'string' },
   'sn-curve': { type: 'string' },
   'hot-spot': { type: 'string' },
+  'interpolate-spikes': { type: 'boolean' },
   'hot-spot-modulus': { type: 'string' },
   'stress-factor': { type: 'string' },
   'ultimate-strength': { type: 'string' },
@@ -280,6 +281,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   opt('fullScale', 'full-scale');
   opt('cutoffCycles', 'cutoff-cycles');
   opt('criticalDamage', 'critical-damage');
+  if (values['interpolate-spikes']) job.interpolateSpikes = true;
   const service = serviceOf(values);
   if (service) job.service = service;
   if (layout.time) job.time = layout.time;
