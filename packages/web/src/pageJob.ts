@@ -145,6 +145,7 @@ export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile
   const critical = number(form, 'critical-damage', true);
   if (critical !== undefined) job.criticalDamage = critical;
   job.repeating = form.repeating !== 'no';
+  if (form.spikes === 'interpolate') job.interpolateSpikes = true;
   job.scatterFactor = number(form, 'scatter-factor');
   const amount = number(form, 'service-amount', true);
   const unit = (form['service-unit'] ?? '').trim();

@@ -244,6 +244,19 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await context.close();
   }, 60_000);
 
+  test('spikes interpolated on the page: the life is the command\'s with --interpolate-spikes, longer than with them kept, and the exports are its bytes', async () => {
+    const { page, context } = await open();
+    await assess(page, 'spiky.csv', { handbook: STEEL });
+    const kept = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    await assess(page, 'spiky.csv', { handbook: STEEL, spikes: 'interpolate' });
+    const fixed = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(fixed).toBeGreaterThan(kept);
+    expect((await page.textContent('#warnings')) ?? '').toMatch(/4 spike\(s\) interpolated between their neighbours/);
+    const json = JSON.parse((await exportsEqualTheCommand(page, 'spiky.csv')).toString('utf8'));
+    expect(json.results[0].repeats).toBe(fixed);
+    await context.close();
+  }, 120_000);
+
   test('cancel stops the worker while it reads', async () => {
     const { page, context } = await open();
     await page.setInputFiles('#file', join(dir, 'long.csv'));
