@@ -68,7 +68,7 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
 }
 
 /** An event read whole with its flagged one-sample spikes on the line between their neighbours, and a warning saying so. */
-function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): Awaited<ReturnType<EventRead>> {
+export function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): Awaited<ReturnType<EventRead>> {
   const warnings = [...r.report.warnings];
   const channels = r.channels.map((v, k) => {
     const s = r.report.artefacts?.[k]?.spikes;

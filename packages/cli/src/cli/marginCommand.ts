@@ -2,7 +2,9 @@ import { CAUTION, EngineError, findLoadMargin, servicePerRepeat, type DutyEvent,
 import { readDelimitedColumns } from '../ingest';
 import { formatNumber } from '../report/formatNumber.js';
 import { UsageError } from './CliError';
-import type { CliChannel, CliJob } from './CliJob';
+import type { CliChannel, CliEvent, CliJob } from './CliJob';
+import { interpolatedEvent, type EventRead } from './assessEvents';
+import { hotSpotEventReader, hotSpotPlan } from './hotSpotChannel';
 import type { MemoryGuard } from './MemoryGuard';
 import { stableJson } from './outputs';
 import { lifeJobOf, mainCorrection } from './runAssessment';
@@ -52,7 +54,6 @@ interface MarginTarget {
  */
 export async function runMargin(job: CliJob, request: MarginRequest, io: MarginIo, guard: MemoryGuard): Promise<number> {
   const files = job.events ? job.events.map((e) => ({ path: e.file, shown: e.shown ?? e.file })) : [{ path: job.file as string, shown: job.fileShown ?? (job.file as string) }];
-  if (job.stressLife?.hotSpot) throw new UsageError('margin: a hot-spot job is not searched yet; assess it, or write the hot-spot stress as a column and search that');
   guard.checkInMemory(files, job.channels.length, 'the margin search');
   if ((request.targetRepeats === undefined) === (request.targetLife === undefined)) throw new UsageError('--target-repeats or --target-life: give exactly one');
   for (const [name, v] of [['--target-repeats', request.targetRepeats], ['--target-life', request.targetLife]] as const) {
@@ -62,9 +63,14 @@ export async function runMargin(job: CliJob, request: MarginRequest, io: MarginI
   const lines: string[] = [];
   const rows: unknown[] = [];
   let target: MarginTarget | null = null;
-  for (const channel of job.channels) {
+  // a hot-spot job searches its one hot-spot channel, made of the gauges as assess makes it
+  const hot = job.stressLife?.hotSpot;
+  const plan = hot ? hotSpotPlan(hot, job.channels, job.jobShown ? `${job.jobShown}: stressLife.hotSpot` : '--hot-spot') : null;
+  const plain: EventRead = (e, o) => readDelimitedColumns(e.file, o);
+  const reader = hot && plan ? hotSpotEventReader(plain, hot, job.channels, plan) : plain;
+  for (const channel of plan ? [plan.channel] : job.channels) {
     const name = channel.name ?? String(channel.column);
-    const events = await eventsOf(job, channel);
+    const events = await eventsOf(job, channel, reader);
     const lifeJob = lifeJobOf(job, channel, main);
     target ??= targetOf(job, request, events, lifeJob);
     const t = target;
@@ -131,19 +137,26 @@ function channelLine(name: string, m: MarginResult, t: MarginTarget): string {
   );
 }
 
-/** The channel's events as the engine takes them: the job's duty cycle, or its one file as one event. */
-async function eventsOf(job: CliJob, channel: CliChannel): Promise<DutyEvent[]> {
+/**
+ * The channel's events as the engine takes them: the job's duty cycle, or its one file as one
+ * event, read as assess reads them (the hot-spot channel from its gauges, the spikes interpolated
+ * when the job asks).
+ */
+async function eventsOf(job: CliJob, channel: CliChannel, read: EventRead): Promise<DutyEvent[]> {
   const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
+  const one = async (e: CliEvent) => {
+    const r = await read(e, { ...opts, name: e.shown ?? e.file });
+    return (job.interpolateSpikes ? interpolatedEvent(r) : r).channels[0];
+  };
   if (job.events) {
     const out: DutyEvent[] = [];
     for (const e of job.events) {
-      const { channels } = await readDelimitedColumns(e.file, { ...opts, name: e.shown ?? e.file });
-      const d: DutyEvent = { name: e.name, history: channels[0], repeats: e.repeats };
+      const d: DutyEvent = { name: e.name, history: await one(e), repeats: e.repeats };
       if (e.duration !== undefined) d.duration = e.duration;
       out.push(d);
     }
     return out;
   }
-  const { channels } = await readDelimitedColumns(job.file as string, { ...opts, name: job.fileShown ?? (job.file as string) });
-  return [{ name: 'history', history: channels[0], repeats: 1 }];
+  const file = job.file as string;
+  return [{ name: 'history', history: await one({ name: 'history', file, shown: job.fileShown ?? file, repeats: 1 }), repeats: 1 }];
 }

@@ -62,6 +62,18 @@ describe('hot-spot stress in the CLI', () => {
     expect(Math.abs(JSON.parse(r.stdout).channels[0].report.damage.perRepeat / want.damage.perRepeat - 1)).toBeLessThanOrEqual(1e-12);
   });
 
+  test('margin on a hot-spot job searches the hot-spot channel: the life at the factor found is the engine\'s on the scaled hot-spot history', async () => {
+    const r = await cli(['margin', join(dir, 'weld.csv'), '--column', 'a_MPa', '--column', 'b_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear', '--target-repeats', '50', '--json']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const m = JSON.parse(r.stdout).channels[0];
+    expect(m.channel).toBe('hot spot (typeALinear: 1.67 × a_MPa − 0.67 × b_MPa)');
+    const hs = hotSpotStress('typeALinear', [g[0], g[1]]);
+    const at = assessLife(hs.map((x) => x * m.factor), fat71).life.repeats;
+    expect(Math.abs(at / m.repeats - 1)).toBeLessThanOrEqual(1e-9);
+    expect(m.repeats).toBeLessThanOrEqual(50);
+  });
+
   test('bad input: the wrong number of gauges, strain without a modulus, --hot-spot without --sn-curve: exit 2 naming the option', async () => {
     const one = await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear']);
     expect(one.code).toBe(2);

@@ -50,6 +50,15 @@ describe('--interpolate-spikes', () => {
     expect(asIs.channels[0].report.life.repeats).toBeLessThan(j.channels[0].report.life.repeats);
   });
 
+  test('margin with --interpolate-spikes searches the corrected samples', async () => {
+    const r = await cli(['margin', join(dir, 'g.csv'), '--quantity', 'strain', '--unit', 'microstrain', '--material', 'SAE 1045', '--interpolate-spikes', '--target-repeats', '1e6', '--json']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const m = JSON.parse(r.stdout).channels[0];
+    const at = assessLife(fixedByHand.map((v) => (v / 1e6) * m.factor), job).life.repeats;
+    expect(Math.abs(at / m.repeats - 1)).toBeLessThanOrEqual(1e-9);
+  });
+
   test('a duty cycle of a job file with interpolateSpikes: each event read whole and corrected', async () => {
     writeFileSync(join(dir, 'job.json'), JSON.stringify({ format: 'loopwise-job', version: 1, material: 'SAE 1045 (hot rolled and normalized)', interpolateSpikes: true, channels: [{ column: 'gauge_ue', quantity: 'strain', unit: 'microstrain' }], events: [{ name: 'run', file: 'g.csv', repeats: 2 }] }));
     const r = await cli(['assess', '--job', join(dir, 'job.json'), '--json']);
