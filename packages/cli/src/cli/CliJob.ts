@@ -85,6 +85,8 @@ export interface CliJob {
   notes?: string[];
   initial?: number;
   offset?: number;
+  /** Seconds per unit of the time column (its units row said so); default: from the column's name (`t_ms`, `time [min]`), else 1. */
+  timeSecondsPerUnit?: number;
   /** Replace the one-sample spikes the signal checks find by the line between their neighbours before assessing (a single file). */
   interpolateSpikes?: boolean;
 }

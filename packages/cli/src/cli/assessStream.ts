@@ -180,7 +180,7 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
       sources: [studied.source],
       ...(studied.figures[k] ? { artefactStudy: studied.figures[k] } : {}),
       history: inOwnUnit(c, displays[k].points()),
-      timeBase: timeBaseOf(first),
+      timeBase: timeBaseOf(first, job.timeSecondsPerUnit),
       loops: null,
       curveLabel: job.stressLife?.label ?? null,
       loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,

@@ -89,6 +89,8 @@ export interface LayoutChoice {
   time: TimeSource | undefined;
   /** How the columns, units and time base were chosen (one line each). */
   notes: string[];
+  /** Seconds per unit of the time column, when its units row says (`[ms]`: 0.001). */
+  timeSecondsPerUnit?: number;
 }
 
 /**
@@ -139,7 +141,10 @@ export function chooseColumns(values: Record<string, unknown>, survey: { dialect
       if (offer) notes.push(`column ${label(offer)} increases strictly: not assessed; --time-column ${offer.column} makes it the time base`);
     }
   }
-  return { channels, time, notes };
+  // the time column's unit from the units row (or a bracketed header unit), when it gives one
+  const timeColumn = time !== undefined && 'column' in time ? find(columns, time.column) : undefined;
+  const spu = timeColumn?.reading?.quantity === 'time' ? timeColumn.reading.secondsPerUnit : undefined;
+  return { channels, time, notes, ...(spu !== undefined ? { timeSecondsPerUnit: spu } : {}) };
 }
 
 function channelOf(values: Record<string, unknown>, ref: string | number, survey: ColumnSurvey | undefined, notes: string[]): CliChannel {

@@ -285,6 +285,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   const service = serviceOf(values);
   if (service) job.service = service;
   if (layout.time) job.time = layout.time;
+  if (layout.timeSecondsPerUnit !== undefined) job.timeSecondsPerUnit = layout.timeSecondsPerUnit;
   checkRoute(job, null);
   return job;
 }

@@ -1,5 +1,5 @@
 import type { LifeReport } from '@loopwise/engine';
-import type { IngestReport } from '@loopwise/ingest';
+import { recognizeUnit, type IngestReport } from '@loopwise/ingest';
 import { formatNumber } from '../report/formatNumber.js';
 
 /** Time of sample i: start + i · step, in seconds. */
@@ -13,13 +13,24 @@ export interface TimeBase {
  * agree to 1e-6 of their mean (logger clocks written with rounded decimals do), else null: a
  * time at a sample index would then need the column itself, which a streamed file does not keep.
  */
-export function timeBaseOf(source: IngestReport): TimeBase | null {
+export function timeBaseOf(source: IngestReport, secondsPerUnit?: number): TimeBase | null {
   const t = source.time;
   if (t === null || t === undefined || t.kind === 'none') return null;
   if (t.kind === 'sample-rate') return { start: 0, step: t.timeStep };
   if (!(t.samples >= 2) || t.nonIncreasingSteps > 0) return null;
   if (!(t.meanStep > 0) || t.maxStep - t.minStep > 1e-6 * t.meanStep) return null;
-  return { start: t.first, step: t.meanStep };
+  const k = secondsPerUnit ?? secondsPerUnitOfName(t.name);
+  return { start: t.first * k, step: t.meanStep * k };
+}
+
+/**
+ * Seconds per unit of a time column by its name: a unit in brackets or after the last `_`, space
+ * or `-` (`t [ms]`, `time_min`, `Zeit_s`); 1 (seconds) when the name gives none.
+ */
+export function secondsPerUnitOfName(name: string): number {
+  const m = /[[(]([^\])]+)[\])]\s*$/.exec(name) ?? /[_\s-]([A-Za-z]+)\s*$/.exec(name);
+  const r = m ? recognizeUnit(m[1]) : null;
+  return r !== null && r.quantity === 'time' ? r.secondsPerUnit : 1;
 }
 
 /** The time of a sample index for people, e.g. `41.74 s`. */

@@ -59,6 +59,16 @@ describe('the time base', () => {
     expect(JSON.parse((await cli(['assess', join(dir, 'plain.csv'), ...base, '--json'])).stdout).channels[0].report.life.unit).toBeUndefined();
   });
 
+  test('a time column in ms (by its name, or by its units row) is converted to seconds', async () => {
+    const ms = gauge.map((v, i) => `${i * 2},${v.toFixed(2)}`);
+    writeFileSync(join(dir, 'named.csv'), 'time_ms,gauge_ue\n' + ms.join('\n') + '\n');
+    writeFileSync(join(dir, 'unitrow.csv'), 't,gauge\n[ms],[µε]\n' + ms.join('\n') + '\n');
+    for (const [f, column] of [['named.csv', 'gauge_ue'], ['unitrow.csv', 'gauge']]) {
+      const j = JSON.parse((await cli(['assess', join(dir, f), '--column', column, '--quantity', 'strain', '--unit', 'microstrain', '--material', 'SAE 1045', '--json'])).stdout);
+      expect(j.channels[0].report.life.perRepeat, f).toBeCloseTo((n * step) / 3600, 15);
+    }
+  });
+
   test('the worst loops carry their times (index × step) and their strains in µε; the HTML history has a time axis and µε values', async () => {
     const j = JSON.parse((await cli(['assess', join(dir, 'timed.csv'), ...base, '--json'])).stdout);
     const w = j.channels[0].report.worstLoops[0];
