@@ -6,7 +6,7 @@ import { handbookSteels } from '@loopwise/material';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { ArtefactRemover, FlaggedSamples } from '../../src/cli/artefactStudy';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 import { formatNumber } from '../../src/report/formatNumber';
 
 // Issue 11, item 2: when flagged samples start or turn damaging loops, the report gives the share
@@ -36,13 +36,6 @@ function cleanedByHand(): number[] {
   return out;
 }
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-artefacts-'));

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { assessDutyCycle, assessLife } from '@loopwise/engine';
 import { hotSpotStress, iiwFatCurve } from '@loopwise/stress-life';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 
 // Issue 12, item 3 in the CLI: two or three gauges at the IIW reference points become one
 // hot-spot stress history (IIW recommendations 2.2.3, by the library's hotSpotStress), assessed
@@ -14,13 +14,6 @@ const n = 8000;
 const base = Array.from({ length: n }, (_, i) => 60 * Math.sin(i / 17) + 25 * Math.sin(i / 3.1));
 const g = [1.3, 1.1, 0.95].map((f) => base.map((b) => Number((f * b).toFixed(2))));
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-hotspot-'));

@@ -6,7 +6,7 @@ import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest'
 import { handbookSteels } from '@loopwise/material';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 import { spikeInterpolatedReader } from '../../src/cli/spikeInterpolation';
 
 // Issue 11, item 1 in the command: --interpolate-spikes (a job's interpolateSpikes) assesses the
@@ -20,13 +20,6 @@ const fixedByHand = gauge.map((v, i) => (spikes.includes(i) ? (gauge[i - 1] + ga
 const material = handbookSteels.find((m) => m.name === 'SAE 1045 (hot rolled and normalized)')!;
 const job: LifeJob = { material, input: 'local-strain', meanStress: 'smithWatsonTopper' };
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-interp-'));

@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 
 // Issue 11, item 4 (logger formats), through the command in-process: a tab-delimited logger
 // export with a two-line preamble, a header, a units row under it, decimal commas, a time column
@@ -10,13 +10,6 @@ import { main, type Io } from '../../src/cli/main';
 // bracket: sines, not a measurement).
 let dir = '';
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-logger-'));

@@ -4,20 +4,13 @@ import { join } from 'node:path';
 import { assessDutyCycle } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 
 // Issue 11, item 7: `loopwise margin` with a job file and a target life, stated as a design or a
 // mean life, with progress on a terminal. The files are INVENTED for the test (sums of sines in
 // microstrain at a notch root, not measurements): a 'track' event and a 'yard' event of a duty cycle.
 let dir = '';
 
-async function cli(args: string[], terminal = false): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: terminal };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 const track = Array.from({ length: 3000 }, (_, i) => 700 * Math.sin(i / 11.3) + 300 * Math.sin(i / 2.9) + 150);
 const yard = Array.from({ length: 800 }, (_, i) => 1100 * Math.sin(i / 40.1));

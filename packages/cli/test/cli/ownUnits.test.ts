@@ -5,7 +5,7 @@ import { assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
 import { FromToMatrix, RainflowCounter, RangeMeanMatrix } from '@loopwise/rainflow';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 
 // Issue 11, item 5: the gate is given in the channel's own unit (µε for a microstrain channel)
 // and count reports in that unit. The gauge file is INVENTED for the test (sums of sines in µε).
@@ -13,13 +13,6 @@ let dir = '';
 const values = Array.from({ length: 6000 }, (_, i) => Number((900 * Math.sin(i / 23.7) + 60 * Math.sin(i / 1.9) + 15 * Math.sin(i / 0.7)).toFixed(2)));
 const sae1045 = handbookSteels.find((m) => m.name === 'SAE 1045 (hot rolled and normalized)')!;
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-units-'));

@@ -2,7 +2,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
-import { main, type Io } from '../../src/cli/main';
+import { cli } from './runCli';
 import { formatNumber } from '../../src/report/formatNumber';
 
 // Issue 11, items 5 and 6: with a time column or a sample rate the service per repeat comes from
@@ -13,13 +13,6 @@ const n = 5000;
 const step = 0.002; // 500 Hz
 const gauge = Array.from({ length: n }, (_, i) => Number((700 * Math.sin(i / 31.3) + 200 * Math.sin(i / 4.1)).toFixed(2)));
 
-async function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: Io = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), stderrIsTerminal: false };
-  const code = await main(args, io);
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'loopwise-time-'));
