@@ -180,6 +180,31 @@ $('file').addEventListener('change', () => {
   if (list.length > 0) void takeFiles(list);
 });
 for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
+
+// a material file (the command's `material --out`, or any JSON with the constants) fills the
+// constants' fields; the job then carries them inline, as typed ones
+const MATERIAL_FIELDS = ['E', 'sigmaF', 'b', 'epsilonF', 'c', 'K', 'n'] as const;
+$('material-file').addEventListener('change', async () => {
+  const input = $<HTMLInputElement>('material-file');
+  const info = $('material-file-info');
+  const file = input.files?.[0];
+  if (!file) return;
+  let m: Record<string, unknown>;
+  try {
+    m = JSON.parse(await file.text()) as Record<string, unknown>;
+  } catch (e) {
+    info.textContent = `${file.name}: not JSON (${(e as Error).message}); the constants are unchanged`;
+    return;
+  }
+  const missing = MATERIAL_FIELDS.filter((k) => typeof m[k] !== 'number' || !Number.isFinite(m[k] as number));
+  if (m === null || typeof m !== 'object' || missing.length > 0) {
+    info.textContent = `${file.name}: no finite number for ${missing.join(', ')}; the constants are unchanged`;
+    return;
+  }
+  for (const k of MATERIAL_FIELDS) $<HTMLInputElement>(`m-${k}`).value = String(m[k]);
+  info.textContent = `Constants from ${file.name}${typeof m.name === 'string' ? ` (${m.name})` : ''}${typeof m.source === 'string' ? `; source: ${m.source}` : ''}`;
+  document.body.dataset.materialFile = 'loaded';
+});
 // a layout part set by hand: survey the file again with it
 for (const id of ['skip-lines', 'delimiter', 'decimal-mark', 'header-row', 'units-row'])
   $(id).addEventListener('change', () => {

@@ -257,6 +257,27 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await context.close();
   }, 120_000);
 
+  test('a material file (the command\'s material --out) fills the constants: the life equals assessLife with those constants', async () => {
+    // the command estimates a steel from Su = 700 MPa (Uniform Material Law) and writes it out
+    const err: string[] = [];
+    const out = join(dir, 'steel-700.json');
+    expect(await main(['material', '--su', '700', '--out', out], { stdout: () => undefined, stderr: (t) => void err.push(t), stderrIsTerminal: false })).toBe(0);
+    const m = JSON.parse(readFileSync(out, 'utf8'));
+    const { page, context } = await open();
+    await page.selectOption('#material-source', 'constants');
+    await page.setInputFiles('#material-file', out);
+    await page.waitForFunction(() => document.body.dataset.materialFile === 'loaded');
+    expect(await page.inputValue('#m-sigmaF')).toBe(String(m.sigmaF));
+    expect(await page.textContent('#material-file-info')).toContain('steel-700.json');
+    await assess(page, 'rig-run.csv', {});
+    const constants = { E: m.E, sigmaF: m.sigmaF, b: m.b, epsilonF: m.epsilonF, c: m.c, K: m.K, n: m.n };
+    const want = assessLife(strain.map((v) => v / 1e6), { material: constants, input: 'local-strain', meanStress: 'smithWatsonTopper' } as Parameters<typeof assessLife>[1]);
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    await exportsEqualTheCommand(page, 'rig-run.csv');
+    await context.close();
+  }, 120_000);
+
   test('cancel stops the worker while it reads', async () => {
     const { page, context } = await open();
     await page.setInputFiles('#file', join(dir, 'long.csv'));
