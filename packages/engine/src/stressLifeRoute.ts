@@ -102,9 +102,10 @@ export function countSchedule(events: DutyEvent[], job: ResolvedJob): CountedSch
   const starts = eventStartsOf(events);
   const ordinals = new OrdinalMap();
   // room for the cycles up front (a cycle per 12 samples; the reference history has one per 13),
-  // so the table rarely grows: each growth copies every column
+  // so the table rarely grows: each growth copies every column. An event's repeats usually add
+  // rows for two runs before its state repeats and the rest are scaled (below), so at most two count.
   let samples = 0;
-  for (const e of events) samples += e.history.length * Math.max(1, Math.min(e.repeats, 2));
+  for (const e of events) samples += e.history.length * Math.min(e.repeats, 2);
   const all = new CycleTable(Math.max(1024, Math.min(1 << 24, Math.ceil(samples / 12))));
   const counter = new RainflowCounter({ gate, residue: job.repeating ? 'repeat' : 'half', sink: new MappedSink(ordinals, all) });
   let removed = 0;

@@ -1,5 +1,6 @@
 import { assessDutyCycle, compareCorrections, type DutyEvent } from '@loopwise/engine';
 import type { IngestReport, ReaderOptions } from '@loopwise/ingest';
+import { removeSpikes } from '@loopwise/signal';
 import { UsageError } from './CliError';
 import type { CliEvent, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
@@ -67,26 +68,17 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
   });
 }
 
-/** An event read whole with its flagged one-sample spikes on the line between their neighbours, and a warning saying so. */
+/**
+ * An event read whole with its flagged one-sample spikes on the line between their neighbours
+ * (`removeSpikes` of @loopwise/signal, the library's correction), and a warning saying so.
+ */
 export function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): Awaited<ReturnType<EventRead>> {
   const warnings = [...r.report.warnings];
   const channels = r.channels.map((v, k) => {
     const s = r.report.artefacts?.[k]?.spikes;
     if (s === undefined || s.length === 0) return v;
-    const out = v.slice();
-    for (let q = 0; q < s.length; q++) {
-      let last = q;
-      while (last + 1 < s.length && s[last + 1] === s[last] + 1) last++;
-      const i0 = s[q];
-      const i1 = s[last];
-      const a = i0 > 0 ? v[i0 - 1] : v[i1 + 1];
-      const b = i1 + 1 < v.length ? v[i1 + 1] : a;
-      const h = i1 - i0 + 1;
-      for (let j = 0; j < h; j++) out[i0 + j] = (1 - (j + 1) / (h + 1)) * a + ((j + 1) / (h + 1)) * b;
-      q = last;
-    }
     warnings.push(interpolatedWarning(r.report.channels[k].name, s));
-    return out;
+    return removeSpikes(v, s).values;
   });
   return { ...r, channels, report: { ...r.report, warnings } };
 }

@@ -4,7 +4,7 @@ import type { CliChannel, CliCorrection, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
 import { correctionOf, correctionsOf, inOwnUnit, lifeJobOf, mainCorrection, unitLabel } from './lifeJobOf';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
-import { timeBaseOf, withServiceFromTime, type TimeBase } from './timeBase';
+import { serviceFromTime, timeBaseOf, withHours, type TimeBase } from './timeBase';
 import { interpolatedWarning, spikeInterpolatedReader } from './spikeInterpolation';
 import { LoopSpool } from './LoopSpool';
 import type { SpoolStore } from './SpoolStore';
@@ -190,12 +190,10 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
   if (settings.serviceFromTime && job.service === undefined) {
     for (const r of results) {
       if (!r.timeBase) continue;
-      const samples = r.sources[0].samples;
-      const base = r.timeBase;
-      const done = withServiceFromTime(r.report, samples, base);
-      r.report = done.report;
-      if (r.corrections) r.corrections = r.corrections.map((c) => ({ ...c, life: withServiceFromTime({ ...r.report, life: c.life }, samples, base).report.life }));
-      if (r === results[0]) (job.notes ??= []).push(done.note);
+      const { perRepeat, note } = serviceFromTime(r.sources[0].samples, r.timeBase);
+      r.report = { ...r.report, life: withHours(r.report.life, perRepeat) };
+      if (r.corrections) r.corrections = r.corrections.map((c) => ({ ...c, life: withHours(c.life, perRepeat) }));
+      if (r === results[0]) (job.notes ??= []).push(note);
     }
   }
   return results;

@@ -1,5 +1,5 @@
 import type { CorrectionResult, LifeJob, LifeLoopColumns, LifeReport } from '@loopwise/engine';
-import { channelConversion } from '@loopwise/ingest';
+import { channelConversion, MICROSTRAIN_PER_STRAIN } from '@loopwise/ingest';
 import type { DamageParameterName } from '@loopwise/mean-stress';
 import type { AmplitudeCorrection, IiwResidualCategory } from '@loopwise/stress-life';
 import type { CliChannel, CliCorrection, CliJob, CliStressLife } from './CliJob';
@@ -47,7 +47,7 @@ export function engineRangeOf(c: CliChannel): (x: number) => number {
  */
 export function inOwnUnit(c: CliChannel, h: { index: Float64Array; value: Float64Array } | null): { index: Float64Array; value: Float64Array } | null {
   if (h === null || !(c.quantity === 'strain' && c.unit === 'microstrain')) return h;
-  return { index: h.index, value: h.value.map((v) => v * 1e6) };
+  return { index: h.index, value: h.value.map((v) => v * MICROSTRAIN_PER_STRAIN) };
 }
 
 export function unitLabel(c: CliChannel): string {

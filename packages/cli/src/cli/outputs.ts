@@ -1,6 +1,6 @@
 import type { LifeReport } from '@loopwise/engine';
 import { CAUTION } from '@loopwise/engine';
-import { describeDialect } from '@loopwise/ingest';
+import { describeDialect, MICROSTRAIN_PER_STRAIN } from '@loopwise/ingest';
 import type { ChannelResult } from './assessStream';
 import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { loopPlaceText } from '../report/loopPlace.js';
@@ -99,6 +99,13 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
   );
 }
 
+/** A worst loop's local strains for the summary: in µε for a microstrain channel, else as strain; empty on the stress-life route. */
+function strainText(w: LifeReport['worstLoops'][number], unit: string): string {
+  if (w.strainMin === null || w.strainMax === null) return '';
+  const k = unit === 'µε' ? MICROSTRAIN_PER_STRAIN : 1;
+  return `, ε ${formatNumber(w.strainMin * k)} … ${formatNumber(w.strainMax * k)}${k === 1 ? '' : ' µε'}`;
+}
+
 /** The header of the cycles CSV. */
 export const CYCLES_CSV_HEADER = [
   'channel', 'start_sample', 'turn_sample', 'close_sample', 'start_event', 'turn_event', 'count', 'stress_max', 'stress_min',
@@ -164,7 +171,7 @@ export function summaryText(results: ChannelResult[], title: string | null): str
       for (const w of worst) {
         const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatCount(w.count)} per repeat` : '';
         out.push(
-          `    ${loopPlaceText(w, rep.events)}${perRepeat}${r.timeBase ? ` (t ${w.startIndex < 0 ? 'start' : timeText(r.timeBase, w.startIndex)} – ${timeText(r.timeBase, w.turnIndex)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${w.strainMin === null || w.strainMax === null ? '' : r.unit === 'µε' ? `, ε ${formatNumber(w.strainMin * 1e6)} … ${formatNumber(w.strainMax * 1e6)} µε` : `, ε ${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+          `    ${loopPlaceText(w, rep.events)}${perRepeat}${r.timeBase ? ` (t ${w.startIndex < 0 ? 'start' : timeText(r.timeBase, w.startIndex)} – ${timeText(r.timeBase, w.turnIndex)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${strainText(w, r.unit)}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );
       }
     }

@@ -39,17 +39,20 @@ export function timeText(base: TimeBase, index: number): string {
 }
 
 /**
- * The report's life with a service per repeat from the time base, in hours: one repeat of a
- * repeating history lasts its samples × the step (the step back from the last sample to the
- * first closes the repeat). Used when the user gave no service.
+ * The service per repeat from the time base, in hours: one repeat of a repeating history lasts
+ * its samples × the step (the step back from the last sample to the first closes the repeat).
+ * Used when the user gave no service; `note` says so for the summary.
  */
-export function withServiceFromTime(report: LifeReport, samples: number, base: TimeBase): { report: LifeReport; note: string } {
+export function serviceFromTime(samples: number, base: TimeBase): { perRepeat: number; note: string } {
   const seconds = samples * base.step;
   const perRepeat = seconds / 3600;
-  const life = report.life;
-  const next: LifeReport['life'] = { ...life, unit: 'h', perRepeat, service: life.repeats * perRepeat, designService: life.designRepeats * perRepeat };
   return {
-    report: { ...report, life: next },
+    perRepeat,
     note: `service per repeat: ${formatNumber(perRepeat)} h (${formatNumber(seconds)} s: ${samples} samples × ${formatNumber(base.step)} s) from the time base (give --service to change it)`,
   };
+}
+
+/** A life with its service in hours, `perRepeat` h per repeat. */
+export function withHours(life: LifeReport['life'], perRepeat: number): LifeReport['life'] {
+  return { ...life, unit: 'h', perRepeat, service: life.repeats * perRepeat, designService: life.designRepeats * perRepeat };
 }

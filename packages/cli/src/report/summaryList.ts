@@ -1,4 +1,5 @@
 import type { LifeReport } from '@loopwise/engine';
+import { MICROSTRAIN_PER_STRAIN } from '@loopwise/ingest';
 import type { SnCurve } from '@loopwise/stress-life';
 import { correctionName } from './correctionName.js';
 import { definitionList } from './definitionList.js';
@@ -43,6 +44,6 @@ export function summaryList(report: LifeReport, totals?: { cycles: number; rows:
 
 /** The gate range in the channel's unit: µε for a microstrain channel (the engine's is strain). */
 function gateText(range: number, unit: string): string {
-  if (unit === 'µε') return `${formatNumber(range * 1e6)} µε`;
+  if (unit === 'µε') return `${formatNumber(range * MICROSTRAIN_PER_STRAIN)} µε`;
   return unit === 'strain' || unit.startsWith('MPa') ? `${formatNumber(range)} ${unit === 'strain' ? 'strain' : 'MPa'}` : `${formatNumber(range)} (assessed history units)`;
 }

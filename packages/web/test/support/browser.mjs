@@ -141,3 +141,18 @@ export function observeLongTasks() {
     for (const e of list.getEntries()) window.__longTasks.push([e.startTime, e.duration]);
   }).observe({ type: 'longtask', buffered: true });
 }
+
+/**
+ * Whether the page's long-task observer ({@link observeLongTasks}) is live: a busy 120 ms task of
+ * the page's own event loop (a timer, not the caller's evaluation) must be reported within 500 ms.
+ */
+export async function longTaskObserverIsLive(page) {
+  await page.evaluate(() => {
+    setTimeout(() => {
+      const t = performance.now();
+      while (performance.now() - t < 120);
+    }, 0);
+  });
+  await page.waitForTimeout(500);
+  return page.evaluate(() => window.__longTasks.some((t) => t[1] >= 110));
+}
