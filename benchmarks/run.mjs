@@ -40,6 +40,7 @@ const NATIVE_OF = [
   ['rainflow/batch reference history (turning points + four-point, half residue)', 'native/rainflow batch reference history'],
   ['notch/Neuber, nominal input, Kt 2.5, repeating (first + stabilised pass), 1e7 samples', 'native/notch tracker, Neuber Kt 2.5, repeating (first + stabilised pass), JS ÷ native (answer'],
   ['engine/assessLife reference history (Neuber, SWT, Miner, repeating)', 'native/assessLife reference history (Neuber Kt 2, SWT, Miner, repeating), JS ÷ native (answer'],
+  ['stress-life/engine assessLife, stress-life route, reference history (rainflow repeat residue, IIW FAT 90 Haibach, Goodman, the whole report)', 'native/assessLife stress-life route (the whole report)'],
 ];
 for (const [jsName, nativePrefix] of NATIVE_OF) {
   const js = rows.find((r) => r.figure === jsName);

@@ -181,6 +181,7 @@ typedef struct {
   double *v, *i;
   size_t top, cap;
   CycleTable *out;
+  int keepStart; /* 1 for a repeating history: no range from the start is final (no step 5) */
 } RainflowStack;
 
 /* One turning point onto the stack: closes the full cycles it completes (four-point rule), then
@@ -208,7 +209,7 @@ static void rainflow_point(RainflowStack *s, double v, double idx) {
       break;
     }
   }
-  if (top == 3 && fabs(sv[2] - sv[1]) >= fabs(sv[1] - sv[0])) {
+  if (top == 3 && !s->keepStart && fabs(sv[2] - sv[1]) >= fabs(sv[1] - sv[0])) {
     cycles_add(s->out, sv[0], sv[1], 0.5, si[0], si[1], si[1]);
     sv[0] = sv[1]; si[0] = si[1];
     sv[1] = sv[2]; si[1] = si[2];
@@ -217,9 +218,63 @@ static void rainflow_point(RainflowStack *s, double v, double idx) {
   s->top = top;
 }
 
-/* Counts the whole history into `out`; returns the number of turning points. */
+/*
+ * Closes the residue of a repeating history (ASTM E1049-85 5.4.5): the residue read as a ring
+ * from its point of largest magnitude, that point closing it; the turning points of the ring
+ * (plateaus and points that are no reversal across the seam drop), then every range Y that the
+ * next range X reaches (X >= Y) is one full cycle.
+ */
+static void close_repeating_residue(const double *v, const double *vi, size_t m, CycleTable *out) {
+  if (m < 2) return;
+  size_t j = 0;
+  for (size_t k = 1; k < m; k++) if (fabs(v[k]) > fabs(v[j])) j = k;
+  double *tv = xmalloc((m + 2) * sizeof(double)), *ti = xmalloc((m + 2) * sizeof(double));
+  size_t n = 0;
+  double ext = v[j], ei = vi[j];
+  int dir = 0;
+  tv[n] = ext; ti[n++] = ei;
+  for (size_t k = 1; k <= m; k++) {
+    double x = v[(j + k) % m], xi = vi[(j + k) % m];
+    if (dir > 0) {
+      if (x > ext) { ext = x; ei = xi; }
+      else if (x < ext) { tv[n] = ext; ti[n++] = ei; dir = -1; ext = x; ei = xi; }
+    } else if (dir < 0) {
+      if (x < ext) { ext = x; ei = xi; }
+      else if (x > ext) { tv[n] = ext; ti[n++] = ei; dir = 1; ext = x; ei = xi; }
+    } else if (x != ext) {
+      dir = x > ext ? 1 : -1;
+      ext = x;
+      ei = xi;
+    }
+  }
+  if (dir != 0) { tv[n] = ext; ti[n++] = ei; }
+  size_t top = 0;
+  for (size_t k = 0; k < n; k++) {
+    tv[top] = tv[k];
+    ti[top] = ti[k];
+    top++;
+    while (top >= 3) {
+      double x = fabs(tv[top - 1] - tv[top - 2]), y = fabs(tv[top - 2] - tv[top - 3]);
+      if (x < y) break;
+      cycles_add(out, tv[top - 3], tv[top - 2], 1, ti[top - 3], ti[top - 2], ti[top - 1]);
+      tv[top - 3] = tv[top - 1];
+      ti[top - 3] = ti[top - 1];
+      top -= 2;
+    }
+  }
+  free(tv);
+  free(ti);
+}
+
+/* Counts the whole history into `out` (repeating: the residue closed; else half cycles); returns the number of turning points. */
+static long rainflow_count_policy(const double *x, long n, CycleTable *out, int repeating);
+
 static long rainflow_count(const double *x, long n, CycleTable *out) {
-  RainflowStack s = { xmalloc(256 * sizeof(double)), xmalloc(256 * sizeof(double)), 0, 256, out };
+  return rainflow_count_policy(x, n, out, 0);
+}
+
+static long rainflow_count_policy(const double *x, long n, CycleTable *out, int repeating) {
+  RainflowStack s = { xmalloc(256 * sizeof(double)), xmalloc(256 * sizeof(double)), 0, 256, out, repeating };
   long points = 0;
   if (n > 0) {
     double ext = x[0];
@@ -244,11 +299,36 @@ static long rainflow_count(const double *x, long n, CycleTable *out) {
       }
     }
     if (dir != 0) { rainflow_point(&s, ext, (double)ei); points++; } /* the last extreme */
-    for (size_t k = 0; k + 1 < s.top; k++) cycles_add(out, s.v[k], s.v[k + 1], 0.5, s.i[k], s.i[k + 1], s.i[k + 1]);
+    if (repeating) close_repeating_residue(s.v, s.i, s.top, out);
+    else for (size_t k = 0; k + 1 < s.top; k++) cycles_add(out, s.v[k], s.v[k + 1], 0.5, s.i[k], s.i[k + 1], s.i[k + 1]);
   }
   free(s.v);
   free(s.i);
   return points;
+}
+
+/* ------------------------------------------------------------------------------------------ */
+/* The stress-life route: rainflow with the repeat residue, then every cycle on an S-N curve */
+
+/*
+ * Palmgren-Miner damage of the counted cycles on a weld detail curve of the IIW recommendations
+ * (Hobbacher, IIW-2259-15): FAT class `fat` at 2e6 cycles, slope 3 down to the knee at 1e7
+ * cycles, then Haibach's slope 2·3 − 1 = 5 for variable amplitude; the stress amplitude corrected
+ * by Goodman, σar = σa / (1 − σm/Su) for σm >= 0 (unchanged below zero mean). The same equations,
+ * in the same order, as the stress-life suite's literal reference.
+ */
+static double stress_life_damage(const CycleTable *t, double fat, double su) {
+  double knee = fat * pow(2e6 / 1e7, 1.0 / 3.0);
+  double d = 0;
+  for (size_t i = 0; i < t->n; i++) {
+    double sa = t->range[i] / 2, sm = t->mean[i];
+    double sar = sm < 0 ? sa : sa / (1 - sm / su);
+    double r = 2 * sar;
+    if (r == 0) continue;
+    double life = r >= knee ? 2e6 * pow(fat / r, 3) : 1e7 * pow(knee / r, 5);
+    d += t->count[i] / life;
+  }
+  return d;
 }
 
 /* ------------------------------------------------------------------------------------------ */
@@ -869,7 +949,7 @@ static PipelineChecks pipeline(PipelineRun *run, const Material *mat, const doub
 typedef struct {
   const char *history, *stages, *solve;
   Material mat;
-  double trackerKt, pipelineKt, loadToStress, offset, tol;
+  double trackerKt, pipelineKt, loadToStress, offset, tol, stressPeak, fat, ultimate;
   long expCalls;
   int warmup, runs, pipelineWarmup, pipelineRuns;
 } Options;
@@ -893,7 +973,7 @@ static double number_arg(const char *name, const char *v) {
 }
 
 static Options parse(int argc, char **argv) {
-  Options o = { NULL, "scan,exp,rainflow,tracker,pipeline", "newton", { 0, 0, 0, 0, 0, 0, 0 }, 2.5, 2, 1, 0, 1e-10, 10000000, 3, 7, 1, 3 };
+  Options o = { NULL, "scan,exp,rainflow,tracker,pipeline", "newton", { 0, 0, 0, 0, 0, 0, 0 }, 2.5, 2, 1, 0, 1e-10, 300, 90, 600, 10000000, 3, 7, 1, 3 };
   for (int i = 1; i + 1 < argc; i += 2) {
     const char *k = argv[i], *v = argv[i + 1];
     if (!strcmp(k, "--history")) o.history = v;
@@ -912,6 +992,9 @@ static Options parse(int argc, char **argv) {
     else if (!strcmp(k, "--offset")) o.offset = number_arg(k, v);
     else if (!strcmp(k, "--tolerance")) o.tol = number_arg(k, v);
     else if (!strcmp(k, "--exp-calls")) o.expCalls = (long)number_arg(k, v);
+    else if (!strcmp(k, "--stress-peak")) o.stressPeak = number_arg(k, v);
+    else if (!strcmp(k, "--fat")) o.fat = number_arg(k, v);
+    else if (!strcmp(k, "--ultimate")) o.ultimate = number_arg(k, v);
     else if (!strcmp(k, "--warmup")) o.warmup = (int)number_arg(k, v);
     else if (!strcmp(k, "--runs")) o.runs = (int)number_arg(k, v);
     else if (!strcmp(k, "--pipeline-warmup")) o.pipelineWarmup = (int)number_arg(k, v);
@@ -1029,6 +1112,39 @@ int main(int argc, char **argv) {
            "\"sumStartIndex\":%.17g,\"sumCloseIndex\":%.17g}",
            sep, median(times, o.runs), points, rows, totalCount, sumRange, sumStart, sumClose);
     sep = ",";
+  }
+
+  if (has_stage(&o, "stresslife")) {
+    /* the history as MPa: scaled (outside the timed region, the same operations as the JS
+       suite) so that its largest |value| is --stress-peak */
+    double peak = 0;
+    for (long i = 0; i < n; i++) peak = fmax(peak, fabs(x[i]));
+    double *y = xmalloc((size_t)n * sizeof(double));
+    for (long i = 0; i < n; i++) y[i] = (x[i] * o.stressPeak) / peak;
+    size_t rows = 0;
+    long points = 0;
+    double totalCount = 0, damage = 0, countSeconds = 0;
+    double *countTimes = xmalloc((size_t)o.runs * sizeof(double));
+    for (int r = 0; r < o.warmup + o.runs; r++) {
+      CycleTable t;
+      double t0 = now_seconds();
+      cycles_init(&t, 1024);
+      points = rainflow_count_policy(y, n, &t, 1);
+      double t1 = now_seconds();
+      damage = stress_life_damage(&t, o.fat, o.ultimate);
+      double t2 = now_seconds();
+      if (r >= o.warmup) { times[r - o.warmup] = t2 - t0; countTimes[r - o.warmup] = t1 - t0; }
+      rows = t.n;
+      totalCount = 0;
+      for (size_t i = 0; i < t.n; i++) totalCount += t.count[i];
+      cycles_free(&t);
+    }
+    countSeconds = median(countTimes, o.runs);
+    printf("%s\"stresslife\":{\"seconds\":%.9g,\"countSeconds\":%.9g,\"turningPoints\":%ld,\"cycles\":%zu,\"totalCount\":%.17g,\"damage\":%.17g}",
+           sep, median(times, o.runs), countSeconds, points, rows, totalCount, damage);
+    sep = ",";
+    free(countTimes);
+    free(y);
   }
 
   if (has_stage(&o, "tracker")) {

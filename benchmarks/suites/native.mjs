@@ -18,6 +18,12 @@
 //             attribution to events, worst loops, index columns), which the C side does not
 //   flight spectrum   the same pipeline on the engine suite's flight spectrum (every sample a
 //             turning point), reported only
+//   stress-life   the stress-life suite's route on the same history scaled to a largest |value| of
+//             300 MPa: rainflow with the repeat residue (ASTM E1049-85 5.4.5), then every cycle on
+//             IIW FAT 90 with Haibach's slope below the knee and Goodman's correction (Su 600 MPa),
+//             and the Miner sum. Two rows: the JS route (rainflow + stressLifeDamage) like for
+//             like, and assessLife with that job (the engine figure of issue 12, which also builds
+//             its report: loop table, timeline, events, worst loops) against the same C route
 //
 // Two native solve modes, both at the JS tracker's default tolerance (read from the package):
 //   Newton        Neuber: Newton in ln σ from the smaller one-term root, stopped by the error
@@ -49,6 +55,7 @@ import { assessLife } from '@loopwise/engine';
 import { defineMaterial, handbookSteels } from '@loopwise/material';
 import { NotchTracker, trackNotchRepeating } from '@loopwise/notch';
 import { rainflow } from '@loopwise/rainflow';
+import { iiwFatCurve, stressLifeDamage } from '@loopwise/stress-life';
 import { FLIGHT_SPECTRUM_UNITS, flightSpectrum, referenceHistory } from '../../fixtures/generate.mjs';
 
 const N = 1e7;
@@ -192,6 +199,37 @@ export async function run(h) {
     row('rainflow', 'rainflow batch reference history (turning points + four-point, half residue)', jRain, nRain,
       { samples: N, turningPoints: nRain.turningPoints, cycles: nRain.cycles },
       { turningPoints: 'equal', cycles: 'equal', totalCount: 'equal', indices: 'equal', sumRangeRelative: rangeGap }, TARGETS.rainflow),
+  );
+
+  // the stress-life route (issue 12): the history as MPa, scaled the same way on both sides
+  const PEAK = 300;
+  const SU = 600;
+  let peak = 0;
+  for (let i = 0; i < ref.length; i++) peak = Math.max(peak, Math.abs(ref[i]));
+  const stress = ref.map((v) => (v * PEAK) / peak);
+  const curve = iiwFatCurve(90);
+  const meanStress = { method: 'goodman', ultimateStrength: SU };
+  const slArgs = ['--stress-peak', String(PEAK), '--fat', '90', '--ultimate', String(SU)];
+  const nStress = native('stresslife', refPath, slArgs);
+  const slRoute = () => stressLifeDamage(curve, rainflow(stress, { residue: 'repeat' }).cycles.columns(), { meanStress }).damage;
+  const jStressRoute = h.measure(slRoute);
+  const slJob = { stressLife: { curve, meanStress } };
+  const jStressEngine = h.measure(() => assessLife(stress, slJob), { warmup: 1, runs: 3 });
+  const counted = rainflow(stress, { residue: 'repeat' });
+  const sc = counted.cycles.columns();
+  h.check(counted.turningPointCount === nStress.turningPoints, `native stress-life turning points ${nStress.turningPoints} vs ${counted.turningPointCount}`);
+  h.check(sc.count.length === nStress.cycles && sum(sc.count) === nStress.totalCount, `native stress-life cycles ${nStress.cycles} vs ${sc.count.length}`);
+  const slGap = rel(slRoute(), nStress.damage);
+  const slReport = assessLife(stress, slJob);
+  const slEngineGap = rel(slReport.damage.perRepeat, nStress.damage);
+  h.check(slGap <= AGREE && slEngineGap <= AGREE, `native stress-life damage differs: route ${slGap}, engine ${slEngineGap}`);
+  h.check(slReport.loops.count.length === nStress.cycles, `native stress-life cycles ${nStress.cycles} vs the report's ${slReport.loops.count.length}`);
+  const slSizes = { samples: N, turningPoints: nStress.turningPoints, cycles: nStress.cycles, nativeCountSeconds: nStress.countSeconds };
+  rows.push(
+    row('stresslife', 'stress-life route reference history (rainflow repeat residue, IIW FAT 90 Haibach, Goodman, Miner sum)', jStressRoute, nStress, slSizes,
+      { cycles: 'equal', totalCount: 'equal', damageRelative: slGap, damage: nStress.damage }),
+    row('stresslife', 'assessLife stress-life route (the whole report) vs the C route (count and damage only)', jStressEngine, nStress, slSizes,
+      { cycles: 'equal', damageRelative: slEngineGap, damage: slReport.damage.perRepeat }),
   );
 
   // the JS side between the two native solve modes

@@ -86,6 +86,27 @@ describe('turningPoints(history, options)', () => {
     expect(() => turningPoints([0, NaN], { gateFraction: 0.1 })).toThrow(/sample 1 is NaN/);
   });
 
+  test('a NaN anywhere, before or after the first reversal and in any chunk, is named by its index', () => {
+    checkProperty(
+      'NaN index',
+      fc.property(
+        anyHistory(60).filter((h) => h.length > 0).chain((h) => fc.tuple(fc.constant(h), fc.nat(h.length - 1), chunking(h.length))),
+        ([h, at, points]) => {
+          const bad = Float64Array.from(h);
+          bad[at] = NaN;
+          const f = new ReversalFilter();
+          const v = new Float64Array(h.length + 1);
+          const i = new Float64Array(h.length + 1);
+          let n = 0;
+          expect(() => {
+            for (const part of cut(Array.from(bad), points)) n += f.push(part, v, i, n);
+          }).toThrow(new RegExp(`sample ${at} is NaN`));
+        },
+      ),
+      { numRuns: 500 },
+    );
+  });
+
   test('turningPoints with bad gate options names the option', () => {
     expect(() => turningPoints([0, 1], { gate: -1 })).toThrow(InvalidOptionError);
     expect(() => turningPoints([0, 1], { gate: 1, gateFraction: 0.1 })).toThrow(/either gate or gateFraction/);
