@@ -36,6 +36,6 @@ export type { DutyEvent } from './schedule';
 export function assessDutyCycle(events: DutyEvent[], job: LifeJob): LifeReport {
   const resolved = resolveLifeJob(job);
   checkEvents(events);
-  if (resolved.route === 'stress-life') return stressReportFromCounted(countSchedule(events, resolved), reportEvents(events), resolved);
+  if (resolved.route === 'stress-life') return stressReportFromCounted(countSchedule(events, resolved), reportEvents(events), resolved, true);
   return reportFromTracked(trackDutyCycle(events, resolved), reportEvents(events), resolved);
 }

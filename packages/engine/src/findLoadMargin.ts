@@ -132,6 +132,6 @@ function repeatsAt(events: DutyEvent[], job: ResolvedJob, f: number): number {
     fullScale: job.fullScale === undefined ? undefined : job.fullScale * f,
     worstLoopCount: 0,
   };
-  if (j.route === 'stress-life') return stressReportFromCounted(countSchedule(scaled, j), reportEvents(scaled), j).life.repeats;
+  if (j.route === 'stress-life') return stressReportFromCounted(countSchedule(scaled, j), reportEvents(scaled), j, true).life.repeats;
   return reportFromTracked(trackDutyCycle(scaled, j), reportEvents(scaled), j).life.repeats;
 }

@@ -102,11 +102,13 @@ export function reportFromTracked(tracked: TrackedHistory, events: readonly Repo
 /**
  * The report of the stress-life route from a counted schedule: every cycle evaluated on the
  * curve (closed cycles, then the residue's: closed as the schedule repeats, or half cycles of a
- * one-off schedule); the first pass is the closed cycles and the residue's half cycles.
+ * one-off schedule); the first pass is the closed cycles and the residue's half cycles. With
+ * `own` the caller hands `counted.cycles` over to this one report (no copies; see
+ * {@link stressLoopColumns}); a schedule counted once for several reports keeps the default.
  */
-export function stressReportFromCounted(counted: CountedSchedule, events: readonly ReportEvent[], job: ResolvedJob): LifeReport {
+export function stressReportFromCounted(counted: CountedSchedule, events: readonly ReportEvent[], job: ResolvedJob, own = false): LifeReport {
   const starts = counted.eventStarts;
-  const loops = stressLoopColumns(counted.cycles, job, starts);
+  const loops = stressLoopColumns(counted.cycles, job, starts, own);
   const damage = neumaierSum(loops.damage);
   let firstDamage = damage;
   if (job.repeating) {
@@ -176,7 +178,11 @@ export function assembleReport(
   };
 }
 
+/** `a` with negative indices (the initial state's) as 0: `a` itself when it has none. */
 function clampIndex(a: Float64Array): Float64Array {
+  let k = 0;
+  while (k < a.length && !(a[k] < 0)) k++;
+  if (k === a.length) return a;
   const out = new Float64Array(a.length);
   for (let i = 0; i < a.length; i++) out[i] = a[i] < 0 ? 0 : a[i];
   return out;

@@ -1,6 +1,6 @@
 import { damageInto, residueHalfCycles } from '@loopwise/miner';
 import { CycleTable, NonFiniteSampleError, RainflowCounter, type CycleColumns, type CycleSink } from '@loopwise/rainflow';
-import { cycleLivesInto, equivalentAmplitudeInto, StressLifeError } from '@loopwise/stress-life';
+import { cycleLivesInto, cyclesToFailureInto, equivalentAmplitudeInto, StressLifeError } from '@loopwise/stress-life';
 import { EngineError } from './EngineError';
 import type { ResolvedJob, ResolvedStressLife } from './LifeJob';
 import type { LifeLoopColumns, LifeWarning } from './LifeReport';
@@ -196,37 +196,55 @@ export function stressLoopColumns(
   cycles: Pick<CycleColumns, 'from' | 'to' | 'count' | 'startIndex' | 'turnIndex' | 'closeIndex'>,
   job: ResolvedJob,
   starts: readonly number[],
+  own = false,
 ): LifeLoopColumns {
   const s = job.stressLife as ResolvedStressLife;
   const n = cycles.count.length;
   const scale = stressScale(job);
+  // With `own` the caller hands the cycle columns over (nobody reads them afterwards): the count
+  // and index columns become the report's as they are, and `from` / `to` are overwritten with
+  // σmax / σmin; otherwise every column is the report's own copy.
+  const copy = (a: Float64Array) => (own ? a : a.slice()); // slice: one block copy
   const c = emptyColumns(n, {
     strainMax: new Float64Array(0),
     strainMin: new Float64Array(0),
-    count: cycles.count.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
-    startIndex: cycles.startIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
-    turnIndex: cycles.turnIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
-    closeIndex: cycles.closeIndex.slice(), // a copy (slice: one block copy; Float64Array.from iterates)
+    count: copy(cycles.count),
+    startIndex: copy(cycles.startIndex),
+    turnIndex: copy(cycles.turnIndex),
+    closeIndex: copy(cycles.closeIndex),
+    ...(own ? { stressMax: cycles.from, stressMin: cycles.to } : {}),
   });
   if (n === 0) return c;
   // scratch in columns written last: the range in `parameter` (its amplitude is range / 2), the
   // mean in `reversalsToFailure` (2 Nf at the end), so no temporary columns are allocated
   const range = c.parameter;
   const mean = c.reversalsToFailure;
+  const from = cycles.from;
+  const to = cycles.to;
+  const hi = c.stressMax;
+  const lo = c.stressMin;
+  const offset = job.offset;
   for (let i = 0; i < n; i++) {
-    const a = (cycles.from[i] + job.offset) * scale;
-    const b = (cycles.to[i] + job.offset) * scale;
-    c.stressMax[i] = a > b ? a : b;
-    c.stressMin[i] = a > b ? b : a;
-    range[i] = c.stressMax[i] - c.stressMin[i];
-    mean[i] = (c.stressMax[i] + c.stressMin[i]) / 2;
+    const a = (from[i] + offset) * scale;
+    const b = (to[i] + offset) * scale; // both read before hi / lo (which may be from / to) are written
+    const top = a > b ? a : b;
+    const bottom = a > b ? b : a;
+    hi[i] = top;
+    lo[i] = bottom;
+    range[i] = top - bottom;
+    mean[i] = (top + bottom) / 2;
   }
   eventsInto(c.startIndex, c.startEvent, starts);
   eventsInto(c.turnIndex, c.turnEvent, starts);
+  // σar once (the amplitude range / 2, corrected for the mean), then S = σar or 2σar in the
+  // curve's measure is the damage parameter and Nf = N(S): the same numbers as cycleLivesInto
+  // (range·0.5 and range / 2 are one double), without computing σar a second time
+  const k = s.curve.measure === 'range' ? 2 : 1;
   try {
-    cycleLivesInto(s.curve, range, mean, c.cyclesToFailure, { meanStress: s.meanStress });
     for (let i = 0; i < n; i++) c.parameter[i] = range[i] / 2; // in place: range is parameter
     equivalentAmplitudeInto(s.meanStress, c.parameter, mean, c.parameter);
+    if (k !== 1) for (let i = 0; i < n; i++) c.parameter[i] *= k;
+    cyclesToFailureInto(s.curve, c.parameter, c.cyclesToFailure);
   } catch (err) {
     if (err instanceof StressLifeError && err.index !== undefined) {
       const i = err.index;
@@ -240,11 +258,7 @@ export function stressLoopColumns(
     }
     throw err;
   }
-  const k = s.curve.measure === 'range' ? 2 : 1;
-  for (let i = 0; i < n; i++) {
-    c.parameter[i] *= k;
-    c.reversalsToFailure[i] = 2 * c.cyclesToFailure[i];
-  }
+  for (let i = 0; i < n; i++) c.reversalsToFailure[i] = 2 * c.cyclesToFailure[i];
   damageInto(c.count, c.cyclesToFailure, c.damage, job.cutoffCycles === undefined ? {} : { cutoff: { cycles: job.cutoffCycles } });
   return c;
 }
