@@ -67,15 +67,15 @@ export class MemoryGuard {
     const needMB = (samples * channels * HELD_BYTES_PER_SAMPLE) / 1048576;
     if (needMB > this.limitMB / 2) {
       throw new MemoryLimitError(
-        `${file.shown}: ${why} filters forwards and backwards, so it holds every sample of the file in memory: about ${formatMB(needMB)} MB for about ${samples.toPrecision(2)} samples × ${channels} channel(s), above half the limit of ${this.limitMB} MB (--memory-limit); filter the file in parts, or raise the limit if the machine has the memory`,
+        `${file.shown}: ${why} filters forwards and backwards, so it holds every sample of the file in memory: about ${formatMB(needMB)} MB for about ${samples.toPrecision(2)} samples × ${channels} column(s), above half the limit of ${this.limitMB} MB (--memory-limit); filter the file in parts, or raise the limit if the machine has the memory`,
       );
     }
   }
 }
 
 /**
- * Bytes per sample and channel that the zero-phase low-pass of a streamed file holds: the
- * channel as a Float64Array (8), and as much again while the array grows by doubling.
+ * Bytes per sample and column that the zero-phase low-pass of a streamed file holds: each
+ * channel (and the time column) as a Float64Array (8), and as much again while it grows by doubling.
  */
 export const HELD_BYTES_PER_SAMPLE = 16;
 

@@ -322,32 +322,38 @@ const HELD_CHUNK = 65536;
 
 /**
  * The zero-phase low-pass of a streamed file: the first read holds every channel's samples in
- * memory (8 bytes a sample and channel, growing by doubling; the command checks the file's size
- * against its memory limit first and its memory guard stops the read beyond it), finds the sample
- * rate (given, or 1 / the mean step of an evenly stepped time column), filters each channel in
- * place (`zeroPhaseLowPassInto` of @loopwise/signal) and hands it on; every read after it hands
- * on the filtered samples from memory. The time column is not handed on from memory.
+ * memory with the time column, if any (8 bytes a sample and column, growing by doubling; the
+ * command checks the file's size against its memory limit first and its memory guard stops the
+ * read beyond it), finds the sample rate (given, or 1 / the mean step of an evenly stepped time
+ * column), filters each channel in place (`zeroPhaseLowPassInto` of @loopwise/signal) and hands
+ * it on; every read after it hands on the filtered samples from memory.
  */
 function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: CorrectionRecord[][]): Read {
   const lp = job.lowPass!;
-  let held: { report: IngestReport; channels: Float64Array[]; length: number } | null = null;
+  let held: { report: IngestReport; channels: Float64Array[]; time: Float64Array | null; length: number } | null = null;
   return async (options) => {
     if (held === null) {
       let length = 0;
       let channels = ctx.options.channels.map(() => new Float64Array(HELD_CHUNK));
+      // the time column too, when the chunks carry one (a caller may draw against it)
+      let time: Float64Array | null = null;
       const report = await read({
         ...options,
         stopAfterSamples: undefined,
         onChunk: (chunk) => {
+          if (length === 0 && chunk.time !== null) time = new Float64Array(channels[0].length);
           if (length + chunk.length > channels[0].length) {
             const grown = Math.max(length + chunk.length, 2 * channels[0].length);
-            channels = channels.map((v) => {
+            const grow = (v: Float64Array) => {
               const w = new Float64Array(grown);
               w.set(v.subarray(0, length));
               return w;
-            });
+            };
+            channels = channels.map(grow);
+            if (time !== null) time = grow(time);
           }
           chunk.channels.forEach((v, k) => channels[k].set(v.subarray(0, chunk.length), length));
+          if (time !== null && chunk.time !== null) time.set(chunk.time.subarray(0, chunk.length), length);
           length += chunk.length;
           ctx.check(() => `while holding ${options.name ?? 'the file'} in memory for ${settingName(job, 'lowPass', 'low-pass')} (sample ${length})`);
           ctx.progress?.(length, 3);
@@ -362,7 +368,7 @@ function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: C
         records[k].push(correction);
         return x;
       });
-      held = { report, channels, length };
+      held = { report, channels, time: time === null ? null : (time as Float64Array).subarray(0, length), length };
     }
     const h = held;
     const onChunk = options.onChunk;
@@ -370,7 +376,7 @@ function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: C
       const end = options.stopAfterSamples === undefined ? h.length : Math.min(h.length, options.stopAfterSamples);
       for (let first = 0; first < end; first += HELD_CHUNK) {
         const m = Math.min(HELD_CHUNK, h.length - first);
-        onChunk({ firstSample: first, length: m, channels: h.channels.map((v) => v.subarray(first, first + m)), time: null });
+        onChunk({ firstSample: first, length: m, channels: h.channels.map((v) => v.subarray(first, first + m)), time: h.time === null ? null : h.time.subarray(first, first + m) });
       }
     }
     return h.report;

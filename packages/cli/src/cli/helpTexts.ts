@@ -64,7 +64,7 @@ Corrections of the signal (applied in this order before counting; every output l
   --low-pass <Hz>          zero-phase Butterworth low-pass (forwards and backwards) with this
                            cut-off, below half the sample rate (--sample-rate, or a time column
                            with even steps); --low-pass-order <n> per pass, 1 … 16 (default 2).
-                           Holds the file's channels in memory (16 bytes a sample and channel;
+                           Holds the channels in memory (16 bytes a sample, channel and time column;
                            refused above half of --memory-limit)
   --scatter-factor <x>     design life = life / x (default 1)
   --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
