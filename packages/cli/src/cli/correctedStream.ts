@@ -337,9 +337,13 @@ function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: C
       let channels = ctx.options.channels.map(() => new Float64Array(HELD_CHUNK));
       // the time column too, when the chunks carry one (a caller may draw against it)
       let time: Float64Array | null = null;
+      // the report every read returns from here on: read with the signal checks on whatever the
+      // first caller asked (a range pre-read asks none), so the warnings are there
+      const { checks: _checks, stopAfterSamples: _stop, ...whole } = options;
+      void _checks;
+      void _stop;
       const report = await read({
-        ...options,
-        stopAfterSamples: undefined,
+        ...whole,
         onChunk: (chunk) => {
           if (length === 0 && chunk.time !== null) time = new Float64Array(channels[0].length);
           if (length + chunk.length > channels[0].length) {

@@ -1,5 +1,6 @@
 import type { CorrectionKind, CorrectionRecord } from '@loopwise/signal';
 import { channelConversion } from '@loopwise/ingest';
+import { formatNumber } from '../report/formatNumber.js';
 import { UsageError } from './CliError';
 import type { CliChannel, CliJob } from './CliJob';
 
@@ -133,7 +134,7 @@ export function offsetRecord(c: CliChannel, own: number, samples: number, mean: 
     samples > 0 ? [0, samples] : [],
     samples,
     { offset: own, unit, method: mean ? 'mean' : 'given' },
-    `offset ${own} ${unit} subtracted from ${samples} samples (${mean ? 'the mean of the samples assessed' : 'as given'})`,
+    `offset ${formatNumber(own, 6)} ${unit} subtracted from ${samples} samples (${mean ? 'the mean of the samples assessed' : 'as given'})`,
   );
 }
 

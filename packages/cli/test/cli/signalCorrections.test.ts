@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { assessDutyCycle, assessLife, type LifeJob } from '@loopwise/engine';
 import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { handbookSteels } from '@loopwise/material';
+import { hotSpotStress, iiwFatCurve } from '@loopwise/stress-life';
 import { excludeRanges, removeOffset, zeroPhaseLowPass, type SampleRange, type TimeRange, type TimeBase } from '@loopwise/signal';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, test } from 'vitest';
@@ -102,6 +103,8 @@ describe('--subtract-offset', () => {
     const byMean = assessLife(removeOffset(strain).values, job);
     expect(relative(mean.json.channels[0].report.life.repeats, byMean.life.repeats)).toBeLessThanOrEqual(1e-12);
     expect(mean.json.channels[0].signalCorrections[0].summary).toMatch(/^offset 1\d\d\.\d+ µε subtracted from 12000 samples \(the mean of the samples assessed\)$/);
+    // the record keeps the mean's every digit
+    expect(mean.json.channels[0].signalCorrections[0].parameters.offset).toBe(removeOffset(strain).offset * 1e6);
     // the offset changes the means, not the ranges: the life differs from the one as measured
     const asIs = await assess('g.csv', []);
     expect(asIs.json.channels[0].report.life.repeats).not.toBe(mean.json.channels[0].report.life.repeats);
@@ -169,6 +172,31 @@ describe('--low-pass', () => {
     const want = assessDutyCycle([{ name: 'run', history: corrected, repeats: 2 }], job);
     expect(relative(j.channels[0].report.life.repeats, want.life.repeats)).toBeLessThanOrEqual(1e-12);
     expect(j.channels[0].signalCorrections.map((c: { summary: string }) => c.summary.slice(0, 10))).toEqual(['event run:', 'event run:']);
+  });
+
+  test('with a gate fraction (a first read for the range) the low-pass still reports the signal checks; a hot-spot channel is corrected as one', async () => {
+    // a file with three one-sample spikes (the signal checks warn about them)
+    const spiky = gauge.map((v, i) => ([2000, 7000, 9999].includes(i) ? v + 4000 : v));
+    writeFileSync(join(dir, 'spiky.csv'), 'gauge_ue\n' + spiky.map((v) => v.toFixed(2)).join('\n') + '\n');
+    const r = await assess('spiky.csv', ['--sample-rate', String(rate), '--low-pass', '40', '--gate-fraction', '0.01']);
+    expect(r.stderr).toBe('');
+    expect(r.json.warnings.some((w: { code: string }) => w.code === 'spike')).toBe(true);
+    const filtered = zeroPhaseLowPass(Float64Array.from(spiky, (v) => v / 1e6), { cutoff: 40, sampleRate: rate }).values;
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const v of filtered) [lo, hi] = [Math.min(lo, v), Math.max(hi, v)];
+    const want = assessLife(filtered, { ...job, gate: 0.01 * (hi - lo) });
+    expect(relative(r.json.channels[0].report.life.repeats, want.life.repeats)).toBeLessThanOrEqual(1e-12);
+    // two stress gauges at the IIW points: the hot-spot stress (typeALinear: 1.67 a − 0.67 b) less 20 MPa
+    writeFileSync(join(dir, 'weld.csv'), 'a_MPa,b_MPa\n' + gauge.map((v, i) => `${(v / 10).toFixed(2)},${(gauge[(i + 7) % n] / 12).toFixed(2)}`).join('\n') + '\n');
+    const hot = await cli(['assess', join(dir, 'weld.csv'), '--column', 'a_MPa', '--column', 'b_MPa', '--sn-curve', 'iiw:71', '--hot-spot', 'typeALinear', '--mean-stress', 'goodman', '--ultimate-strength', '500', '--subtract-offset', '20', '--json']);
+    expect(hot.stderr).toBe('');
+    const h = JSON.parse(hot.stdout).channels[0];
+    expect(h.signalCorrections[0]).toMatchObject({ kind: 'offset-removed', parameters: { offset: 20, unit: 'MPa' } });
+    const a = gauge.map((v) => Number((v / 10).toFixed(2)));
+    const b = gauge.map((_, i) => Number((gauge[(i + 7) % n] / 12).toFixed(2)));
+    const byHand = assessLife(removeOffset(hotSpotStress('typeALinear', [a, b]), { offset: 20 }).values, { stressLife: { curve: iiwFatCurve(71), meanStress: { method: 'goodman', ultimateStrength: 500 } } });
+    expect(relative(h.report.life.repeats, byHand.life.repeats)).toBeLessThanOrEqual(1e-12);
   });
 
   test('margin searches the corrected samples (a cut and the low-pass)', async () => {
