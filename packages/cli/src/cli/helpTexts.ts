@@ -51,6 +51,9 @@ Model:
   --mean-stress <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
   --gate <x>               gate range in the channel's unit; or --gate-fraction <f> [--full-scale <x>]
   --one-off                the history does not repeat (open loops count as half cycles)
+  --scatter-factor <x>     design life = life / x (default 1)
+  --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
+  --critical-damage <x>    damage sum at failure (default 1)
 Corrections of the signal (applied in this order before counting; every output lists them):
   --interpolate-spikes     the one-sample spikes the signal checks find replaced by the line
                            between their neighbours (one more read; the output says which)
@@ -66,9 +69,6 @@ Corrections of the signal (applied in this order before counting; every output l
                            with even steps); --low-pass-order <n> per pass, 1 … 16 (default 2).
                            Holds the channels in memory (16 bytes a sample, channel and time column;
                            refused above half of --memory-limit)
-  --scatter-factor <x>     design life = life / x (default 1)
-  --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
-  --critical-damage <x>    damage sum at failure (default 1)
 Stress-life route (an S-N curve instead of the strain-life model; no material needed):
   --sn-curve <spec>        iiw:<FAT>[,shear][,constant][,below-knee=…][,gamma-m=<x>],
                            en1993:<category>[,shear][,constant][,gamma-mf=<x>][,gamma-ff=<x>],

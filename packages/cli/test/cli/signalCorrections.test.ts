@@ -258,6 +258,13 @@ describe('bad settings are refused, naming the option or the job field', () => {
     });
   }
 
+  test('the low-pass refuses, before reading, a file whose held channels would pass half the memory limit', async () => {
+    writeFileSync(join(dir, 'big.csv'), 'gauge_ue\n' + Array.from({ length: 60000 }, (_, i) => gauge[i % n].toFixed(2)).join('\n') + '\n');
+    const r = await cli(['assess', join(dir, 'big.csv'), ...base, '--sample-rate', '500', '--low-pass', '20', '--memory-limit', '1']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/big\.csv: --low-pass filters forwards and backwards, so it holds every sample of the file in memory: about 0\.9\d MB for about 6\.0e\+4 samples × 1 column\(s\), above half the limit of 1 MB \(--memory-limit\)/);
+  });
+
   test('a duty cycle refuses cuts and the mean', async () => {
     const events = [{ name: 'run', file: 'g.csv', repeats: 1 }];
     for (const [fields, message] of [
