@@ -115,7 +115,7 @@ export function recordOf(kind: CorrectionKind, places: readonly number[], sample
   return Object.freeze({ kind, first, length, samples, parameters: Object.freeze({ ...parameters }), summary });
 }
 
-/** The record of spikes interpolated at these sample numbers (adjacent ones as one place). */
+/** The record of spikes interpolated at these sample numbers (adjacent ones as one place), in the words of @loopwise/signal's removeSpikes. */
 export function spikeRecord(spikes: Float64Array): CorrectionRecord {
   const places: number[] = [];
   for (const i of spikes) {
@@ -123,7 +123,7 @@ export function spikeRecord(spikes: Float64Array): CorrectionRecord {
     if (m > 0 && places[m - 2] + places[m - 1] === i) places[m - 1]++;
     else places.push(i, 1);
   }
-  return recordOf('spikes-interpolated', places, spikes.length, { method: 'straight line between the neighbours' }, `${spikes.length} spike(s) interpolated between their neighbours, first at sample ${spikes[0]}`);
+  return recordOf('spikes-interpolated', places, spikes.length, { method: 'linear interpolation' }, `${places.length / 2} spike(s) interpolated (${spikes.length} samples), first at sample ${spikes[0]}`);
 }
 
 /** The record of a given or mean offset subtracted from `samples` samples; `own` is the offset in the channel's unit. */
