@@ -170,6 +170,7 @@ function showFields(): void {
   for (const el of document.querySelectorAll<HTMLElement>('.strain-only')) el.hidden = route !== 'strain';
   $<HTMLFieldSetElement>('notch-set').disabled = quantities.length > 0 && quantities.every((q) => q === 'strain');
   for (const el of document.querySelectorAll<HTMLElement>('.rate-only')) el.hidden = $<HTMLSelectElement>('time').value !== 'rate';
+  for (const el of document.querySelectorAll<HTMLElement>('.offset-given')) el.hidden = $<HTMLSelectElement>('subtract-offset').value !== 'given';
   const src = $<HTMLSelectElement>('material-source').value;
   for (const kind of ['handbook', 'constants', 'su', 'hardness']) for (const el of document.querySelectorAll<HTMLElement>(`.src-${kind}`)) el.hidden = kind !== src;
 }
@@ -179,7 +180,7 @@ $('file').addEventListener('change', () => {
   const list = [...($<HTMLInputElement>('file').files ?? [])];
   if (list.length > 0) void takeFiles(list);
 });
-for (const id of ['time', 'material-source', 'route']) $(id).addEventListener('change', showFields);
+for (const id of ['time', 'material-source', 'route', 'subtract-offset']) $(id).addEventListener('change', showFields);
 
 // a material file (the command's `material --out`, or any JSON with the constants) fills the
 // constants' fields; the job then carries them inline, as typed ones
@@ -343,6 +344,19 @@ function showResult(channels: ChannelView[]): void {
     row('Design life', designLifeText(life), 'design', life.designRepeats);
     row('Damage per repeat', `${formatNumber(c.report.damage.perRepeat)} (first pass ${formatNumber(c.report.damage.firstPass)})`, 'damage', c.report.damage.perRepeat);
     box.append(dl);
+    const fixed = el('div', undefined, 'signal-corrections');
+    if (c.signalCorrections.length === 0) fixed.textContent = 'Corrections of the signal: none (the samples as measured)';
+    else {
+      fixed.append(el('strong', 'Corrections of the signal, in order: '));
+      const ol = el('ol');
+      for (const k of c.signalCorrections) {
+        const li = el('li', k.summary);
+        li.dataset.kind = k.kind;
+        ol.append(li);
+      }
+      fixed.append(ol);
+    }
+    box.append(fixed);
     box.append(el('p', `Caution: ${CAUTION}`, 'caution'));
     lives.append(box);
     if (c.corrections) {

@@ -37,6 +37,9 @@ const LABELS: Record<string, string> = {
   'ultimate-strength': 'Ultimate strength',
   'skip-lines': 'Preamble lines',
   'sn-curve': 'S-N curve',
+  'offset-amount': 'Offset to subtract',
+  'low-pass': 'Low-pass cut-off',
+  'low-pass-order': 'Low-pass order',
 };
 
 /** The label of an event field (`event-repeats-0` → 'Repeats of event 1'). */
@@ -146,6 +149,22 @@ export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile
   if (critical !== undefined) job.criticalDamage = critical;
   job.repeating = form.repeating !== 'no';
   if (form.spikes === 'interpolate') job.interpolateSpikes = true;
+  const samplesCut = rangesOf(form, 'exclude-samples', 'Cut out samples');
+  if (samplesCut.length > 0) {
+    for (const [a, b] of samplesCut) {
+      if (!(Number.isInteger(a) && a >= 0 && Number.isInteger(b) && b >= 0)) throw new FormError('exclude-samples', `Cut out samples: ${a}..${b}: sample numbers are whole numbers from 0`);
+    }
+    job.excludeSamples = samplesCut.map(([first, last]) => ({ first, last }));
+  }
+  const timesCut = rangesOf(form, 'exclude-time', 'Cut out times');
+  if (timesCut.length > 0) job.excludeTimes = timesCut.map(([startTime, endTime]) => ({ startTime, endTime }));
+  if (form['subtract-offset'] === 'mean') job.subtractOffset = 'mean';
+  else if (form['subtract-offset'] === 'given') job.subtractOffset = number(form, 'offset-amount');
+  const cutoff = number(form, 'low-pass', true);
+  if (cutoff !== undefined) {
+    const order = number(form, 'low-pass-order', true);
+    job.lowPass = order === undefined ? { cutoffHz: cutoff } : { cutoffHz: cutoff, order };
+  }
   job.scatterFactor = number(form, 'scatter-factor');
   const amount = number(form, 'service-amount', true);
   const unit = (form['service-unit'] ?? '').trim();
@@ -155,6 +174,21 @@ export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile
     job.service = amount !== undefined ? { unit, perRepeat: amount } : { unit };
   }
   return job;
+}
+
+/** Ranges typed as `from..to`, commas between them (empty: none), the field named in the error. */
+function rangesOf(form: FormText, id: string, label: string): [number, number][] {
+  const text = (form[id] ?? '').trim();
+  if (text === '') return [];
+  return text.split(',').map((part) => {
+    const cut = part.indexOf('..');
+    const from = cut < 0 ? '' : part.slice(0, cut).trim();
+    const to = cut < 0 ? '' : part.slice(cut + 2).trim();
+    const a = from === '' ? NaN : Number(from);
+    const b = to === '' ? NaN : Number(to);
+    if (!Number.isFinite(a) || !Number.isFinite(b)) throw new FormError(id, `${label}: expected from..to (e.g. 1000..1999), got "${part.trim()}"`);
+    return [a, b];
+  });
 }
 
 function materialOf(form: FormText): MaterialSpec | undefined {

@@ -14,11 +14,13 @@ export interface ChannelView {
   report: Omit<ChannelResult['report'], 'loops' | 'inputs'>;
   corrections: ChannelResult['corrections'];
   signalWarnings: { kind: string; message: string }[];
+  /** The corrections applied to the signal before counting, in order (kind and one line each); empty: as measured. */
+  signalCorrections: { kind: string; summary: string }[];
   matrix: HtmlMatrix | null;
   /** Every sample of the channel in its engine unit, and its envelope pyramid, for the history plot. */
   values: Float32Array;
   levels: EnvelopeLevel[];
-  /** Samples per second when the job gives a sample rate (for the time axis), else null. */
+  /** Samples per second when the job gives a sample rate (for the time axis; null after a cut, whose joined samples are no longer evenly timed), else null. */
   sampleRate: number | null;
   /** The worst loops drawn from the material model (Masing branches between their corners), by rank; null on the stress-life route or without a cyclic curve. */
   hysteresis: { strain: Float64Array; stress: Float64Array; share: number }[] | null;

@@ -140,6 +140,7 @@ async function run(files: File[], jobFile: JobFile): Promise<void> {
       },
     });
   }
+  const cut = (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0;
   const times = time ? time.values.slice(0, time.length) : null;
   if (times) transferLater.push(times.buffer);
   const html = await htmlChannelsOf(got);
@@ -164,10 +165,12 @@ async function run(files: File[], jobFile: JobFile): Promise<void> {
       hysteresis: hysteresis?.map(({ strain, stress, share }) => ({ strain, stress, share })) ?? null,
       corrections: r.corrections,
       signalWarnings: signalWarningsOf(r),
+      signalCorrections: r.signalCorrections.map((c) => ({ kind: c.kind, summary: c.summary })),
       matrix: html[k].matrix,
       values,
       levels,
-      sampleRate: job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : null,
+      // after a cut the joined samples are not evenly timed: the plot's axis is then the sample number
+      sampleRate: job.time !== undefined && 'sampleRate' in job.time && !cut ? job.time.sampleRate : null,
       time: times,
       eventStarts,
     };

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { assessDutyCycle, assessLife } from '@loopwise/engine';
 import { handbookSteels } from '@loopwise/material';
+import { excludeRanges, removeOffset, zeroPhaseLowPass } from '@loopwise/signal';
 import { iiwFatCurve } from '@loopwise/stress-life';
 import { main } from '../../cli/src/cli/main';
 import type { Page } from 'playwright';
@@ -254,6 +255,34 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     expect((await page.textContent('#warnings')) ?? '').toMatch(/4 spike\(s\) interpolated between their neighbours/);
     const json = JSON.parse((await exportsEqualTheCommand(page, 'spiky.csv')).toString('utf8'));
     expect(json.results[0].repeats).toBe(fixed);
+    await context.close();
+  }, 120_000);
+
+  test('corrections chosen on the page (cuts, the mean, the low-pass): the life equals assessLife of @loopwise/signal\'s corrected samples, the page lists them, and the exported job file reruns in the command to the same bytes', async () => {
+    const { page, context } = await open();
+    await assess(page, 'rig-run.csv', { handbook: STEEL, 'exclude-samples': '1000..4999', 'exclude-time': '100..150', 'subtract-offset': 'mean', 'low-pass': '20', 'low-pass-order': '2' });
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    const listed = await page.$$eval('#lives .signal-corrections li', (li) => li.map((e) => (e as HTMLElement).dataset.kind));
+    expect(listed).toEqual(['ranges-excluded', 'offset-removed', 'low-pass']);
+    const json = JSON.parse((await exportsEqualTheCommand(page, 'rig-run.csv')).toString('utf8'));
+    const job = JSON.parse((await download(page, '#export-job')).toString('utf8'));
+    expect(job).toMatchObject({ excludeSamples: [{ first: 1000, last: 4999 }], excludeTimes: [{ startTime: 100, endTime: 150 }], subtractOffset: 'mean', lowPass: { cutoffHz: 20, order: 2 } });
+    // by hand: the file's time column (0.005 s steps, as written), the library's corrections in
+    // the same order, the sample rate the low-pass ran at (1 / the column's mean step)
+    const t = Float64Array.from(strain, (_, i) => Number((i / 200).toFixed(3)));
+    const { segments } = excludeRanges(strain.map((v) => v / 1e6), [{ first: 1000, last: 4999 }, { startTime: 100, endTime: 150 }], { timeBase: t });
+    const joined = new Float64Array(segments.reduce((a, g) => a + g.values.length, 0));
+    segments.reduce((at, g) => (joined.set(g.values, at), at + g.values.length), 0);
+    const rate = json.channels[0].signalCorrections[2].parameters.sampleRate;
+    expect(Math.abs(rate - 200)).toBeLessThan(1e-9);
+    const corrected = zeroPhaseLowPass(removeOffset(joined).values, { cutoff: 20, sampleRate: rate, order: 2 }).values;
+    const want = assessLife(corrected, { material: handbookSteels.find((m) => m.name === STEEL)!, input: 'local-strain', meanStress: 'smithWatsonTopper' });
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    // a cut-off at the Nyquist frequency is refused with the setting named
+    await page.fill('#low-pass', '100');
+    await page.click('#run');
+    await page.waitForFunction(() => ['done', 'error'].includes(document.body.dataset.state ?? ''), undefined, { timeout: 60_000 });
+    expect(await page.textContent('#status')).toMatch(/lowPass\.cutoffHz: the cut-off 100 Hz must lie below half the sample rate/);
     await context.close();
   }, 120_000);
 

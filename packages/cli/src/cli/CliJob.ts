@@ -89,6 +89,46 @@ export interface CliJob {
   timeSecondsPerUnit?: number;
   /** Replace the one-sample spikes the signal checks find by the line between their neighbours before assessing (a single file). */
   interpolateSpikes?: boolean;
+  /**
+   * Sample ranges cut out of every channel before counting (sample numbers from 0 as the reports
+   * give them, both ends included, in increasing order without overlap); the history is joined
+   * across each cut. A single file only.
+   */
+  excludeSamples?: SampleCut[];
+  /**
+   * Time ranges cut out likewise: every sample with startTime <= t <= endTime, t in the time
+   * column's own unit (as written in the file: ms for a column in ms), or seconds with a sample
+   * rate. A single file only.
+   */
+  excludeTimes?: TimeCut[];
+  /**
+   * Subtracted from every sample of every channel before counting, in the channel's own unit
+   * (µε for a microstrain channel), or `'mean'`: each channel's mean (of the samples kept, a first
+   * read finds it; a single file only). Unlike `offset`, which is added.
+   */
+  subtractOffset?: number | 'mean';
+  /** A zero-phase Butterworth low-pass of every channel (forward and backward; the whole channel is held in memory). */
+  lowPass?: LowPassAsked;
+}
+
+/** A range of samples to cut out: sample numbers from 0, both ends included. */
+export interface SampleCut {
+  first: number;
+  last: number;
+}
+
+/** A range of time to cut out: both ends included, in the time column's unit (seconds with a sample rate). */
+export interface TimeCut {
+  startTime: number;
+  endTime: number;
+}
+
+/** The low-pass a job asks for. */
+export interface LowPassAsked {
+  /** Cut-off frequency, Hz; below half the sample rate. */
+  cutoffHz: number;
+  /** Butterworth order of each pass, a whole number 1 … 16; default 2. */
+  order?: number;
 }
 
 /** The job file format (JSON). Relative paths are read from the job file's folder. */
@@ -116,6 +156,10 @@ export interface JobFile {
   initial?: number;
   offset?: number;
   interpolateSpikes?: boolean;
+  excludeSamples?: SampleCut[];
+  excludeTimes?: TimeCut[];
+  subtractOffset?: number | 'mean';
+  lowPass?: LowPassAsked;
 }
 
 /**

@@ -56,7 +56,28 @@ export class MemoryGuard {
       );
     }
   }
+
+  /**
+   * Refuses to hold a streamed file's channels in memory (the zero-phase low-pass, `why`) when
+   * the estimate from the file's size exceeds half the limit (the other half for the rest of the
+   * run): {@link HELD_BYTES_PER_SAMPLE} a sample and channel.
+   */
+  checkHeld(file: { path: string; shown: string }, channels: number, why: string): void {
+    const samples = estimateRows(file.path);
+    const needMB = (samples * channels * HELD_BYTES_PER_SAMPLE) / 1048576;
+    if (needMB > this.limitMB / 2) {
+      throw new MemoryLimitError(
+        `${file.shown}: ${why} filters forwards and backwards, so it holds every sample of the file in memory: about ${formatMB(needMB)} MB for about ${samples.toPrecision(2)} samples × ${channels} column(s), above half the limit of ${this.limitMB} MB (--memory-limit); filter the file in parts, or raise the limit if the machine has the memory`,
+      );
+    }
+  }
 }
+
+/**
+ * Bytes per sample and column that the zero-phase low-pass of a streamed file holds: each
+ * channel (and the time column) as a Float64Array (8), and as much again while it grows by doubling.
+ */
+export const HELD_BYTES_PER_SAMPLE = 16;
 
 /** A run that would exceed its memory limit (exit 2: the input is too large for the route). */
 export class MemoryLimitError extends UsageError {

@@ -1,12 +1,14 @@
 import { assessDutyCycle, compareCorrections, type DutyEvent } from '@loopwise/engine';
 import type { IngestReport, ReaderOptions } from '@loopwise/ingest';
-import { removeSpikes } from '@loopwise/signal';
+import { removeOffset, removeSpikes, zeroPhaseLowPass, type CorrectionRecord } from '@loopwise/signal';
 import { UsageError } from './CliError';
 import type { CliEvent, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
 import type { ChannelResult } from './assessStream';
 import { inOwnUnit, lifeJobOf, mainCorrection, unitLabel, withoutLoops } from './lifeJobOf';
 import { interpolatedWarning } from './spikeInterpolation';
+import { checkCutoff, DEFAULT_LOW_PASS_ORDER, ofEvent, offsetInEngineUnit, offsetRecord, settingName } from './signalCorrections';
+import { timeBaseOf } from './timeBase';
 
 /**
  * Reads one event's file whole, with these options (channels, name, time, dialect), into one
@@ -34,10 +36,10 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
   if (events === null || events.length === 0) throw new UsageError('events: a duty cycle needs at least one event');
   const main = mainCorrection(job);
   const keepLoops = settings.keepLoops ?? true;
-  const got: Awaited<ReturnType<EventRead>>[] = [];
+  const got: CorrectedEvent[] = [];
   for (const e of events) {
     const r = await read(e, { channels: job.channels, name: e.shown ?? e.file, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) });
-    got.push(job.interpolateSpikes ? interpolatedEvent(r) : r);
+    got.push(correctedEvent(r, job, e.name));
   }
   settings.check?.(() => 'after reading the events');
   return job.channels.map((c, k) => {
@@ -64,21 +66,63 @@ export async function assessEvents(job: CliJob, read: EventRead, settings: Event
       loops: keepLoops ? full.loops : null,
       curveLabel: job.stressLife?.label ?? null,
       loopStream: null,
+      signalCorrections: got.flatMap((g) => g.records[k]),
     };
   });
 }
 
+/** An event read whole, its channels corrected as the job asks, and the records of each channel's corrections (said for the event). */
+export type CorrectedEvent = Awaited<ReturnType<EventRead>> & { records: CorrectionRecord[][] };
+
+/**
+ * An event read whole with the corrections a duty cycle takes, each by @loopwise/signal's function
+ * on the whole channel: the flagged spikes interpolated ({@link interpolatedEvent}), a given offset
+ * subtracted (`removeOffset`), the zero-phase low-pass (`zeroPhaseLowPass`, at the sample rate
+ * given or of the event's evenly stepped time column). Cuts and the mean are refused for duty
+ * cycles before anything is read (checkSignalCorrections).
+ */
+export function correctedEvent(r: Awaited<ReturnType<EventRead>>, job: CliJob, event: string): CorrectedEvent {
+  const spiked = job.interpolateSpikes ? interpolatedEvent(r) : { ...r, records: r.channels.map(() => []) };
+  const records = spiked.records.map((list) => list.map((c) => ofEvent(c, event)));
+  let channels = spiked.channels;
+  const given = job.subtractOffset;
+  if (typeof given === 'number') {
+    channels = channels.map((v, k) => {
+      const c = job.channels[k];
+      records[k].push(ofEvent(offsetRecord(c, given, v.length, false), event));
+      return removeOffset(v, { offset: offsetInEngineUnit(c, given) }).values;
+    });
+  }
+  const lp = job.lowPass;
+  if (lp !== undefined) {
+    const base = job.time !== undefined && 'sampleRate' in job.time ? null : timeBaseOf(r.report, job.timeSecondsPerUnit);
+    const rate = job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : base !== null && base.step > 0 ? 1 / base.step : null;
+    if (rate === null) throw new UsageError(`${settingName(job, 'lowPass', 'low-pass')}: needs the sample rate, and the time column of event ${event} does not give one (its steps are not even, or time does not increase)`);
+    checkCutoff(job, rate);
+    channels = channels.map((v, k) => {
+      const f = zeroPhaseLowPass(v, { cutoff: lp.cutoffHz, sampleRate: rate, order: lp.order ?? DEFAULT_LOW_PASS_ORDER });
+      records[k].push(ofEvent(f.correction, event));
+      return f.values;
+    });
+  }
+  return { ...spiked, channels, records };
+}
+
 /**
  * An event read whole with its flagged one-sample spikes on the line between their neighbours
- * (`removeSpikes` of @loopwise/signal, the library's correction), and a warning saying so.
+ * (`removeSpikes` of @loopwise/signal, the library's correction), a warning saying so, and the
+ * library's record of each channel's correction.
  */
-export function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): Awaited<ReturnType<EventRead>> {
+export function interpolatedEvent(r: Awaited<ReturnType<EventRead>>): CorrectedEvent {
   const warnings = [...r.report.warnings];
+  const records: CorrectionRecord[][] = r.channels.map(() => []);
   const channels = r.channels.map((v, k) => {
     const s = r.report.artefacts?.[k]?.spikes;
     if (s === undefined || s.length === 0) return v;
     warnings.push(interpolatedWarning(r.report.channels[k].name, s));
-    return removeSpikes(v, s).values;
+    const fixed = removeSpikes(v, s);
+    records[k].push(fixed.correction);
+    return fixed.values;
   });
-  return { ...r, channels, report: { ...r.report, warnings } };
+  return { ...r, channels, report: { ...r.report, warnings }, records };
 }

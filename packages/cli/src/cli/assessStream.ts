@@ -1,11 +1,13 @@
 import { LifeSession, type LifeJob, type CorrectionResult, type LifeReport, type LifeLoopColumns } from '@loopwise/engine';
 import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
+import type { CorrectionRecord } from '@loopwise/signal';
 import type { CliChannel, CliCorrection, CliJob } from './CliJob';
 import { DisplayHistory } from '../report/displayHistory';
 import { correctionOf, correctionsOf, inOwnUnit, lifeJobOf, mainCorrection, unitLabel } from './lifeJobOf';
 import { ArtefactStudy, FlaggedSamples, type ArtefactFigures } from './artefactStudy';
 import { serviceFromTime, timeBaseOf, withHours, type TimeBase } from './timeBase';
-import { interpolatedWarning, spikeInterpolatedReader } from './spikeInterpolation';
+import { interpolatedWarning } from './spikeInterpolation';
+import { correctedStream } from './correctedStream';
 import { LoopSpool } from './LoopSpool';
 import type { SpoolStore } from './SpoolStore';
 
@@ -29,6 +31,12 @@ export interface ChannelResult {
   artefactStudy?: ArtefactFigures;
   /** The file's time base as a uniform step (a single file with a sample rate or an even time column). */
   timeBase?: TimeBase | null;
+  /**
+   * The corrections applied to the channel's samples before counting, in the order applied
+   * (@loopwise/signal's records: spikes interpolated, ranges cut out, offset subtracted,
+   * low-pass); empty: the samples as measured.
+   */
+  signalCorrections: CorrectionRecord[];
   /** Where each event of a duty cycle starts in the schedule (sample index), for the history plot. */
   eventStarts?: { name: string; index: number }[];
 }
@@ -80,15 +88,11 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
   const name = job.fileShown ?? job.file ?? 'the file';
   const options = { channels: job.channels, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   const at = (chunk: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${chunk.firstSample + chunk.length})`;
-  // spikes to interpolate: a first read finds them (the signal checks), the reads after it hand
-  // on the corrected samples at the same indices
-  let read = givenRead;
-  let spikes: Float64Array[] | null = null;
-  if (job.interpolateSpikes) {
-    const pre = await givenRead({ ...options, onChunk: (chunk) => { check(at(chunk)); progress?.(chunk.firstSample + chunk.length, 3); } });
-    spikes = job.channels.map((_, k) => pre.artefacts?.[k]?.spikes ?? new Float64Array(0));
-    read = spikeInterpolatedReader(givenRead, spikes);
-  }
+  // the corrections of the signal the job asks for (spikes, cuts, offset, low-pass): every read
+  // after this hands on the corrected samples
+  const corrected = await correctedStream(job, givenRead, { options, check, at, ...(progress ? { progress } : {}) });
+  const read = corrected.read;
+  const spikes = corrected.spikes;
   // a gate fraction without a declared full scale: a first read finds each channel's range
   const fullScales: (number | undefined)[] = job.channels.map(() => job.fullScale);
   if (job.gateFraction !== undefined && job.fullScale === undefined) {
@@ -167,7 +171,9 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
   const m = corrections.indexOf(main);
   // with the spikes interpolated, the study weighs what is left flagged (flat and zero runs), and
   // the source says which samples were corrected
-  const measured: IngestReport = spikes === null ? first : withInterpolated(first, spikes);
+  // (after a cut, the flagged samples are numbered as the corrected history is)
+  const interpolated: IngestReport = spikes === null ? first : withInterpolated(first, spikes);
+  const measured: IngestReport = corrected.cut && interpolated.artefacts ? { ...interpolated, artefacts: interpolated.artefacts.map((a) => corrected.artefactsAfterCut(a)) } : interpolated;
   const studied = await studyArtefacts(measured, (k) => jobOf(job.channels[k], k, main), (k) => finished[k][m], read, { options, check, at, ...(progress ? { progress } : {}) });
   const results: ChannelResult[] = job.channels.map((c, k) => {
     const reports = finished[k];
@@ -180,7 +186,9 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
       sources: [studied.source],
       ...(studied.figures[k] ? { artefactStudy: studied.figures[k] } : {}),
       history: inOwnUnit(c, displays[k].points()),
-      timeBase: timeBaseOf(first, job.timeSecondsPerUnit),
+      // after a cut the samples are no longer evenly spaced in time: no time axis
+      timeBase: corrected.cut ? null : timeBaseOf(first, job.timeSecondsPerUnit),
+      signalCorrections: corrected.records(k),
       loops: null,
       curveLabel: job.stressLife?.label ?? null,
       loopStream: spools[k]?.finish(sessions[k][m].reportedLoopRows) ?? null,
@@ -188,9 +196,11 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
   });
   // no service given: a file with a time base gives the service per repeat in hours
   if (settings.serviceFromTime && job.service === undefined) {
+    const base = timeBaseOf(first, job.timeSecondsPerUnit);
     for (const r of results) {
-      if (!r.timeBase) continue;
-      const { perRepeat, note } = serviceFromTime(r.sources[0].samples, r.timeBase);
+      if (!base) continue;
+      // a repeat lasts the samples assessed (after a cut: those kept)
+      const { perRepeat, note } = serviceFromTime(corrected.cut ? corrected.samples() : r.sources[0].samples, base);
       r.report = { ...r.report, life: withHours(r.report.life, perRepeat) };
       if (r.corrections) r.corrections = r.corrections.map((c) => ({ ...c, life: withHours(c.life, perRepeat) }));
       if (r === results[0]) (job.notes ??= []).push(note);

@@ -75,6 +75,7 @@ export function number(rule?: { test: (x: number) => boolean; says: string }): F
 
 export const positive = number({ test: (x) => x > 0, says: '> 0' });
 export const nonNegative = number({ test: (x) => x >= 0, says: '>= 0' });
+export const wholeFromZero = number({ test: (x) => Number.isInteger(x) && x >= 0, says: 'a whole number >= 0 (sample numbers start at 0)' });
 export const wholeFromOne = number({ test: (x) => Number.isInteger(x) && x >= 1, says: 'a whole number >= 1' });
 
 /** Any string, the empty one included. */
@@ -235,6 +236,13 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
   interpolateSpikes: (v, p) => {
     if (typeof v !== 'boolean') throw new JobFieldError(p, `expected true or false, got ${shown(v)}`);
   },
+  excludeSamples: listOf(objectOf({ first: wholeFromZero, last: wholeFromZero }, ['first', 'last']), 'sample ranges { first, last }'),
+  excludeTimes: listOf(objectOf({ startTime: number(), endTime: number() }, ['startTime', 'endTime']), 'time ranges { startTime, endTime }'),
+  subtractOffset: (v, p) => {
+    if (v === 'mean') return;
+    if (typeof v !== 'number' || !Number.isFinite(v)) throw new JobFieldError(p, `expected a finite number (in the channel's unit) or "mean", got ${shown(v)}`);
+  },
+  lowPass: objectOf({ cutoffHz: positive, order: number({ test: (x) => Number.isInteger(x) && x >= 1 && x <= 16, says: 'a whole number from 1 to 16' }) }, ['cutoffHz']),
 };
 
 /** Checks a parsed job file: every field known and of its type; `file` or `events`, not both. */

@@ -51,11 +51,24 @@ Model:
   --mean-stress <c>         smithWatsonTopper (default), none, morrow, modifiedMorrow, walker, or all
   --gate <x>               gate range in the channel's unit; or --gate-fraction <f> [--full-scale <x>]
   --one-off                the history does not repeat (open loops count as half cycles)
-  --interpolate-spikes     assess with the one-sample spikes the signal checks find replaced by the
-                           line between their neighbours (one more read; the output says which)
   --scatter-factor <x>     design life = life / x (default 1)
   --cutoff-cycles <n>      loops living longer than n cycles do no damage (default: none)
   --critical-damage <x>    damage sum at failure (default 1)
+Corrections of the signal (applied in this order before counting; every output lists them):
+  --interpolate-spikes     the one-sample spikes the signal checks find replaced by the line
+                           between their neighbours (one more read; the output says which)
+  --exclude-samples <a>..<b>  cut samples a to b (numbers from 0, both included) out; repeat or
+                           separate by commas for several, in increasing order; the history is
+                           joined across each cut and later sample numbers count the samples kept
+  --exclude-time <t0>..<t1>   cut the samples with t0 <= t <= t1 out, t in the time column's own
+                           unit (ms for a column in ms) or seconds with --sample-rate
+  --subtract-offset <x|mean>  subtract x (in the channel's unit, e.g. µε) or the channel's mean
+                           (of the samples kept; one more read) from every sample
+  --low-pass <Hz>          zero-phase Butterworth low-pass (forwards and backwards) with this
+                           cut-off, below half the sample rate (--sample-rate, or a time column
+                           with even steps); --low-pass-order <n> per pass, 1 … 16 (default 2).
+                           Holds the channels in memory (16 bytes a sample, channel and time column;
+                           refused above half of --memory-limit)
 Stress-life route (an S-N curve instead of the strain-life model; no material needed):
   --sn-curve <spec>        iiw:<FAT>[,shear][,constant][,below-knee=…][,gamma-m=<x>],
                            en1993:<category>[,shear][,constant][,gamma-mf=<x>][,gamma-ff=<x>],
@@ -117,7 +130,9 @@ Every sample is scaled by a factor f; the smallest f whose life is at most the t
 found by a scan over 0.05 … 20 and bisection to 1e-6 relative. Damage need not grow with the
 load when mean stresses matter; the output says whether the scan saw it fall. The search runs
 on the turning points of the history (the same loops at every factor); progress shows on a
-terminal (--quiet hides it).
+terminal (--quiet hides it). The corrections of the signal (--interpolate-spikes,
+--exclude-samples, --exclude-time, --subtract-offset, --low-pass) apply as in assess, and the
+factor scales the corrected samples.
 
   --target-repeats <n>     target life in repeats of the history (or of the job's duty cycle)
   --target-life <x>        or in the service unit: --service, or with --job the job's

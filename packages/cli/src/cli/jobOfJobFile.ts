@@ -4,6 +4,7 @@ import type { CliJob, CliStressLife, JobFile } from './CliJob';
 import { checkJobFields, JobFieldError } from './checkJobFields';
 import { resolveMaterial, type TextAccess } from './resolveMaterial';
 import { parseSnCurveSpec } from './snCurveSpec';
+import { checkSignalCorrections } from './signalCorrections';
 
 /** How {@link jobOfJobFile} reaches the files a job names: the command's `FileAccess` (relative to the job's folder), or the browser page's own. */
 export interface JobFileAccess extends TextAccess {
@@ -58,7 +59,7 @@ export function jobOfJobFile(value: unknown, path: string, access: JobFileAccess
     events: events ?? null,
     jobShown: path,
   };
-  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'dialect', 'initial', 'offset', 'interpolateSpikes'] as const) {
+  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'dialect', 'initial', 'offset', 'interpolateSpikes', 'excludeSamples', 'excludeTimes', 'subtractOffset', 'lowPass'] as const) {
     if (json[k] !== undefined) (job as unknown as Record<string, unknown>)[k] = json[k];
   }
   checkRoute(job, path);
@@ -73,6 +74,7 @@ const STRAIN_CORRECTIONS: readonly string[] = ['none', 'morrow', 'modifiedMorrow
  * `where` prefixes messages: the job file, or '' for flags, whose messages name the option).
  */
 export function checkRoute(job: CliJob, where: string | null): void {
+  checkSignalCorrections(job);
   const at = (field: string, flag: string) => (where ? `${where}: ${field}` : `--${flag}`);
   const s = job.stressLife;
   if (s === undefined) {

@@ -78,6 +78,11 @@ const MODEL = {
   'sn-curve': { type: 'string' },
   'hot-spot': { type: 'string' },
   'interpolate-spikes': { type: 'boolean' },
+  'exclude-samples': { type: 'string', multiple: true },
+  'exclude-time': { type: 'string', multiple: true },
+  'subtract-offset': { type: 'string' },
+  'low-pass': { type: 'string' },
+  'low-pass-order': { type: 'string' },
   'hot-spot-modulus': { type: 'string' },
   'stress-factor': { type: 'string' },
   'ultimate-strength': { type: 'string' },
@@ -186,6 +191,25 @@ function timeOf(values: Record<string, unknown>): TimeSource | undefined {
   return undefined;
 }
 
+/**
+ * The ranges of a repeatable option given as `<from>..<to>` (several in one value may be separated
+ * by commas), each end a number; the option named in the error.
+ */
+function rangesOf(values: Record<string, unknown>, name: string): [number, number][] {
+  const given = (values[name] as string[] | undefined) ?? [];
+  const out: [number, number][] = [];
+  for (const text of given.flatMap((g) => g.split(','))) {
+    const cut = text.indexOf('..');
+    const from = cut < 0 ? '' : text.slice(0, cut).trim();
+    const to = cut < 0 ? '' : text.slice(cut + 2).trim();
+    const a = from === '' ? NaN : Number(from);
+    const b = to === '' ? NaN : Number(to);
+    if (!Number.isFinite(a) || !Number.isFinite(b)) throw new UsageError(`--${name}: expected <from>..<to> (e.g. ${name === 'exclude-time' ? '12.5..14' : '1000..1999'}), got "${text}"`);
+    out.push([a, b]);
+  }
+  return out;
+}
+
 function serviceOf(values: Record<string, unknown>): CliJob['service'] | undefined {
   const s = values.service as string | undefined;
   if (s === undefined) return undefined;
@@ -282,6 +306,21 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   opt('cutoffCycles', 'cutoff-cycles');
   opt('criticalDamage', 'critical-damage');
   if (values['interpolate-spikes']) job.interpolateSpikes = true;
+  const samplesCut = rangesOf(values, 'exclude-samples');
+  if (samplesCut.length > 0) {
+    for (const [a, b] of samplesCut) {
+      if (!(Number.isInteger(a) && a >= 0 && Number.isInteger(b) && b >= 0)) throw new UsageError(`--exclude-samples: ${a}..${b}: sample numbers are whole numbers from 0, as the reports give them`);
+    }
+    job.excludeSamples = samplesCut.map(([first, last]) => ({ first, last }));
+  }
+  const timesCut = rangesOf(values, 'exclude-time');
+  if (timesCut.length > 0) job.excludeTimes = timesCut.map(([startTime, endTime]) => ({ startTime, endTime }));
+  const offsetGiven = values['subtract-offset'] as string | undefined;
+  if (offsetGiven !== undefined) job.subtractOffset = offsetGiven.trim() === 'mean' ? 'mean' : (num(values, 'subtract-offset') as number);
+  const cutoff = num(values, 'low-pass');
+  const order = num(values, 'low-pass-order');
+  if (cutoff !== undefined) job.lowPass = { cutoffHz: cutoff, ...(order !== undefined ? { order } : {}) };
+  else if (order !== undefined) throw new UsageError('--low-pass-order: only with --low-pass <cut-off Hz>');
   const service = serviceOf(values);
   if (service) job.service = service;
   if (layout.time) job.time = layout.time;

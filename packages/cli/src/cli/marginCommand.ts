@@ -1,10 +1,12 @@
 import { CAUTION, EngineError, findLoadMargin, servicePerRepeat, type DutyEvent, type MarginResult } from '@loopwise/engine';
-import { readDelimitedColumns } from '../ingest';
+import { readDelimited, readDelimitedColumns } from '../ingest';
+import { correctedStream } from './correctedStream';
+import { asksSignalCorrections } from './signalCorrections';
 import { formatNumber } from '../report/formatNumber.js';
 import { UsageError } from './CliError';
 import type { CliChannel, CliEvent, CliJob } from './CliJob';
-import { interpolatedEvent, type EventRead } from './assessEvents';
-import { hotSpotEventReader, hotSpotPlan } from './hotSpotChannel';
+import { correctedEvent, type EventRead } from './assessEvents';
+import { hotSpotEventReader, hotSpotPlan, hotSpotReader } from './hotSpotChannel';
 import type { MemoryGuard } from './MemoryGuard';
 import { stableJson } from './outputs';
 import { lifeJobOf, mainCorrection } from './runAssessment';
@@ -70,7 +72,7 @@ export async function runMargin(job: CliJob, request: MarginRequest, io: MarginI
   const reader = hot && plan ? hotSpotEventReader(plain, hot, job.channels, plan) : plain;
   for (const channel of plan ? [plan.channel] : job.channels) {
     const name = channel.name ?? String(channel.column);
-    const events = await eventsOf(job, channel, reader);
+    const events = job.events === null && asksSignalCorrections(job) ? await correctedFileOf(job, channel, plan ? job.channels : null, guard) : await eventsOf(job, channel, reader);
     const lifeJob = lifeJobOf(job, channel, main);
     target ??= targetOf(job, request, events, lifeJob);
     const t = target;
@@ -138,6 +140,34 @@ function channelLine(name: string, m: MarginResult, t: MarginTarget): string {
 }
 
 /**
+ * The one file of a job with corrections of the signal as one event, read and corrected as assess
+ * reads it (`correctedStream`: the same cuts, offset and low-pass), the corrected samples
+ * collected in memory (the margin search holds them anyway). `gauges`: a hot-spot job's gauges.
+ */
+async function correctedFileOf(job: CliJob, channel: CliChannel, gauges: CliChannel[] | null, guard: MemoryGuard): Promise<DutyEvent[]> {
+  const file = job.file as string;
+  const name = job.fileShown ?? file;
+  const one = { ...job, channels: [channel] };
+  const options = { channels: [channel], name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
+  const plain = (o: Parameters<typeof readDelimited>[1]) => readDelimited(file, o);
+  const hot = job.stressLife?.hotSpot;
+  const read = hot && gauges ? hotSpotReader(plain, hot, gauges, hotSpotPlan(hot, gauges, '--hot-spot')) : plain;
+  const check = (where: () => string) => guard.check(where);
+  const at = (c: { firstSample: number; length: number }) => () => `while reading ${name} (sample ${c.firstSample + c.length})`;
+  const corrected = await correctedStream(one, read, { options, check, at });
+  const parts: Float64Array[] = [];
+  let n = 0;
+  await corrected.read({ ...options, checks: false, onChunk: (c) => { parts.push(c.channels[0].slice(0, c.length)); n += c.length; check(at(c)); } });
+  const history = new Float64Array(n);
+  let at0 = 0;
+  for (const p of parts) {
+    history.set(p, at0);
+    at0 += p.length;
+  }
+  return [{ name: 'history', history, repeats: 1 }];
+}
+
+/**
  * The channel's events as the engine takes them: the job's duty cycle, or its one file as one
  * event, read as assess reads them (the hot-spot channel from its gauges, the spikes interpolated
  * when the job asks).
@@ -146,7 +176,7 @@ async function eventsOf(job: CliJob, channel: CliChannel, read: EventRead): Prom
   const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   const one = async (e: CliEvent) => {
     const r = await read(e, { ...opts, name: e.shown ?? e.file });
-    return (job.interpolateSpikes ? interpolatedEvent(r) : r).channels[0];
+    return correctedEvent(r, job, e.name).channels[0];
   };
   if (job.events) {
     const out: DutyEvent[] = [];

@@ -86,6 +86,7 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
           warnings: s.warnings.map((w) => w.message),
         })),
         corrections: r.corrections,
+        signalCorrections: r.signalCorrections.map(correctionJson),
         ...(r.artefactStudy ? { artefactStudy: r.artefactStudy } : {}),
         report: r.report,
       })),
@@ -97,6 +98,11 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
       caution: CAUTION,
     }) + '\n'
   );
+}
+
+/** A correction record for the JSON report: its kind, one line, the samples it touched, its settings and places (sample number and length of each). */
+function correctionJson(c: ChannelResult['signalCorrections'][number]): unknown {
+  return { kind: c.kind, summary: c.summary, samples: c.samples, parameters: c.parameters, places: Array.from(c.first, (first, k) => ({ first, length: c.length[k] })) };
 }
 
 /** A worst loop's local strains for the summary: in µε for a microstrain channel, else as strain; empty on the stress-life route. */
@@ -152,6 +158,8 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const life = rep.life;
     out.push(`channel ${r.name} (${r.unit}), mean-stress correction ${rep.damage.meanStress}`);
     for (const src of r.sources) out.push(`  read                   ${src.file}: ${src.samples} rows, ${describeDialect(src.dialect)}, ${src.reader} reader`);
+    if (r.signalCorrections.length > 0) for (const c of r.signalCorrections) out.push(`  corrected              ${c.summary}`);
+    else out.push('  corrected              none: the samples as measured');
     const mat = rep.inputs.material as { name?: string } | null | undefined;
     if (rep.damage.route !== 'stress-life' && mat) out.push(`  material               ${mat.name ?? '(own constants, unnamed)'}`);
     if (rep.damage.route === 'stress-life') out.push(`  route                  stress-life, S-N curve ${r.curveLabel ?? '(given)'} (cycles on the curve; no local strain)`);

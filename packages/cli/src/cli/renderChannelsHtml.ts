@@ -29,6 +29,7 @@ export async function htmlChannelsOf(results: ChannelResult[]): Promise<HtmlChan
       timeBase: r.timeBase ?? null,
       ...(r.eventStarts ? { eventStarts: r.eventStarts } : {}),
       signalWarnings: signalWarningsOf(r),
+      signalCorrections: r.signalCorrections.map((c) => ({ kind: c.kind, summary: c.summary })),
       name: r.name,
       unit: r.unit,
       report: r.report,

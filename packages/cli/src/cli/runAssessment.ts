@@ -54,6 +54,8 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     const plain: EventRead = (event, options) => readDelimitedColumns(event.file, options);
     return runDutyCycle(job, guard, keepLoops, hot && plan ? hotSpotEventReader(plain, hot, gauges, plan) : plain);
   }
+  // the low-pass holds the file's channels in memory: refused up front beyond the memory limit
+  if (job.lowPass !== undefined) guard.checkHeld({ path: job.file as string, shown: job.fileShown ?? (job.file as string) }, job.channels.length + (job.time !== undefined && 'column' in job.time ? 1 : 0), job.jobShown ? `${job.jobShown}: lowPass` : '--low-pass');
   const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
   const file: StreamRead = (options) => read(job.file as string, options);
   return assessStream(job, hot && plan ? hotSpotReader(file, hot, gauges, plan) : file, {

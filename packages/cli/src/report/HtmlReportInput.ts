@@ -48,6 +48,12 @@ export interface HtmlChannel {
    */
   signalWarnings?: readonly { kind: string; message: string }[];
   /**
+   * The corrections applied to the signal before counting (spikes interpolated, ranges cut out,
+   * offset subtracted, low-pass), in the order applied: kind and one line each; absent or empty:
+   * the samples as measured (the report says so).
+   */
+  signalCorrections?: readonly { kind: string; summary: string }[];
+  /**
    * The counted cycles of a stress-life report as equivalent stress on the curve and count per
    * repeat (for the S-N plot's spectrum); absent or null: the plot shows the curve and the worst cycles.
    */

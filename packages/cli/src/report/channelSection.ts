@@ -16,6 +16,12 @@ function figure(svg: string, caption: string): string {
   return `<figure>${svg}<figcaption>${escapeHtml(caption)}</figcaption></figure>`;
 }
 
+/** The corrections applied to the signal, one item each in the order applied, or a line saying the samples are as measured. */
+export function correctionsList(corrections: readonly { kind: string; summary: string }[]): string {
+  if (corrections.length === 0) return '<p class="none corrections">None: the samples were assessed as measured.</p>';
+  return `<ol class="corrections">${corrections.map((c) => `<li data-kind="${escapeHtml(c.kind)}"><code>${escapeHtml(c.kind)}</code> ${escapeHtml(c.summary)}</li>`).join('')}</ol>`;
+}
+
 /** One channel's section: summary, plots, worst loops, events, warnings and inputs. */
 export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit: string): string {
   const id = `channel-${ordinal + 1}`;
@@ -25,6 +31,8 @@ export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit
     `<section class="channel" id="${id}" data-channel="${escapeHtml(channel.name)}">`,
     `<h2>Channel ${ordinal + 1}: ${escapeHtml(channel.name)} <small>(${escapeHtml(channel.unit)})</small></h2>`,
     summaryList(r, channel.loopTotals, channel.unit),
+    '<h3>Corrections of the signal</h3>',
+    correctionsList(channel.signalCorrections ?? []),
     '<h3>History</h3>',
     figure(
       historyPlot(channel, `${id}-history`),

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { assessDutyCycle, assessLife, type LifeJob } from '@loopwise/engine';
 import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { handbookSteels } from '@loopwise/material';
+import { removeSpikes } from '@loopwise/signal';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { cli } from './runCli';
@@ -38,6 +39,9 @@ describe('--interpolate-spikes', () => {
     expect(j.channels[0].report.worstLoops.map((w: { startIndex: number }) => w.startIndex)).toEqual(want.worstLoops.map((w) => w.startIndex));
     const said = j.warnings.find((w: { code: string }) => w.code === 'spikes-interpolated');
     expect(said.message).toContain('3 spike(s) interpolated between their neighbours (asked for) at sample(s) 2345, 9000, 15001');
+    // the record of the correction, as @loopwise/signal's removeSpikes words it
+    const record = removeSpikes(gauge, spikes).correction;
+    expect(j.channels[0].signalCorrections).toEqual([{ kind: record.kind, summary: record.summary, samples: record.samples, parameters: record.parameters, places: spikes.map((first) => ({ first, length: 1 })) }]);
     // without the option the spikes stay in and the life is shorter
     const asIs = JSON.parse((await cli(['assess', join(dir, 'g.csv'), '--quantity', 'strain', '--unit', 'microstrain', '--material', 'SAE 1045', '--json'])).stdout);
     expect(asIs.channels[0].report.life.repeats).toBeLessThan(j.channels[0].report.life.repeats);
