@@ -1,6 +1,6 @@
 import { HOT_SPOT_RULES, hotSpotStress, hotSpotStressInto, type HotSpotRule } from '@loopwise/stress-life';
 import type { EventRead } from './assessEvents';
-import type { IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
+import type { ChannelArtefacts, IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { UsageError } from './CliError';
 import type { CliChannel } from './CliJob';
 
@@ -79,14 +79,41 @@ export function hotSpotReader(
   };
 }
 
-/** The report of the gauges as the report of the one hot-spot channel. */
+/**
+ * The report of the gauges as the report of the one hot-spot channel. A sample flagged on any
+ * gauge is flagged on the hot-spot channel (it is made of every gauge at that sample): its spikes
+ * are the union of the gauges' spikes, its flat and zero runs the union of theirs (overlapping
+ * runs merged). So `--interpolate-spikes` and the artefact study see the gauges' artefacts; and
+ * since the hot-spot stress is linear in the gauges, interpolating it at a spike is interpolating
+ * every gauge there and combining them.
+ */
 export function combinedReport<R extends IngestReport>(report: R, name: string): R {
   const first = report.channels[0];
-  const { artefacts: _, ...rest } = report as R & { artefacts?: unknown };
+  const { artefacts, ...rest } = report as R & { artefacts?: readonly ChannelArtefacts[] };
   return {
     ...rest,
+    ...(artefacts !== undefined ? { artefacts: [unionOfArtefacts(artefacts)] } : {}),
     channels: [{ ...first, name, quantity: 'stress', conversion: { engineUnit: 'MPa', multiplier: 1, divisor: 1, statement: `structural hot-spot stress from the gauges ${report.channels.map((c) => c.name).join(', ')} (${report.channels.map((c) => c.conversion.statement).join('; ')})` } }],
   } as unknown as R;
+}
+
+/** The samples flagged on any of the gauges: spikes sorted and unique, runs (first, length) sorted and merged where they overlap or touch. */
+export function unionOfArtefacts(all: readonly (ChannelArtefacts | undefined)[]): ChannelArtefacts {
+  const spikes = new Set<number>();
+  const runs: [number, number][] = [];
+  for (const a of all) {
+    if (a === undefined) continue;
+    for (const s of a.spikes) spikes.add(s);
+    for (let k = 0; k + 1 < a.runs.length; k += 2) runs.push([a.runs[k], a.runs[k] + a.runs[k + 1]]);
+  }
+  runs.sort((x, y) => x[0] - y[0]);
+  const merged: number[] = [];
+  for (const [from, end] of runs) {
+    const m = merged.length;
+    if (m > 0 && from <= merged[m - 2] + merged[m - 1]) merged[m - 1] = Math.max(merged[m - 1], end - merged[m - 2]);
+    else merged.push(from, end - from);
+  }
+  return { spikes: Float64Array.from([...spikes].sort((x, y) => x - y)), runs: Float64Array.from(merged) };
 }
 
 /**
