@@ -18,6 +18,7 @@ export { UsageError } from './cli/CliError';
 export { VERSION, TOOL } from './cli/version';
 export { repeatsText, unitLifeText, designLifeText } from './report/lifeText';
 export { formatNumber } from './report/formatNumber';
+export { fileSampleOf, loopInFile } from './report/cutNumbering';
 export { masingLoop, type CyclicConstants, type MasingLoop } from './report/masingLoop';
 export { readCyclicConstants } from './report/readCyclicConstants';
 export type { HtmlChannel, HtmlMatrix } from './report/HtmlReportInput';

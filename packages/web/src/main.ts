@@ -395,13 +395,15 @@ function showChannel(k: number): void {
     const t = el('table');
     t.append(el('caption', 'Worst loops'));
     const head = el('tr');
-    for (const h of ['rank', 'samples', 'stress (MPa)', 'strain', 'share of damage']) head.append(el('th', h));
+    const inFile = shown.worstInFile;
+    for (const h of ['rank', inFile ? 'samples (kept, joined)' : 'samples', ...(inFile ? ['samples of the file'] : []), 'stress (MPa)', 'strain', 'share of damage']) head.append(el('th', h));
     t.append(head);
     shown.report.worstLoops.slice(0, 5).forEach((w, i) => {
       const tr = el('tr');
       tr.append(
         el('td', String(i + 1)),
         el('td', `${w.startIndex}–${w.turnIndex}`),
+        ...(inFile ? [el('td', `${inFile[i].startIndex}–${inFile[i].turnIndex}${inFile[i].acrossCut ? ' (across a cut)' : ''}`)] : []),
         el('td', `${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)}`, 'num'),
         el('td', w.strainMin === null || w.strainMax === null ? '—' : `${formatNumber(w.strainMin)} … ${formatNumber(w.strainMax)}`, 'num'),
         el('td', `${formatNumber(100 * w.share, 3)} %`, 'num'),

@@ -28,6 +28,8 @@ export interface ChannelView {
   eventStarts: { name: string; start: number }[];
   /** The time column in seconds, when the job takes one (for the time axis), else null. */
   time: Float64Array | null;
+  /** After a cut: each worst loop's start and turn in the file's sample numbers, and whether a cut lies between them; null without a cut. */
+  worstInFile: { startIndex: number; turnIndex: number; acrossCut: boolean }[] | null;
 }
 
 /** Worker → page. */

@@ -7,6 +7,7 @@ import {
   htmlChannelsOf,
   jobOfJobFile,
   jsonReport,
+  loopInFile,
   masingLoop,
   MemorySpool,
   readCyclicConstants,
@@ -171,6 +172,8 @@ async function run(files: File[], jobFile: JobFile): Promise<void> {
       levels,
       // after a cut the joined samples are not evenly timed: the plot's axis is then the sample number
       sampleRate: job.time !== undefined && 'sampleRate' in job.time && !cut ? job.time.sampleRate : null,
+      // after a cut, the worst loops in the file's sample numbers (as the command's reports give them)
+      worstInFile: r.cutOut !== undefined && r.cutOut.length > 0 ? r.report.worstLoops.map((w) => loopInFile(w, r.cutOut as Float64Array)) : null,
       time: times,
       eventStarts,
     };

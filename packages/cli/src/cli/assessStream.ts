@@ -29,8 +29,14 @@ export interface ChannelResult {
   loopStream: LoopSpool | null;
   /** What the flagged samples do to the damage (a single file whose signal checks flagged samples). */
   artefactStudy?: ArtefactFigures;
-  /** The file's time base as a uniform step (a single file with a sample rate or an even time column). */
+  /** The file's time base as a uniform step (a single file with a sample rate or an even time column), in the file's sample numbers. */
   timeBase?: TimeBase | null;
+  /**
+   * The places cut out of the file (`--exclude-samples`, `--exclude-time`): flat [first, length]
+   * in the file's sample numbers. The report's sample numbers then count the samples kept (the
+   * history joined across each cut); see report/cutNumbering.ts for the file's numbers.
+   */
+  cutOut?: Float64Array;
   /**
    * The corrections applied to the channel's samples before counting, in the order applied
    * (@loopwise/signal's records: spikes interpolated, ranges cut out, offset subtracted,
@@ -186,8 +192,10 @@ export async function assessStream(job: CliJob, givenRead: StreamRead, settings:
       sources: [studied.source],
       ...(studied.figures[k] ? { artefactStudy: studied.figures[k] } : {}),
       history: inOwnUnit(c, displays[k].points()),
-      // after a cut the samples are no longer evenly spaced in time: no time axis
-      timeBase: corrected.cut ? null : timeBaseOf(first, job.timeSecondsPerUnit),
+      // the file's time base; after a cut the joined samples are no longer evenly spaced in
+      // time, so the plots number samples and the worst loops go through the file's numbers
+      timeBase: timeBaseOf(first, job.timeSecondsPerUnit),
+      ...(corrected.cut ? { cutOut: corrected.cutOut() } : {}),
       signalCorrections: corrected.records(k),
       loops: null,
       curveLabel: job.stressLife?.label ?? null,

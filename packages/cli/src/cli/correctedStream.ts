@@ -26,6 +26,8 @@ export interface CorrectedStream {
   spikes: Float64Array[] | null;
   /** Whether ranges are cut out: the corrected history's sample numbers then count the samples kept. */
   cut: boolean;
+  /** The places cut out, flat [first, length] in the file's sample numbers (known after the first full read; empty without a cut). */
+  cutOut(): Float64Array;
   /** Samples of the corrected history (known after the first full read). */
   samples(): number;
   /** The corrections applied to channel k, in the order applied (known after the first full read). */
@@ -99,6 +101,7 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
     read,
     spikes,
     cut: cut !== null,
+    cutOut: () => Float64Array.from(cut?.placesCut() ?? []),
     samples,
     records: (k) => [
       ...(spikes !== null && spikes[k].length > 0 ? [spikeRecord(spikes[k])] : []),
@@ -257,6 +260,11 @@ export class RangeCut {
     return f + 1;
   }
 
+  /** The places cut out, flat [first, length] in the file's sample numbers (empty before the first full read). */
+  placesCut(): readonly number[] {
+    return this.places ?? [];
+  }
+
   /** The record of the cut: the places in the file's sample numbers, the samples cut, and the ranges asked. */
   record(keptSamples: number): CorrectionRecord {
     const places = this.places ?? [];
@@ -272,7 +280,7 @@ export class RangeCut {
       places,
       removed,
       parameters,
-      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}); the history is joined across each cut, ${keptSamples} samples kept; sample numbers after a cut count the samples kept`,
+      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}); the history is joined across each cut, ${keptSamples} samples kept; its sample numbers count the samples kept (the worst loops are also given in the file's)`,
     );
   }
 

@@ -60,6 +60,7 @@ Corrections of the signal (applied in this order before counting; every output l
   --exclude-samples <a>..<b>  cut samples a to b (numbers from 0, both included) out; repeat or
                            separate by commas for several, in increasing order; the history is
                            joined across each cut and later sample numbers count the samples kept
+                           (the worst loops are also given in the file's numbers)
   --exclude-time <t0>..<t1>   cut the samples with t0 <= t <= t1 out, t in the time column's own
                            unit (ms for a column in ms) or seconds with --sample-rate
   --subtract-offset <x|mean>  subtract x (in the channel's unit, e.g. µε) or the channel's mean

@@ -4,6 +4,7 @@ import { describeDialect, MICROSTRAIN_PER_STRAIN } from '@loopwise/ingest';
 import type { ChannelResult } from './assessStream';
 import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { loopPlaceText } from '../report/loopPlace.js';
+import { loopInFile } from '../report/cutNumbering.js';
 import { timeText } from './timeBase';
 import { cyclesCsvRow } from './cyclesCsvRow';
 import { signalWarningsOf } from './renderChannelsHtml';
@@ -88,6 +89,8 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
         corrections: r.corrections,
         signalCorrections: r.signalCorrections.map(correctionJson),
         ...(r.artefactStudy ? { artefactStudy: r.artefactStudy } : {}),
+        // after a cut, the worst loops (in the report's order) in the file's sample numbers
+        ...(r.cutOut !== undefined && r.cutOut.length > 0 ? { worstLoopsInFile: r.report.worstLoops.map((w) => { const f = loopInFile(w, r.cutOut as Float64Array); return { startSample: f.startIndex, turnSample: f.turnIndex, acrossCut: f.acrossCut }; }) } : {}),
         report: r.report,
       })),
       // every channel's warnings in one list: about the measured signal, then the assessment's
@@ -176,10 +179,16 @@ export function summaryText(results: ChannelResult[], title: string | null): str
     const worst = rep.worstLoops.slice(0, 3);
     if (worst.length > 0) {
       out.push('  worst loops');
+      const cut = r.cutOut !== undefined && r.cutOut.length > 0 ? r.cutOut : null;
+      if (cut !== null) out.push("    (samples of the file; the history assessed is joined across the cuts)");
       for (const w of worst) {
         const perRepeat = rep.events.length > 1 && w.count !== 1 ? `, ${formatCount(w.count)} per repeat` : '';
+        // after a cut: the file's sample numbers (and so its times), and whether the loop spans a cut
+        const f = cut !== null ? loopInFile(w, cut) : null;
+        const at = f ?? w;
+        const across = f?.acrossCut ? ', across a cut' : '';
         out.push(
-          `    ${loopPlaceText(w, rep.events)}${perRepeat}${r.timeBase ? ` (t ${w.startIndex < 0 ? 'start' : timeText(r.timeBase, w.startIndex)} – ${timeText(r.timeBase, w.turnIndex)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${strainText(w, r.unit)}, ${formatNumber(100 * w.share, 3)} % of the damage`,
+          `    ${loopPlaceText(at, rep.events)}${perRepeat}${r.timeBase ? ` (t ${at.startIndex < 0 ? 'start' : timeText(r.timeBase, at.startIndex)} – ${timeText(r.timeBase, at.turnIndex)}${across})` : across ? ` (${across.slice(2)})` : ''}: σ ${formatNumber(w.stressMin)} … ${formatNumber(w.stressMax)} MPa${strainText(w, r.unit)}, ${formatNumber(100 * w.share, 3)} % of the damage`,
         );
       }
     }

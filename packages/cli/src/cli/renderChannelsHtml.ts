@@ -26,7 +26,9 @@ export async function htmlChannelsOf(results: ChannelResult[]): Promise<HtmlChan
     channels.push({
       spectrum,
       corrections: r.corrections,
-      timeBase: r.timeBase ?? null,
+      // after a cut the history plotted is the joined one: its axis numbers samples
+      timeBase: r.cutOut !== undefined && r.cutOut.length > 0 ? null : (r.timeBase ?? null),
+      ...(r.cutOut !== undefined && r.cutOut.length > 0 ? { cutOut: r.cutOut } : {}),
       ...(r.eventStarts ? { eventStarts: r.eventStarts } : {}),
       signalWarnings: signalWarningsOf(r),
       signalCorrections: r.signalCorrections.map((c) => ({ kind: c.kind, summary: c.summary })),

@@ -67,6 +67,12 @@ export interface HtmlChannel {
   timeBase?: { start: number; step: number } | null;
   /** Where each event of a duty cycle starts (sample index): drawn as boundaries on the history plot. */
   eventStarts?: readonly { name: string; index: number }[];
+  /**
+   * The places cut out of the file, flat [first, length] in the file's sample numbers (see
+   * report/cutNumbering.ts): the worst loops table then gives the file's sample numbers beside
+   * those of the joined history. Absent or empty: no cut.
+   */
+  cutOut?: ArrayLike<number>;
 }
 
 /** Everything {@link renderHtmlReport} draws. */

@@ -55,7 +55,7 @@ export function channelSection(channel: HtmlChannel, ordinal: number, stressUnit
             'Local stress against local strain at the notch root. Each loop joins the assessed corners (σmin, εmin) and (σmax, εmax) by the two Masing branches Δε = Δσ/E + 2(Δσ/2K′)^(1/n′) of the material model.',
           ),
         ]),
-    worstLoopsTable(r.worstLoops, stressUnit, r.events),
+    worstLoopsTable(r.worstLoops, stressUnit, r.events, channel.cutOut),
     '<h3>Damage timeline and damage by event</h3>',
     figure(timelinePlot(channel, `${id}-timeline`), `Damage per repeat in bins of ${r.timeline.binSize} samples (half of each loop's damage at each of its two reversals).`),
     figure(eventsPlot(channel, `${id}-events`), 'Damage per repeat of the schedule by event, with its share.'),

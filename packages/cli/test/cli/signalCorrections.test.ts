@@ -10,6 +10,7 @@ import fc from 'fast-check';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { cli } from './runCli';
 import { offsetReader, RangeCut } from '../../src/cli/correctedStream';
+import { fileSampleOf, loopInFile } from '../../src/report/cutNumbering';
 import type { CliJob } from '../../src/cli/CliJob';
 
 // Issue 11, item 1 and issue 13, item 2 in the command: ranges cut out (--exclude-samples,
@@ -61,6 +62,20 @@ describe('--exclude-samples and --exclude-time', () => {
     expect(relative(r.json.channels[0].report.life.repeats, want.life.repeats)).toBeLessThanOrEqual(1e-12);
     // the loops are numbered in the joined history
     expect(r.json.channels[0].report.worstLoops.map((w: { startIndex: number }) => w.startIndex)).toEqual(want.worstLoops.map((w) => w.startIndex));
+    // and given in the file's sample numbers too: the file's sample there is the joined history's
+    const joined = cutByHand(Float64Array.from(gauge), ranges);
+    const inFile = r.json.channels[0].worstLoopsInFile as { startSample: number; turnSample: number; acrossCut: boolean }[];
+    expect(inFile).toHaveLength(want.worstLoops.length);
+    want.worstLoops.forEach((w, k) => {
+      expect(gauge[inFile[k].startSample]).toBe(joined[w.startIndex]);
+      expect(gauge[inFile[k].turnSample]).toBe(joined[w.turnIndex]);
+      const lo = Math.min(inFile[k].startSample, inFile[k].turnSample);
+      const hi = Math.max(inFile[k].startSample, inFile[k].turnSample);
+      const seam = inFile[k].startSample > inFile[k].turnSample;
+      // a cut lies between start and turn (over the seam: outside [turn, start])
+      const between = ranges.some((c) => (seam ? c.first > hi || c.first < lo : c.first > lo && c.first < hi));
+      expect(inFile[k].acrossCut).toBe(between);
+    });
     const c = r.json.channels[0].signalCorrections;
     expect(c).toHaveLength(1);
     expect(c[0]).toMatchObject({ kind: 'ranges-excluded', samples: 1501, places: [{ first: 3000, length: 1000 }, { first: 9000, length: 501 }] });
@@ -69,6 +84,12 @@ describe('--exclude-samples and --exclude-time', () => {
     const text = await cli(['assess', join(dir, 'g.csv'), ...base.slice(0, -1), '--exclude-samples', '3000..3999', '--exclude-samples', '9000..9500', '--html-out', join(dir, 'cut.html')]);
     expect(text.stdout).toMatch(/corrected +2 range\(s\) cut out \(1501 of 12000 samples: samples 3000\.\.3999, 9000\.\.9500\); the history is joined/);
     expect(readFileSync(join(dir, 'cut.html'), 'utf8')).toMatch(/<li data-kind="ranges-excluded"><code>ranges-excluded<\/code> 2 range\(s\) cut out/);
+    // the summary's worst loops and the HTML table give the file's sample numbers
+    const first = inFile[0];
+    expect(text.stdout).toContain('(samples of the file; the history assessed is joined across the cuts)');
+    expect(first.startSample).toBeLessThan(first.turnSample); // this file's worst loop lies inside one repeat
+    expect(text.stdout).toContain(`    samples ${first.startSample}–${first.turnSample}${first.acrossCut ? ' (across a cut)' : ''}: σ`);
+    expect(readFileSync(join(dir, 'cut.html'), 'utf8')).toContain(`${first.startSample} – ${first.turnSample}${first.acrossCut ? ' (across a cut)' : ''}`);
     // without corrections every output says the samples are as measured
     const plain = await cli(['assess', join(dir, 'g.csv'), ...base.slice(0, -1)]);
     expect(plain.stdout).toContain('corrected              none: the samples as measured');
@@ -89,6 +110,18 @@ describe('--exclude-samples and --exclude-time', () => {
     expect(relative(withColumn.json.channels[0].report.life.repeats, byColumn.life.repeats)).toBeLessThanOrEqual(1e-12);
     // the same samples either way (2 ms steps)
     expect(withColumn.json.channels[0].report.life.repeats).toBe(withRate.json.channels[0].report.life.repeats);
+  });
+});
+
+describe('sample numbers across cuts', () => {
+  test('the file sample of a joined sample skips every cut before it; a loop over the seam is across a cut when one lies outside [turn, start]', () => {
+    const cut = [1000, 1000, 8000, 1001]; // samples 1000..1999 and 8000..9000 cut out
+    expect([0, 999, 1000, 6999, 7000, -1].map((i) => fileSampleOf(cut, i))).toEqual([0, 999, 2000, 7999, 9001, -1]);
+    expect(loopInFile({ startIndex: 500, turnIndex: 999 }, cut)).toEqual({ startIndex: 500, turnIndex: 999, acrossCut: false });
+    expect(loopInFile({ startIndex: 999, turnIndex: 1000 }, cut)).toEqual({ startIndex: 999, turnIndex: 2000, acrossCut: true });
+    // over the seam: from 2500 to the end (the cut at 8000), then from 0 to 600
+    expect(loopInFile({ startIndex: 1500, turnIndex: 600 }, cut)).toEqual({ startIndex: 2500, turnIndex: 600, acrossCut: true });
+    expect(loopInFile({ startIndex: 1500, turnIndex: 600 }, [1000, 1000])).toEqual({ startIndex: 2500, turnIndex: 600, acrossCut: false });
   });
 });
 
