@@ -256,30 +256,49 @@ export class SignalScanner {
       let s = this.blockSum;
       let w = this.blockWeighted;
       // The hot loop: every check in one pass, inlined (a call per check and sample costs more
-      // than the checks). Rare events (a run that ends, a new extreme) leave the loop's locals.
-      for (let li = n - (this.nextBoundary - this.block); j < end; j++, n++, li++) {
+      // than the checks). Nearly every sample is ordinary: finite, strictly inside the running
+      // extremes, and a step 0 < |Δx| < T from the sample before. One test per sample says so
+      // (|Δx − T/2| < T/2 is false for a step of 0, of T or more, and for NaN; the extremes
+      // are compared without branching), so the loop takes one well-predicted branch per sample;
+      // everything else (a non-finite sample, a new or repeated extreme, a run of equal samples,
+      // a spike candidate) is sorted out in the rare branch. Inside a run of equal samples the
+      // half-threshold is 0, so that every sample of the run, and the one that ends it, takes
+      // the rare branch. The sample index is n0 + j (no second counter in the loop).
+      const n0 = n - j;
+      const li0 = n - (this.nextBoundary - this.block) - j;
+      // finite half of the pre-test threshold (a NaN threshold, in the first block, or spikes off: no spike candidates in the loop)
+      const half = T === T && T < Number.MAX_VALUE ? T / 2 : Number.MAX_VALUE / 2;
+      let h = runLength === 0 ? half : 0;
+      for (; j < end; j++) {
         const c = chunk[j];
-        if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', n);
-        // a run of equal samples is rare: only its end costs more than one comparison
-        if (c === b) {
-          if (runLength++ === 0) runStart = n - 1;
-        } else if (runLength !== 0) {
-          if (runLength + 1 >= stuckMin) findings.add(b === 0 ? 'zero-run' : 'stuck-run', runStart, runLength + 1, b);
-          runLength = 0;
-        }
-        // Math.abs is branch-free; testing both magnitudes first keeps the rare branch rare
         const ad2 = Math.abs(c - b);
-        if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', n - 1, 1, b - (a + c) / 2);
-        if (c >= max) max = this.atMaximum(c, n, max);
-        if (c <= min) min = this.atMinimum(c, n, min);
+        if (((Math.abs(ad2 - h) < h ? 1 : 0) & (c < max ? 1 : 0) & (c > min ? 1 : 0)) === 0) {
+          const i = n0 + j;
+          if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', i);
+          // a run of equal samples: only its end reports
+          if (c === b) {
+            if (runLength++ === 0) {
+              runStart = i - 1;
+              h = 0;
+            }
+          } else if (runLength !== 0) {
+            if (runLength + 1 >= stuckMin) findings.add(b === 0 ? 'zero-run' : 'stuck-run', runStart, runLength + 1, b);
+            runLength = 0;
+            h = half;
+          }
+          if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', i - 1, 1, b - (a + c) / 2);
+          if (c >= max) max = this.atMaximum(c, i, max);
+          if (c <= min) min = this.atMinimum(c, i, min);
+        }
         if (sums) {
           s += c;
-          w += li * c;
+          w += (li0 + j) * c;
         }
         a = b;
         b = c;
         ad1 = ad2;
       }
+      n = n0 + j;
       // every DIFFERENCE_STRIDE-th difference enters the block's scale: a strided loop of its
       // own (a test and a store in the loop above cost more than this second read)
       if (this.spikesOn) {
