@@ -156,6 +156,8 @@ export class SignalScanner {
   private threshold = NaN;
   private nextBoundary: number;
   private readonly scale: Float64Array;
+  private readonly scaleScratch: Float64Array;
+  private readonly scaleSpare: Float64Array;
   private scaleCount = 0;
   private readonly head: Float64Array;
   private runStart = 0;
@@ -210,6 +212,8 @@ export class SignalScanner {
     this.sums = this.offsetShare !== Infinity || this.driftShare !== Infinity;
     this.nextBoundary = this.block;
     this.scale = new Float64Array(Math.ceil(this.block / DIFFERENCE_STRIDE) + 1);
+    this.scaleScratch = new Float64Array(this.scale.length);
+    this.scaleSpare = new Float64Array(this.scale.length);
     this.head = new Float64Array(this.block);
   }
 
@@ -259,7 +263,8 @@ export class SignalScanner {
       // than the checks). Nearly every sample is ordinary: finite, strictly inside the running
       // extremes, and a step 0 < |Δx| < T from the sample before. One test per sample says so
       // (|Δx − T/2| < T/2 is false for a step of 0, of T or more, and for NaN; the extremes
-      // are compared without branching), so the loop takes one well-predicted branch per sample;
+      // are compared without branching: +(a < b) is 0 or 1 without a jump, where a ternary would
+      // be one), so the loop takes one well-predicted branch per sample;
       // everything else (a non-finite sample, a new or repeated extreme, a run of equal samples,
       // a spike candidate) is sorted out in the rare branch. Inside a run of equal samples the
       // half-threshold is 0, so that every sample of the run, and the one that ends it, takes
@@ -272,7 +277,7 @@ export class SignalScanner {
       for (; j < end; j++) {
         const c = chunk[j];
         const ad2 = Math.abs(c - b);
-        if (((Math.abs(ad2 - h) < h ? 1 : 0) & (c < max ? 1 : 0) & (c > min ? 1 : 0)) === 0) {
+        if ((+(Math.abs(ad2 - h) < h) & +(c < max) & +(c > min)) === 0) {
           const i = n0 + j;
           if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', i);
           // a run of equal samples: only its end reports
@@ -383,7 +388,7 @@ export class SignalScanner {
   private blockThreshold(): number {
     const k = this.scaleCount;
     if (k === 0) return this.threshold;
-    let m = lowerMedian(this.scale, k);
+    let m = lowerMedian(this.scale, k, this.scaleScratch, this.scaleSpare);
     // a mostly frozen block (a dropout) says nothing of the scale: keep the threshold before it
     if (m === 0 && this.threshold === this.threshold) return this.threshold;
     if (m === 0) {
