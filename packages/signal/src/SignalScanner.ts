@@ -92,6 +92,34 @@ function section<T extends object>(value: T | false | undefined, keys: readonly 
 }
 
 /**
+ * The scanner's hot loop: passes over chunk[j …) while the samples are ordinary (finite,
+ * strictly between `min` and `max`, a step 0 < |Δx| < 2h from the one before) and returns the
+ * index of the first sample that is not (or `end`), carrying the last two samples and their
+ * step in `st` ([a, b, |b − a|]). One test per sample: |Δx − h| < h is false for a step of 0, of
+ * 2h or more, and for NaN, and the three comparisons are combined as numbers (+(p < q) is 0 or 1
+ * without a jump, where a ternary or && would be one), so the loop takes one well-predicted
+ * branch per sample. A small function of its own: the loop holds only what its test needs, and
+ * everything else about a sample happens in the caller, once per unusual sample.
+ */
+function ordinaryRun(chunk: ArrayLike<number>, j: number, end: number, st: Float64Array, h: number, max: number, min: number): number {
+  let b = st[1];
+  let ad1 = st[2];
+  let a = st[0];
+  for (; j < end; j++) {
+    const c = chunk[j];
+    const ad2 = Math.abs(c - b);
+    if ((+(Math.abs(ad2 - h) < h) & +(c < max) & +(c > min)) === 0) break;
+    a = b;
+    b = c;
+    ad1 = ad2;
+  }
+  st[0] = a;
+  st[1] = b;
+  st[2] = ad1;
+  return j;
+}
+
+/**
  * Streaming checks of one measured channel in a single pass: spikes, stuck runs (and runs at
  * zero), clipping at full scale, offset and drift. Push the samples chunk by chunk (any
  * chunking gives the same findings as one push of the whole record), then `finish()`. Memory is
@@ -156,6 +184,8 @@ export class SignalScanner {
   private threshold = NaN;
   private nextBoundary: number;
   private readonly scale: Float64Array;
+  /** a, b, |b − a| of the hot loop, while ordinaryRun() has them. */
+  private readonly loop = new Float64Array(3);
   private readonly scaleScratch: Float64Array;
   private readonly scaleSpare: Float64Array;
   private scaleCount = 0;
@@ -247,61 +277,71 @@ export class SignalScanner {
     const stuckMin = this.stuckMin;
     const scale = this.scale;
     const findings = this.findings;
-    const sums = this.sums;
+    const st = this.loop;
     while (j < len) {
       if (this.n === this.nextBoundary) this.blockStep();
-      let { n, a, b, ad1, runStart, runLength, max, min, scaleCount } = this;
+      let { n, runStart, runLength, max, min, scaleCount } = this;
       const T = this.spikesOn ? this.threshold : Infinity;
       const from = j;
       const end = Math.min(len, j + (this.nextBoundary - n));
       const segmentStart = n;
-      const before = b;
-      // partial sums of the block (flushed at its end, so the rounding never depends on chunking)
-      let s = this.blockSum;
-      let w = this.blockWeighted;
-      // The hot loop: every check in one pass, inlined (a call per check and sample costs more
-      // than the checks). Nearly every sample is ordinary: finite, strictly inside the running
-      // extremes, and a step 0 < |Δx| < T from the sample before. One test per sample says so
-      // (|Δx − T/2| < T/2 is false for a step of 0, of T or more, and for NaN; the extremes
-      // are compared without branching: +(a < b) is 0 or 1 without a jump, where a ternary would
-      // be one), so the loop takes one well-predicted branch per sample;
-      // everything else (a non-finite sample, a new or repeated extreme, a run of equal samples,
-      // a spike candidate) is sorted out in the rare branch. Inside a run of equal samples the
-      // half-threshold is 0, so that every sample of the run, and the one that ends it, takes
-      // the rare branch. The sample index is n0 + j (no second counter in the loop).
+      const before = this.b;
+      st[0] = this.a;
+      st[1] = this.b;
+      st[2] = this.ad1;
+      // Nearly every sample is ordinary: finite, strictly inside the running extremes, and a
+      // step 0 < |Δx| < T from the sample before. ordinaryRun() passes over those (one test per
+      // sample, see there) and stops at the first other one, which is sorted out here: a
+      // non-finite sample, a new or repeated extreme, a run of equal samples, a spike candidate.
+      // Inside a run of equal samples the half-threshold is 0, so that every sample of the run,
+      // and the one that ends it, stops the run. The sample index is n0 + j.
       const n0 = n - j;
-      const li0 = n - (this.nextBoundary - this.block) - j;
       // finite half of the pre-test threshold (a NaN threshold, in the first block, or spikes off: no spike candidates in the loop)
       const half = T === T && T < Number.MAX_VALUE ? T / 2 : Number.MAX_VALUE / 2;
       let h = runLength === 0 ? half : 0;
-      for (; j < end; j++) {
+      for (;;) {
+        j = ordinaryRun(chunk, j, end, st, h, max, min);
+        if (j === end) break;
         const c = chunk[j];
+        const a = st[0];
+        const b = st[1];
+        const ad1 = st[2];
         const ad2 = Math.abs(c - b);
-        if ((+(Math.abs(ad2 - h) < h) & +(c < max) & +(c > min)) === 0) {
-          const i = n0 + j;
-          if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', i);
-          // a run of equal samples: only its end reports
-          if (c === b) {
-            if (runLength++ === 0) {
-              runStart = i - 1;
-              h = 0;
-            }
-          } else if (runLength !== 0) {
-            if (runLength + 1 >= stuckMin) findings.add(b === 0 ? 'zero-run' : 'stuck-run', runStart, runLength + 1, b);
-            runLength = 0;
-            h = half;
+        const i = n0 + j;
+        if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', i);
+        // a run of equal samples: only its end reports
+        if (c === b) {
+          if (runLength++ === 0) {
+            runStart = i - 1;
+            h = 0;
           }
-          if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', i - 1, 1, b - (a + c) / 2);
-          if (c >= max) max = this.atMaximum(c, i, max);
-          if (c <= min) min = this.atMinimum(c, i, min);
+        } else if (runLength !== 0) {
+          if (runLength + 1 >= stuckMin) findings.add(b === 0 ? 'zero-run' : 'stuck-run', runStart, runLength + 1, b);
+          runLength = 0;
+          h = half;
         }
-        if (sums) {
+        if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', i - 1, 1, b - (a + c) / 2);
+        if (c >= max) max = this.atMaximum(c, i, max);
+        if (c <= min) min = this.atMinimum(c, i, min);
+        st[0] = b;
+        st[1] = c;
+        st[2] = ad2;
+        j++;
+      }
+      // partial sums of the block (flushed at its end, so the rounding never depends on
+      // chunking), in sample order: a loop of their own keeps their chain of dependent additions
+      // out of the one above
+      if (this.sums) {
+        let s = this.blockSum;
+        let w = this.blockWeighted;
+        const li0 = n - (this.nextBoundary - this.block) - from;
+        for (let k = from; k < end; k++) {
+          const c = chunk[k];
           s += c;
-          w += (li0 + j) * c;
+          w += (li0 + k) * c;
         }
-        a = b;
-        b = c;
-        ad1 = ad2;
+        this.blockSum = s;
+        this.blockWeighted = w;
       }
       n = n0 + j;
       // every DIFFERENCE_STRIDE-th difference enters the block's scale: a strided loop of its
@@ -318,9 +358,10 @@ export class SignalScanner {
         const stop = Math.min(n, this.block);
         for (let i = segmentStart, k = from; i < stop; i++, k++) this.head[i] = chunk[k];
       }
-      this.blockSum = s;
-      this.blockWeighted = w;
-      Object.assign(this, { n, a, b, ad1, runStart, runLength, max, min, scaleCount });
+      this.a = st[0];
+      this.b = st[1];
+      this.ad1 = st[2];
+      Object.assign(this, { n, runStart, runLength, max, min, scaleCount });
     }
   }
 
