@@ -92,6 +92,34 @@ function section<T extends object>(value: T | false | undefined, keys: readonly 
 }
 
 /**
+ * The scanner's hot loop: passes over chunk[j …) while the samples are ordinary (finite,
+ * strictly between `min` and `max`, a step 0 < |Δx| < 2h from the one before) and returns the
+ * index of the first sample that is not (or `end`), carrying the last two samples and their
+ * step in `st` ([a, b, |b − a|]). One test per sample: |Δx − h| < h is false for a step of 0, of
+ * 2h or more, and for NaN, and the three comparisons are combined as numbers (+(p < q) is 0 or 1
+ * without a jump, where a ternary or && would be one), so the loop takes one well-predicted
+ * branch per sample. A small function of its own: the loop holds only what its test needs, and
+ * everything else about a sample happens in the caller, once per unusual sample.
+ */
+function ordinaryRun(chunk: ArrayLike<number>, j: number, end: number, st: Float64Array, h: number, max: number, min: number): number {
+  let b = st[1];
+  let ad1 = st[2];
+  let a = st[0];
+  for (; j < end; j++) {
+    const c = chunk[j];
+    const ad2 = Math.abs(c - b);
+    if ((+(Math.abs(ad2 - h) < h) & +(c < max) & +(c > min)) === 0) break;
+    a = b;
+    b = c;
+    ad1 = ad2;
+  }
+  st[0] = a;
+  st[1] = b;
+  st[2] = ad1;
+  return j;
+}
+
+/**
  * Streaming checks of one measured channel in a single pass: spikes, stuck runs (and runs at
  * zero), clipping at full scale, offset and drift. Push the samples chunk by chunk (any
  * chunking gives the same findings as one push of the whole record), then `finish()`. Memory is
@@ -156,6 +184,10 @@ export class SignalScanner {
   private threshold = NaN;
   private nextBoundary: number;
   private readonly scale: Float64Array;
+  /** a, b, |b − a| of the hot loop, while ordinaryRun() has them. */
+  private readonly loop = new Float64Array(3);
+  private readonly scaleScratch: Float64Array;
+  private readonly scaleSpare: Float64Array;
   private scaleCount = 0;
   private readonly head: Float64Array;
   private runStart = 0;
@@ -210,6 +242,8 @@ export class SignalScanner {
     this.sums = this.offsetShare !== Infinity || this.driftShare !== Infinity;
     this.nextBoundary = this.block;
     this.scale = new Float64Array(Math.ceil(this.block / DIFFERENCE_STRIDE) + 1);
+    this.scaleScratch = new Float64Array(this.scale.length);
+    this.scaleSpare = new Float64Array(this.scale.length);
     this.head = new Float64Array(this.block);
   }
 
@@ -243,43 +277,73 @@ export class SignalScanner {
     const stuckMin = this.stuckMin;
     const scale = this.scale;
     const findings = this.findings;
-    const sums = this.sums;
+    const st = this.loop;
     while (j < len) {
       if (this.n === this.nextBoundary) this.blockStep();
-      let { n, a, b, ad1, runStart, runLength, max, min, scaleCount } = this;
+      let { n, runStart, runLength, max, min, scaleCount } = this;
       const T = this.spikesOn ? this.threshold : Infinity;
       const from = j;
       const end = Math.min(len, j + (this.nextBoundary - n));
       const segmentStart = n;
-      const before = b;
-      // partial sums of the block (flushed at its end, so the rounding never depends on chunking)
-      let s = this.blockSum;
-      let w = this.blockWeighted;
-      // The hot loop: every check in one pass, inlined (a call per check and sample costs more
-      // than the checks). Rare events (a run that ends, a new extreme) leave the loop's locals.
-      for (let li = n - (this.nextBoundary - this.block); j < end; j++, n++, li++) {
+      const before = this.b;
+      st[0] = this.a;
+      st[1] = this.b;
+      st[2] = this.ad1;
+      // Nearly every sample is ordinary: finite, strictly inside the running extremes, and a
+      // step 0 < |Δx| < T from the sample before. ordinaryRun() passes over those (one test per
+      // sample, see there) and stops at the first other one, which is sorted out here: a
+      // non-finite sample, a new or repeated extreme, a run of equal samples, a spike candidate.
+      // Inside a run of equal samples the half-threshold is 0, so that every sample of the run,
+      // and the one that ends it, stops the run. The sample index is n0 + j.
+      const n0 = n - j;
+      // finite half of the pre-test threshold (a NaN threshold, in the first block, or spikes off: no spike candidates in the loop)
+      const half = T === T && T < Number.MAX_VALUE ? T / 2 : Number.MAX_VALUE / 2;
+      let h = runLength === 0 ? half : 0;
+      for (;;) {
+        j = ordinaryRun(chunk, j, end, st, h, max, min);
+        if (j === end) break;
         const c = chunk[j];
-        if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', n);
-        // a run of equal samples is rare: only its end costs more than one comparison
+        const a = st[0];
+        const b = st[1];
+        const ad1 = st[2];
+        const ad2 = Math.abs(c - b);
+        const i = n0 + j;
+        if (c - c !== 0) throw new SignalError('non-finite-sample', 'history', c, 'samples must be finite numbers', i);
+        // a run of equal samples: only its end reports
         if (c === b) {
-          if (runLength++ === 0) runStart = n - 1;
+          if (runLength++ === 0) {
+            runStart = i - 1;
+            h = 0;
+          }
         } else if (runLength !== 0) {
           if (runLength + 1 >= stuckMin) findings.add(b === 0 ? 'zero-run' : 'stuck-run', runStart, runLength + 1, b);
           runLength = 0;
+          h = half;
         }
-        // Math.abs is branch-free; testing both magnitudes first keeps the rare branch rare
-        const ad2 = Math.abs(c - b);
-        if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', n - 1, 1, b - (a + c) / 2);
-        if (c >= max) max = this.atMaximum(c, n, max);
-        if (c <= min) min = this.atMinimum(c, n, min);
-        if (sums) {
-          s += c;
-          w += li * c;
-        }
-        a = b;
-        b = c;
-        ad1 = ad2;
+        if (ad1 > T && ad2 > T && (b - a) * (c - b) < 0 && Math.abs(c - a) <= (ad1 < ad2 ? ad1 : ad2) / 2) findings.add('spike', i - 1, 1, b - (a + c) / 2);
+        if (c >= max) max = this.atMaximum(c, i, max);
+        if (c <= min) min = this.atMinimum(c, i, min);
+        st[0] = b;
+        st[1] = c;
+        st[2] = ad2;
+        j++;
       }
+      // partial sums of the block (flushed at its end, so the rounding never depends on
+      // chunking), in sample order: a loop of their own keeps their chain of dependent additions
+      // out of the one above
+      if (this.sums) {
+        let s = this.blockSum;
+        let w = this.blockWeighted;
+        const li0 = n - (this.nextBoundary - this.block) - from;
+        for (let k = from; k < end; k++) {
+          const c = chunk[k];
+          s += c;
+          w += (li0 + k) * c;
+        }
+        this.blockSum = s;
+        this.blockWeighted = w;
+      }
+      n = n0 + j;
       // every DIFFERENCE_STRIDE-th difference enters the block's scale: a strided loop of its
       // own (a test and a store in the loop above cost more than this second read)
       if (this.spikesOn) {
@@ -294,9 +358,10 @@ export class SignalScanner {
         const stop = Math.min(n, this.block);
         for (let i = segmentStart, k = from; i < stop; i++, k++) this.head[i] = chunk[k];
       }
-      this.blockSum = s;
-      this.blockWeighted = w;
-      Object.assign(this, { n, a, b, ad1, runStart, runLength, max, min, scaleCount });
+      this.a = st[0];
+      this.b = st[1];
+      this.ad1 = st[2];
+      Object.assign(this, { n, runStart, runLength, max, min, scaleCount });
     }
   }
 
@@ -364,7 +429,7 @@ export class SignalScanner {
   private blockThreshold(): number {
     const k = this.scaleCount;
     if (k === 0) return this.threshold;
-    let m = lowerMedian(this.scale, k);
+    let m = lowerMedian(this.scale, k, this.scaleScratch, this.scaleSpare);
     // a mostly frozen block (a dropout) says nothing of the scale: keep the threshold before it
     if (m === 0 && this.threshold === this.threshold) return this.threshold;
     if (m === 0) {

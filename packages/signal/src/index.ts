@@ -23,5 +23,6 @@ export { splitAtDropouts, type SplitAtDropoutsOptions } from './splitAtDropouts'
 export { removeOffset, type OffsetRemoval, type RemoveOffsetOptions } from './removeOffset';
 export { butterworthSections, butterworthResponse, type ButterworthDesign, type ButterworthOptions } from './butterworthSections';
 export { zeroPhaseLowPass, zeroPhaseLowPassButterworth, zeroPhaseLowPassInto, type LowPassResult, type ZeroPhaseLowPassOptions } from './zeroPhaseLowPass';
+export { conditionSignal, conditionSignalInto, type ConditionSignalOptions, type ConditionedSignal, type SignalConditioning } from './conditionSignal';
 export { decimatePeaks, type DecimatePeaksOptions, type Decimation } from './decimatePeaks';
 export { PeakDecimator } from './PeakDecimator';

@@ -1,6 +1,7 @@
 import { integerOption, onlyKnownFields } from './checkOptions';
 import { butterworthSections, type ButterworthDesign } from './butterworthSections';
 import { correctionRecord, type CorrectionRecord } from './CorrectionRecord';
+import { interpolateSpikeRun } from './removeSpikes';
 import { SignalError } from './SignalError';
 
 /** Options of {@link zeroPhaseLowPass}. */
@@ -68,6 +69,22 @@ export const zeroPhaseLowPass = zeroPhaseLowPassButterworth;
  * filtering in place) holds partial results.
  */
 export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Array, options: ZeroPhaseLowPassOptions): { design: ButterworthDesign; correction: CorrectionRecord } {
+  return lowPassOfCleanedInto(history, out, options, NO_RUNS);
+}
+
+const NO_RUNS: readonly number[] = Object.freeze([]);
+
+/**
+ * The one implementation of {@link zeroPhaseLowPassInto}, filtering the history as it would be
+ * after {@link removeSpikesInto} with the spike runs `runs` (flat [first, length] pairs, in
+ * order, not adjacent): the interpolated samples are written into `out` and read from there by
+ * the first forward pass, every other sample is read from the history, so the result equals
+ * `removeSpikesInto(history, spikes, out)` then `zeroPhaseLowPassInto(out, out, options)` to the
+ * last bit, without the copy. The runs' samples and neighbours must be finite (checked by the
+ * caller: {@link conditionSignalInto} has scanned every sample).
+ * @internal
+ */
+export function lowPassOfCleanedInto(history: ArrayLike<number>, out: Float64Array, options: ZeroPhaseLowPassOptions, runs: readonly number[]): { design: ButterworthDesign; correction: CorrectionRecord } {
   if (options === null || typeof options !== 'object') throw new SignalError('invalid-option', 'options', options, 'must be an options object with cutoff and sampleRate');
   onlyKnownFields(options, ['cutoff', 'sampleRate', 'order', 'padLength'], 'options');
   const design = butterworthSections({ cutoff: options.cutoff, sampleRate: options.sampleRate, ...(options.order === undefined ? {} : { order: options.order }) });
@@ -92,27 +109,47 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
     if (n === 1) out[0] = x[0];
     return { design, correction };
   }
+  // the interpolated spike samples into `out`, with the other sample of each pair they share
+  // (the forward kernel reads pairs from even indices): ranges[] are those [from, to) stretches
+  const ranges: number[] = [];
+  for (let r = 0; r < runs.length; r += 2) {
+    const first = runs[r];
+    const last = first + runs[r + 1] - 1;
+    const from = first - (first % 2);
+    const to = Math.min(n, last + 2 - (last % 2));
+    interpolateSpikeRun(x, first, last, out);
+    if (from < first) out[from] = x[from];
+    if (last + 1 < to) out[last + 1] = x[last + 1];
+    ranges.push(from, to);
+  }
+  // sample i as the filter sees it: interpolated inside a spike run, else the history's
+  let run = 0;
+  const seen = (i: number) => {
+    while (run < runs.length && runs[run] + runs[run + 1] <= i) run += 2;
+    return run < runs.length && runs[run] <= i ? out[i] : x[i];
+  };
   // odd reflection pads: head[k] is sample −(pad − k), tail[k] is sample n + k
   const head = new Float64Array(pad);
   const tail = new Float64Array(pad);
-  for (let k = 0; k < pad; k++) {
-    head[k] = 2 * x[0] - x[pad - k];
-    tail[k] = 2 * x[n - 1] - x[n - 2 - k];
-  }
+  const x0 = seen(0);
+  for (let k = pad - 1; k >= 0; k--) head[k] = 2 * x0 - seen(pad - k);
+  run = 0;
+  for (let k = pad - 1; k >= 0; k--) tail[k] = seen(n - 2 - k);
+  const xLast = seen(n - 1);
+  for (let k = 0; k < pad; k++) tail[k] = 2 * xLast - tail[k];
   const state = new Float64Array(4);
   design.sections.forEach((s, k) => {
-    state.fill(pad > 0 ? head[0] : x[0]);
-    // the first section reads the history and writes `out`; the others work in place
-    const src = k === 0 ? x : out;
+    state.fill(pad > 0 ? head[0] : x0);
     if (s.firstOrder) {
-      firstOrderForward(head, head, s.gain, s.a1, state);
-      firstOrderForward(src, out, s.gain, s.a1, state);
-      firstOrderForward(tail, tail, s.gain, s.a1, state);
-      if (k === 0 && !(state[2] - state[2] === 0)) throw nonFiniteInput(x, out);
+      firstOrderForward(head, head, 0, pad, s.gain, s.a1, state);
+      if (k === 0) forwardOfCleaned(x, out, ranges, s, state);
+      else firstOrderForward(out, out, 0, n, s.gain, s.a1, state);
+      firstOrderForward(tail, tail, 0, pad, s.gain, s.a1, state);
     } else {
-      secondOrderForward(head, head, s.gain, s.a1, s.a2, state);
-      secondOrderForward(src, out, s.gain, s.a1, s.a2, state);
-      secondOrderForward(tail, tail, s.gain, s.a1, s.a2, state);
+      secondOrderForward(head, head, 0, pad, s.gain, s.a1, s.a2, state);
+      if (k === 0) forwardOfCleaned(x, out, ranges, s, state);
+      else secondOrderForward(out, out, 0, n, s.gain, s.a1, s.a2, state);
+      secondOrderForward(tail, tail, 0, pad, s.gain, s.a1, s.a2, state);
     }
     if (k === 0 && !(state[2] - state[2] === 0 && state[3] - state[3] === 0)) throw nonFiniteInput(x, out);
   });
@@ -142,15 +179,35 @@ function nonFiniteInput(x: ArrayLike<number>, out: Float64Array): SignalError {
 // output), which halves the chain of dependent multiply-adds per sample; the forward and
 // backward kernels are written out separately so that each loop has one fixed direction.
 
-function secondOrderForward(src: ArrayLike<number>, buf: Float64Array, g: number, a1: number, a2: number, state: Float64Array): void {
+/**
+ * The first section's forward pass over the history as the filter sees it: the stretches in
+ * `ranges` ([from, to) pairs, even `from`, in order) from `out`, where their interpolated
+ * samples are, the rest from the history. Every stretch starts at an even index, so the pairs
+ * of the kernel are those of one pass over the whole record (the same result to the last bit).
+ */
+function forwardOfCleaned(x: ArrayLike<number>, out: Float64Array, ranges: readonly number[], s: ButterworthDesign['sections'][number], state: Float64Array): void {
+  let from = 0;
+  for (let r = 0; r <= ranges.length; r += 2) {
+    const to = r < ranges.length ? ranges[r] : out.length;
+    // a stretch of the history, then (but after the last) a stretch of interpolated samples
+    if (s.firstOrder) firstOrderForward(x, out, from, to, s.gain, s.a1, state);
+    else secondOrderForward(x, out, from, to, s.gain, s.a1, s.a2, state);
+    if (r === ranges.length) break;
+    if (s.firstOrder) firstOrderForward(out, out, to, ranges[r + 1], s.gain, s.a1, state);
+    else secondOrderForward(out, out, to, ranges[r + 1], s.gain, s.a1, s.a2, state);
+    from = ranges[r + 1];
+  }
+}
+
+function secondOrderForward(src: ArrayLike<number>, buf: Float64Array, from: number, to: number, g: number, a1: number, a2: number, state: Float64Array): void {
   let x1 = state[0];
   let x2 = state[1];
   let y1 = state[2];
   let y2 = state[3];
   const c1 = a1 * a1 - a2;
   const c2 = a1 * a2;
-  const n = buf.length;
-  let i = 0;
+  const n = to;
+  let i = from;
   for (; i + 1 < n; i += 2) {
     const u0 = src[i];
     const u1 = src[i + 1];
@@ -217,10 +274,10 @@ function secondOrderBackward(buf: Float64Array, g: number, a1: number, a2: numbe
   state[3] = y2;
 }
 
-function firstOrderForward(src: ArrayLike<number>, buf: Float64Array, g: number, a1: number, state: Float64Array): void {
+function firstOrderForward(src: ArrayLike<number>, buf: Float64Array, from: number, to: number, g: number, a1: number, state: Float64Array): void {
   let x1 = state[0];
   let y1 = state[2];
-  for (let i = 0; i < buf.length; i++) {
+  for (let i = from; i < to; i++) {
     const u = src[i];
     const o = g * (u + x1) - a1 * y1;
     buf[i] = o;

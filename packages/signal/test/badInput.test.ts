@@ -1,7 +1,7 @@
 // Every public entry point on NaN, ±Infinity, empty, one sample and a constant history: a clear
 // error naming the sample index, or a defined result.
 import { describe, expect, it } from 'vitest';
-import { decimatePeaks, excludeRanges, removeOffset, removeSpikes, scanSignal, splitAtDropouts, zeroPhaseLowPass, FindingTable, SignalError } from '@loopwise/signal';
+import { conditionSignal, decimatePeaks, excludeRanges, removeOffset, removeSpikes, scanSignal, splitAtDropouts, zeroPhaseLowPass, FindingTable, SignalError } from '@loopwise/signal';
 import { LoopwiseError } from '@loopwise/base';
 
 const entries: [string, (x: number[]) => unknown][] = [
@@ -12,6 +12,7 @@ const entries: [string, (x: number[]) => unknown][] = [
   ['removeOffset', (x) => removeOffset(x)],
   ['zeroPhaseLowPass', (x) => zeroPhaseLowPass(x, { cutoff: 1, sampleRate: 10 })],
   ['decimatePeaks', (x) => decimatePeaks(x)],
+  ['conditionSignal', (x) => conditionSignal(x, { lowPass: { cutoff: 1, sampleRate: 10 } })],
 ];
 
 describe('bad input at every entry point', () => {
