@@ -264,7 +264,11 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
     const listed = await page.$$eval('#lives .signal-corrections li', (li) => li.map((e) => (e as HTMLElement).dataset.kind));
     expect(listed).toEqual(['ranges-excluded', 'offset-removed', 'low-pass']);
+    await page.screenshot({ fullPage: true, path: join(ARTEFACTS, 'page-corrections.png') });
     const json = JSON.parse((await exportsEqualTheCommand(page, 'rig-run.csv')).toString('utf8'));
+    // after the cuts the worst loops table also gives the file's sample numbers, as the command's JSON does
+    const inFile = await page.$$eval('#worst tr', (rows) => rows.slice(1).map((r) => (r.children[2] as HTMLElement).textContent));
+    expect(inFile).toEqual(json.channels[0].worstLoopsInFile.slice(0, 5).map((w: { startSample: number; turnSample: number; acrossCut: boolean }) => `${w.startSample}–${w.turnSample}${w.acrossCut ? ' (across a cut)' : ''}`));
     const job = JSON.parse((await download(page, '#export-job')).toString('utf8'));
     expect(job).toMatchObject({ excludeSamples: [{ first: 1000, last: 4999 }], excludeTimes: [{ startTime: 100, endTime: 150 }], subtractOffset: 'mean', lowPass: { cutoffHz: 20, order: 2 } });
     // by hand: the file's time column (0.005 s steps, as written), the library's corrections in
