@@ -5,7 +5,7 @@ import { spikeIndices, spikeRecord, spikeRuns } from './removeSpikes';
 import { scanSignal } from './scanSignal';
 import { SignalError } from './SignalError';
 import type { SignalScan, SignalScanOptions } from './SignalScanner';
-import { lowPassOfCleanedInto, type ZeroPhaseLowPassOptions } from './zeroPhaseLowPass';
+import { checkLowPassOptions, lowPassOfCleanedInto, type ZeroPhaseLowPassOptions } from './zeroPhaseLowPass';
 
 /** Options of {@link conditionSignal} and {@link conditionSignalInto}. */
 export interface ConditionSignalOptions {
@@ -64,6 +64,7 @@ export function conditionSignalInto(history: ArrayLike<number>, out: Float64Arra
   if (history === null || typeof history !== 'object' || typeof history.length !== 'number') throw new SignalError('invalid-argument', 'history', history, 'must be an array or typed array of numbers');
   const n = history.length;
   if (!(out instanceof Float64Array) || out.length !== n) throw new SignalError('invalid-argument', 'out', out, `must be a Float64Array of length ${n}`);
+  checkLowPassOptions(options.lowPass); // refused before the scan's work
   const scan = scanSignal(history, options.checks);
   const idx = spikeIndices(scan.findings, n);
   const runs = spikeRuns(idx);

@@ -75,6 +75,19 @@ export function zeroPhaseLowPassInto(history: ArrayLike<number>, out: Float64Arr
 const NO_RUNS: readonly number[] = Object.freeze([]);
 
 /**
+ * Checks the options of a zero-phase low-pass (fields, cut-off below Nyquist, order, pad length)
+ * and returns the filter's design, before any sample is read: a caller that scans first
+ * refuses bad options without the work of the scan.
+ */
+export function checkLowPassOptions(options: ZeroPhaseLowPassOptions): ButterworthDesign {
+  if (options === null || typeof options !== 'object') throw new SignalError('invalid-option', 'options', options, 'must be an options object with cutoff and sampleRate');
+  onlyKnownFields(options, ['cutoff', 'sampleRate', 'order', 'padLength'], 'options');
+  const design = butterworthSections({ cutoff: options.cutoff, sampleRate: options.sampleRate, ...(options.order === undefined ? {} : { order: options.order }) });
+  integerOption(options.padLength, 'padLength', 0, 0);
+  return design;
+}
+
+/**
  * The one implementation of {@link zeroPhaseLowPassInto}, filtering the history as it would be
  * after {@link removeSpikesInto} with the spike runs `runs` (flat [first, length] pairs, in
  * order, not adjacent): the interpolated samples are written into `out` and read from there by
@@ -85,9 +98,7 @@ const NO_RUNS: readonly number[] = Object.freeze([]);
  * @internal
  */
 export function lowPassOfCleanedInto(history: ArrayLike<number>, out: Float64Array, options: ZeroPhaseLowPassOptions, runs: readonly number[]): { design: ButterworthDesign; correction: CorrectionRecord } {
-  if (options === null || typeof options !== 'object') throw new SignalError('invalid-option', 'options', options, 'must be an options object with cutoff and sampleRate');
-  onlyKnownFields(options, ['cutoff', 'sampleRate', 'order', 'padLength'], 'options');
-  const design = butterworthSections({ cutoff: options.cutoff, sampleRate: options.sampleRate, ...(options.order === undefined ? {} : { order: options.order }) });
+  const design = checkLowPassOptions(options);
   const x = history;
   const n = x.length;
   if (!(out instanceof Float64Array) || out.length !== n) throw new SignalError('invalid-argument', 'out', out, `must be a Float64Array of length ${n}`);

@@ -106,4 +106,25 @@ describe('conditionSignal(history, { checks, lowPass })', () => {
     expect(() => conditionSignalInto([1, 2, 3], new Float64Array(2), { lowPass: { cutoff: 1, sampleRate: 10 } })).toThrow(expect.objectContaining({ code: 'invalid-argument', field: 'out' }));
     expect(() => conditionSignal(42 as never, { lowPass: { cutoff: 1, sampleRate: 10 } })).toThrow(expect.objectContaining({ code: 'invalid-argument', field: 'history' }));
   });
+
+  it('refuses bad low-pass options before it reads a sample (no scan is wasted on them)', () => {
+    // a history that counts its reads: every index access goes through the getter
+    let reads = 0;
+    const n = 1000;
+    const counted = new Proxy({ length: n } as ArrayLike<number>, {
+      get: (t, k) => {
+        if (k === 'length') return n;
+        if (typeof k === 'string' && /^[0-9]+$/.test(k)) reads++;
+        return typeof k === 'string' && /^[0-9]+$/.test(k) ? Math.sin(Number(k)) : Reflect.get(t, k);
+      },
+    });
+    const out = new Float64Array(n);
+    for (const lowPass of [{ cutoff: 6, sampleRate: 10 }, { cutoff: 1, sampleRate: 10, order: 0 }, { cutoff: 1, sampleRate: 10, padLength: -1 }, { cutoff: 1, sampleRate: 10, ripple: 1 }]) {
+      expect(() => conditionSignalInto(counted, out, { lowPass } as never)).toThrow(expect.objectContaining({ code: expect.stringMatching(/invalid-option|unknown-option/) }));
+    }
+    expect(reads).toBe(0);
+    // with good options the same history is read (the counter works)
+    conditionSignalInto(counted, out, { lowPass: { cutoff: 1, sampleRate: 10 } });
+    expect(reads).toBeGreaterThan(0);
+  });
 });
