@@ -20,5 +20,6 @@ export { repeatsText, unitLifeText, designLifeText } from './report/lifeText';
 export { formatNumber } from './report/formatNumber';
 export { fileSampleOf, loopInFile } from './report/cutNumbering';
 export { masingLoop, type CyclicConstants, type MasingLoop } from './report/masingLoop';
+export { snCurvePlot } from './report/snCurvePlot';
 export { readCyclicConstants } from './report/readCyclicConstants';
 export type { HtmlChannel, HtmlMatrix } from './report/HtmlReportInput';

@@ -383,12 +383,25 @@ function showResult(channels: ChannelView[]): void {
 let resultChannels: ChannelView[] = [];
 
 /** Shows channel `k` of the result in the plots and the worst-loops table. */
+/** An SVG element from the report's SVG text (made by our own report code; every text in it escaped). */
+function svgOf(text: string): Element {
+  const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
+  const bad = doc.querySelector('parsererror');
+  if (bad) throw new Error(`the S-N plot could not be read: ${bad.textContent ?? ''}`);
+  return document.importNode(doc.documentElement, true);
+}
+
 function showChannel(k: number): void {
   shown = resultChannels[k] ?? null;
   view = { from: 0, to: shown?.values.length ?? 1 };
   $('history-note').textContent = shown
     ? `${formatNumber(shown.values.length)} samples, drawn as the smallest and largest sample of each pixel column. Bands: the five worst loops (start to turn), numbered by damage. Keys on the plot: ← → pan, + − zoom, Home whole history.`
     : '';
+  // the stress-life route has no local strain: its S-N curve stands where the hysteresis loops do
+  const sn = shown?.snCurve ?? null;
+  $('sn-figure').hidden = sn === null;
+  $('hysteresis-figure').hidden = sn !== null;
+  $('sn').replaceChildren(...(sn === null ? [] : [svgOf(sn)]));
   const worst = $('worst');
   worst.replaceChildren();
   if (shown && shown.report.worstLoops.length > 0) {

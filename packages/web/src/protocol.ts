@@ -24,6 +24,8 @@ export interface ChannelView {
   sampleRate: number | null;
   /** The worst loops drawn from the material model (Masing branches between their corners), by rank; null on the stress-life route or without a cyclic curve. */
   hysteresis: { strain: Float64Array; stress: Float64Array; share: number }[] | null;
+  /** On the stress-life route: the HTML report's S-N curve plot of this channel (SVG text, every text in it escaped), else null. */
+  snCurve: string | null;
   /** Where each event of a duty cycle starts in `values`, with its name (one event for one file). */
   eventStarts: { name: string; start: number }[];
   /** The time column in seconds, when the job takes one (for the time axis), else null. */

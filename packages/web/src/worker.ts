@@ -12,6 +12,7 @@ import {
   MemorySpool,
   readCyclicConstants,
   renderChannelsHtml,
+  snCurvePlot,
   reportTitle,
   signalWarningsOf,
   TOOL,
@@ -164,6 +165,8 @@ async function run(files: File[], jobFile: JobFile): Promise<void> {
       unit: r.unit,
       report,
       hysteresis: hysteresis?.map(({ strain, stress, share }) => ({ strain, stress, share })) ?? null,
+      // the report's own S-N plot (the same drawing as the HTML export's)
+      snCurve: r.report.damage.route === 'stress-life' ? snCurvePlot(html[k], `channel-${k + 1}-sn`, 'MPa') : null,
       corrections: r.corrections,
       signalWarnings: signalWarningsOf(r),
       signalCorrections: r.signalCorrections.map((c) => ({ kind: c.kind, summary: c.summary })),

@@ -155,6 +155,18 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     // the corrections side by side (no Su given: none and SWT), with the caution under them
     expect(await page.$$eval('#corrections tr', (rows) => rows.length)).toBe(3);
     expect(await page.textContent('#corrections .caution')).toContain('licensed engineer');
+    // no local strain on this route: the S-N curve with the worst cycles and the counted spectrum
+    // stands where the hysteresis loops would, the worst cycles at the lives assessLife gives
+    expect(await page.isHidden('#hysteresis-figure')).toBe(true);
+    expect(await page.isVisible('#sn-figure')).toBe(true);
+    expect(await page.$$eval('#sn svg path.sn-curve', (p) => p.length)).toBe(1);
+    expect(Number(await page.getAttribute('#sn svg', 'data-spectrum-steps'))).toBeGreaterThan(0);
+    const dots = (await page.$$eval('#sn svg circle.sn-cycle', (cs) => cs.map((c) => Number((c as SVGElement).dataset.cycles)))) as number[];
+    const lives = want.worstLoops.map((w) => w.cyclesToFailure).filter((n) => Number.isFinite(n) && n > 0);
+    expect(dots.length).toBe(lives.length);
+    expect(dots.length).toBeGreaterThan(0);
+    dots.forEach((n, k) => expect(Math.abs(n / lives[k] - 1), `cycle ${k + 1}`).toBeLessThanOrEqual(1e-12));
+    await page.screenshot({ fullPage: true, path: join(ARTEFACTS, 'page-stress-life.png') });
     await exportsEqualTheCommand(page, 'weld.csv');
     await context.close();
   }, 120_000);
