@@ -149,6 +149,7 @@ export function jobFileOf(form: FormText, fileNames: readonly string[]): JobFile
   if (critical !== undefined) job.criticalDamage = critical;
   job.repeating = form.repeating !== 'no';
   if (form.spikes === 'interpolate') job.interpolateSpikes = true;
+  if (form['flat-runs'] === 'cut') job.excludeFlatRuns = true;
   const samplesCut = rangesOf(form, 'exclude-samples', 'Cut out samples');
   if (samplesCut.length > 0) {
     for (const [a, b] of samplesCut) {

@@ -142,7 +142,8 @@ async function run(files: File[], jobFile: JobFile): Promise<void> {
       },
     });
   }
-  const cut = (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0;
+  // cut out (sample or time ranges, flat runs found): the corrected history is joined across the cuts
+  const cut = got.some((r) => r.cutOut !== undefined && r.cutOut.length > 0);
   const times = time ? time.values.slice(0, time.length) : null;
   if (times) transferLater.push(times.buffer);
   const html = await htmlChannelsOf(got);

@@ -270,6 +270,28 @@ describe.skipIf(binary === null)('the browser page (built, served on 127.0.0.1, 
     await context.close();
   }, 120_000);
 
+  test('flat runs cut out on the page: a dropout at 0 is cut as its sample range would be, the life equals assessLife of the history without it, and the exports are the command\'s bytes', async () => {
+    // rig-run.csv with SG1 at exactly 0 for the samples 20000..20499 (file lines 20003..20502:
+    // a header and a units row above the data)
+    const lines = readFileSync(join(dir, 'rig-run.csv'), 'utf8').split('\n');
+    for (let i = 20000; i <= 20499; i++) lines[i + 2] = lines[i + 2].replace(/^([^;]*);[^;]*;/, '$1;0;');
+    writeFileSync(join(dir, 'dropout.csv'), lines.join('\n'));
+    const { page, context } = await open();
+    await assess(page, 'dropout.csv', { handbook: STEEL, 'flat-runs': 'cut' });
+    const repeats = Number(await page.getAttribute('#lives .repeats', 'data-value'));
+    expect(await page.$$eval('#lives .signal-corrections li', (li) => li.map((e) => (e as HTMLElement).dataset.kind))).toEqual(['ranges-excluded']);
+    const json = JSON.parse((await exportsEqualTheCommand(page, 'dropout.csv')).toString('utf8'));
+    expect(json.channels[0].signalCorrections[0].places).toEqual([{ first: 20000, length: 500 }]);
+    const job = JSON.parse((await download(page, '#export-job')).toString('utf8'));
+    expect(job.excludeFlatRuns).toBe(true);
+    const { segments } = excludeRanges(strain.map((v) => v / 1e6), [{ first: 20000, last: 20499 }]);
+    const joined = new Float64Array(segments.reduce((a, g) => a + g.values.length, 0));
+    segments.reduce((at, g) => (joined.set(g.values, at), at + g.values.length), 0);
+    const want = assessLife(joined, { material: handbookSteels.find((m) => m.name === STEEL)!, input: 'local-strain', meanStress: 'smithWatsonTopper' });
+    expect(Math.abs(repeats - want.life.repeats) / want.life.repeats).toBeLessThanOrEqual(1e-12);
+    await context.close();
+  }, 120_000);
+
   test('corrections chosen on the page (cuts, the mean, the low-pass): the life equals assessLife of @loopwise/signal\'s corrected samples, the page lists them, and the exported job file reruns in the command to the same bytes', async () => {
     const { page, context } = await open();
     await assess(page, 'rig-run.csv', { handbook: STEEL, 'exclude-samples': '1000..4999', 'exclude-time': '100..150', 'subtract-offset': 'mean', 'low-pass': '20', 'low-pass-order': '2' });

@@ -90,6 +90,13 @@ export interface CliJob {
   /** Replace the one-sample spikes the signal checks find by the line between their neighbours before assessing (a single file). */
   interpolateSpikes?: boolean;
   /**
+   * Cut out the flat runs the signal checks find (identical consecutive samples, e.g. a dropout
+   * stuck at a value or at zero) before counting, as sample ranges are cut: every channel's row is
+   * cut where any assessed channel is flat, and the history is joined across each cut. A single
+   * file only.
+   */
+  excludeFlatRuns?: boolean;
+  /**
    * Sample ranges cut out of every channel before counting (sample numbers from 0 as the reports
    * give them, both ends included, in increasing order without overlap); the history is joined
    * across each cut. A single file only.
@@ -156,6 +163,7 @@ export interface JobFile {
   initial?: number;
   offset?: number;
   interpolateSpikes?: boolean;
+  excludeFlatRuns?: boolean;
   excludeSamples?: SampleCut[];
   excludeTimes?: TimeCut[];
   subtractOffset?: number | 'mean';

@@ -236,6 +236,9 @@ export const JOB_FIELDS: Record<string, FieldCheck> = {
   interpolateSpikes: (v, p) => {
     if (typeof v !== 'boolean') throw new JobFieldError(p, `expected true or false, got ${shown(v)}`);
   },
+  excludeFlatRuns: (v, p) => {
+    if (typeof v !== 'boolean') throw new JobFieldError(p, `expected true or false, got ${shown(v)}`);
+  },
   excludeSamples: listOf(objectOf({ first: wholeFromZero, last: wholeFromZero }, ['first', 'last']), 'sample ranges { first, last }'),
   excludeTimes: listOf(objectOf({ startTime: number(), endTime: number() }, ['startTime', 'endTime']), 'time ranges { startTime, endTime }'),
   subtractOffset: (v, p) => {

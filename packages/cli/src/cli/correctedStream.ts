@@ -49,14 +49,19 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
   const extra: CorrectionRecord[][] = channels.map(() => []);
   let read = givenRead;
   let spikes: Float64Array[] | null = null;
-  if (job.interpolateSpikes) {
+  let flatRuns: number[] = [];
+  if (job.interpolateSpikes || job.excludeFlatRuns) {
+    // one first read with the signal checks finds the spikes and the flat runs
     const pre = await givenRead({ ...ctx.options, onChunk: (chunk) => { ctx.check(ctx.at(chunk)); ctx.progress?.(chunk.firstSample + chunk.length, 3); } });
-    spikes = channels.map((_, k) => pre.artefacts?.[k]?.spikes ?? new Float64Array(0));
-    read = spikeInterpolatedReader(givenRead, spikes);
+    if (job.interpolateSpikes) {
+      spikes = channels.map((_, k) => pre.artefacts?.[k]?.spikes ?? new Float64Array(0));
+      read = spikeInterpolatedReader(givenRead, spikes);
+    }
+    if (job.excludeFlatRuns) flatRuns = unionOfRuns(channels.map((_, k) => pre.artefacts?.[k]?.runs ?? new Float64Array(0)));
   }
   const samplesCut = job.excludeSamples ?? [];
   const timesCut = job.excludeTimes ?? [];
-  const cut = samplesCut.length > 0 || timesCut.length > 0 ? new RangeCut(job, samplesCut, timesCut) : null;
+  const cut = samplesCut.length > 0 || timesCut.length > 0 || flatRuns.length > 0 ? new RangeCut(job, samplesCut, timesCut, flatRuns) : null;
   if (cut !== null) read = cut.reader(read);
   // samples of the corrected history, from the first full read
   const counted = { samples: -1 };
@@ -114,6 +119,27 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
 }
 
 /**
+ * The union of the channels' flat runs (each flat [first, length] pairs in increasing order) as
+ * flat [first, length] pairs in increasing order, runs that overlap or touch made one.
+ *
+ * @example
+ * unionOfRuns([Float64Array.of(10, 5, 40, 3), Float64Array.of(12, 8)]);
+ * // returns [10, 10, 40, 3]
+ */
+export function unionOfRuns(runs: readonly ArrayLike<number>[]): number[] {
+  const all: [number, number][] = [];
+  for (const r of runs) for (let p = 0; p + 1 < r.length; p += 2) if (r[p + 1] > 0) all.push([r[p], r[p] + r[p + 1]]);
+  all.sort((a, b) => a[0] - b[0]);
+  const out: number[] = [];
+  for (const [from, to] of all) {
+    const m = out.length;
+    if (m > 0 && from <= out[m - 2] + out[m - 1]) out[m - 1] = Math.max(out[m - 2] + out[m - 1], to) - out[m - 2];
+    else out.push(from, to - from);
+  }
+  return out;
+}
+
+/**
  * A reader whose chunks have every channel's samples less `offsets[k]` (in the chunk's unit),
  * by @loopwise/signal's removeOffset on each chunk. Any chunking gives the same samples.
  */
@@ -146,6 +172,8 @@ export class RangeCut {
     private readonly job: CliJob,
     private readonly samples: readonly SampleCut[],
     private readonly times: readonly TimeCut[],
+    /** The flat runs found by the signal checks, flat [first, length] in increasing order (`excludeFlatRuns`). */
+    private readonly flatRuns: readonly number[] = [],
   ) {}
 
   /** A reader of the kept samples from `read`, the reader of the file (or of its corrected samples). */
@@ -184,9 +212,11 @@ export class RangeCut {
     const rate = this.job.time !== undefined && 'sampleRate' in this.job.time ? this.job.time.sampleRate : null;
     const places: number[] = [];
     const caught = t.map(() => false);
+    const runs = this.flatRuns;
     let lo = Infinity;
     let hi = -Infinity;
     let sp = 0;
+    let rp = 0;
     let kept = 0;
     const report = await read({
       ...options,
@@ -198,6 +228,8 @@ export class RangeCut {
           let out = false;
           while (sp < s.length && s[sp].last < i) sp++;
           if (sp < s.length && s[sp].first <= i) out = true;
+          while (rp < runs.length && runs[rp] + runs[rp + 1] <= i) rp += 2;
+          if (rp < runs.length && runs[rp] <= i) out = true;
           if (t.length > 0) {
             // as excludeRanges of @loopwise/signal: t = i / rate with a sample rate, else the column's value
             const ti = time !== null ? time[j] : i / (rate as number);
@@ -231,7 +263,10 @@ export class RangeCut {
         throw new UsageError(`${settingName(this.job, `excludeTimes[${k}]`, 'exclude-time')}: ${r.startTime}..${r.endTime} holds no sample of ${name} (${span}${rate !== null ? ' s' : ", in the time column's unit"})`);
       }
     });
-    if (kept === 0) throw new UsageError(`${settingName(this.job, s.length > 0 ? 'excludeSamples' : 'excludeTimes', s.length > 0 ? 'exclude-samples' : 'exclude-time')}: cuts out every sample of ${name}; nothing is left to assess`);
+    if (kept === 0) {
+      const [field, flag] = s.length > 0 ? ['excludeSamples', 'exclude-samples'] : t.length > 0 ? ['excludeTimes', 'exclude-time'] : ['excludeFlatRuns', 'exclude-flat-runs'];
+      throw new UsageError(`${settingName(this.job, field, flag)}: cuts out every sample of ${name}; nothing is left to assess`);
+    }
     this.places = places;
     this.fileSamples = n;
     return report;
@@ -274,13 +309,18 @@ export class RangeCut {
     const parameters: Record<string, string> = { joined: 'the history is joined across each cut' };
     if (this.samples.length > 0) parameters.sampleRanges = shown(this.samples.map((r) => `${r.first}..${r.last}`));
     if (this.times.length > 0) parameters.timeRanges = shown(this.times.map((r) => `${r.startTime}..${r.endTime}`)) + (this.job.time !== undefined && 'sampleRate' in this.job.time ? ' s' : " (time column's unit)");
+    if (this.flatRuns.length > 0) {
+      let inRuns = 0;
+      for (let p = 1; p < this.flatRuns.length; p += 2) inRuns += this.flatRuns[p];
+      parameters.flatRuns = `${this.flatRuns.length / 2} flat run(s) the signal checks found, ${inRuns} samples: ${shown(placesText(this.flatRuns))}`;
+    }
     const where = places.length === 0 ? '' : `: samples ${shown(placesText(places))}`;
     return recordOf(
       'ranges-excluded',
       places,
       removed,
       parameters,
-      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}); the history is joined across each cut, ${keptSamples} samples kept; its sample numbers count the samples kept (the worst loops are also given in the file's)`,
+      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}${this.flatRuns.length > 0 ? `; they hold the ${this.flatRuns.length / 2} flat run(s) the signal checks found` : ''}); the history is joined across each cut, ${keptSamples} samples kept; its sample numbers count the samples kept (the worst loops are also given in the file's)`,
     );
   }
 

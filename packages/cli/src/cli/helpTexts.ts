@@ -57,6 +57,9 @@ Model:
 Corrections of the signal (applied in this order before counting; every output lists them):
   --interpolate-spikes     the one-sample spikes the signal checks find replaced by the line
                            between their neighbours (one more read; the output says which)
+  --exclude-flat-runs      cut out the flat runs the signal checks find (a dropout stuck at a
+                           value or at zero; rows where any channel is flat), joined across as
+                           --exclude-samples (one more read, shared with --interpolate-spikes)
   --exclude-samples <a>..<b>  cut samples a to b (numbers from 0, both included) out; repeat or
                            separate by commas for several, in increasing order; the history is
                            joined across each cut and later sample numbers count the samples kept
@@ -132,7 +135,7 @@ found by a scan over 0.05 … 20 and bisection to 1e-6 relative. Damage need not
 load when mean stresses matter; the output says whether the scan saw it fall. The search runs
 on the turning points of the history (the same loops at every factor); progress shows on a
 terminal (--quiet hides it). The corrections of the signal (--interpolate-spikes,
---exclude-samples, --exclude-time, --subtract-offset, --low-pass) apply as in assess, and the
+--exclude-flat-runs, --exclude-samples, --exclude-time, --subtract-offset, --low-pass) apply as in assess, and the
 factor scales the corrected samples.
 
   --target-repeats <n>     target life in repeats of the history (or of the job's duty cycle)

@@ -59,7 +59,7 @@ export function jobOfJobFile(value: unknown, path: string, access: JobFileAccess
     events: events ?? null,
     jobShown: path,
   };
-  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'dialect', 'initial', 'offset', 'interpolateSpikes', 'excludeSamples', 'excludeTimes', 'subtractOffset', 'lowPass'] as const) {
+  for (const k of ['notch', 'walkerGamma', 'gate', 'gateFraction', 'fullScale', 'cutoffCycles', 'criticalDamage', 'service', 'time', 'dialect', 'initial', 'offset', 'interpolateSpikes', 'excludeFlatRuns', 'excludeSamples', 'excludeTimes', 'subtractOffset', 'lowPass'] as const) {
     if (json[k] !== undefined) (job as unknown as Record<string, unknown>)[k] = json[k];
   }
   checkRoute(job, path);

@@ -78,6 +78,7 @@ const MODEL = {
   'sn-curve': { type: 'string' },
   'hot-spot': { type: 'string' },
   'interpolate-spikes': { type: 'boolean' },
+  'exclude-flat-runs': { type: 'boolean' },
   'exclude-samples': { type: 'string', multiple: true },
   'exclude-time': { type: 'string', multiple: true },
   'subtract-offset': { type: 'string' },
@@ -306,6 +307,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   opt('cutoffCycles', 'cutoff-cycles');
   opt('criticalDamage', 'critical-damage');
   if (values['interpolate-spikes']) job.interpolateSpikes = true;
+  if (values['exclude-flat-runs']) job.excludeFlatRuns = true;
   const samplesCut = rangesOf(values, 'exclude-samples');
   if (samplesCut.length > 0) {
     for (const [a, b] of samplesCut) {

@@ -17,12 +17,7 @@ export function settingName(job: CliJob, field: string, flag: string): string {
 
 /** Whether the job asks for a correction of the signal that changes the samples (spikes, cuts, offset, low-pass). */
 export function asksSignalCorrections(job: CliJob): boolean {
-  return Boolean(job.interpolateSpikes) || (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0 || job.subtractOffset !== undefined || job.lowPass !== undefined;
-}
-
-/** Whether the job cuts ranges out of the history. */
-export function cutsRanges(job: CliJob): boolean {
-  return (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0;
+  return Boolean(job.interpolateSpikes) || Boolean(job.excludeFlatRuns) || (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0 || job.subtractOffset !== undefined || job.lowPass !== undefined;
 }
 
 /**
@@ -50,8 +45,8 @@ export function checkSignalCorrections(job: CliJob): void {
     throw new UsageError(`${settingName(job, 'excludeTimes', 'exclude-time')}: needs the file's time base: ${job.jobShown ? 'set "time" to a time column or a sample rate' : 'give --time-column or --sample-rate'}`);
   }
   if (job.events !== null) {
-    if (samples.length > 0 || times.length > 0) {
-      const name = samples.length > 0 ? settingName(job, 'excludeSamples', 'exclude-samples') : settingName(job, 'excludeTimes', 'exclude-time');
+    if (samples.length > 0 || times.length > 0 || job.excludeFlatRuns) {
+      const name = samples.length > 0 ? settingName(job, 'excludeSamples', 'exclude-samples') : times.length > 0 ? settingName(job, 'excludeTimes', 'exclude-time') : settingName(job, 'excludeFlatRuns', 'exclude-flat-runs');
       throw new UsageError(`${name}: cuts apply to a single file; a duty cycle's events are separate files (cut the event's file, or make its parts two events)`);
     }
     if (job.subtractOffset === 'mean') {
