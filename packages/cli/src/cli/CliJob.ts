@@ -118,6 +118,13 @@ export interface CliJob {
   lowPass?: LowPassAsked;
 }
 
+/**
+ * What the corrections of the signal need of a job: the channels (their own units, for the
+ * records), the time base, where the settings came from (for messages), and the corrections
+ * themselves. A {@link CliJob} is one; `loopwise count`, which has no model, makes one of its own.
+ */
+export type CorrectionJob = Pick<CliJob, 'channels' | 'events' | 'time' | 'timeSecondsPerUnit' | 'jobShown' | 'interpolateSpikes' | 'excludeFlatRuns' | 'excludeSamples' | 'excludeTimes' | 'subtractOffset' | 'lowPass'>;
+
 /** A range of samples to cut out: sample numbers from 0, both ends included. */
 export interface SampleCut {
   first: number;

@@ -2,7 +2,7 @@ import { NeumaierAdder } from '@loopwise/base';
 import type { ChannelArtefacts, IngestChunk, IngestReport, ReaderOptions } from '@loopwise/ingest';
 import { removeOffset, zeroPhaseLowPassInto, type CorrectionRecord } from '@loopwise/signal';
 import { UsageError } from './CliError';
-import type { CliJob, SampleCut, TimeCut } from './CliJob';
+import type { CorrectionJob, SampleCut, TimeCut } from './CliJob';
 import { spikeInterpolatedReader } from './spikeInterpolation';
 import { checkCutoff, DEFAULT_LOW_PASS_ORDER, offsetInEngineUnit, offsetInOwnUnit, offsetRecord, recordOf, settingName, spikeRecord } from './signalCorrections';
 import { timeBaseOf } from './timeBase';
@@ -11,8 +11,18 @@ type Read = (options: ReaderOptions) => Promise<IngestReport>;
 
 /** What the single-file route needs of a first read (progress and the memory guard). */
 export interface CorrectionContext {
-  /** The reader options of the job (channels, name, time, dialect). */
+  /**
+   * The reader options of the job (channels, name, time, dialect). The samples are in the unit
+   * these channels convert to: the engine unit when they are the job's channels (assess), the
+   * file's own unit when they read the values as they are (count); a given offset, in the job
+   * channel's own unit, is converted like the samples.
+   */
   options: Omit<ReaderOptions, 'onChunk'>;
+  /**
+   * What the caller also gives in the file's sample numbers after a cut, for the cut's record
+   * (its sample numbers count the samples kept); default `'the worst loops'`, null for nothing.
+   */
+  alsoInFileNumbers?: string | null;
   check: (where: () => string) => void;
   at: (chunk: { firstSample: number; length: number }) => () => string;
   progress?: (samples: number, pass: 1 | 2 | 3) => void;
@@ -44,7 +54,7 @@ export interface CorrectedStream {
  * filtered, then handed on from memory: the file is read once for it). Streams (memory flat)
  * unless the low-pass is asked. The command and the browser page both read through here.
  */
-export async function correctedStream(job: CliJob, givenRead: Read, ctx: CorrectionContext): Promise<CorrectedStream> {
+export async function correctedStream(job: CorrectionJob, givenRead: Read, ctx: CorrectionContext): Promise<CorrectedStream> {
   const channels = job.channels;
   const extra: CorrectionRecord[][] = channels.map(() => []);
   let read = givenRead;
@@ -61,7 +71,7 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
   }
   const samplesCut = job.excludeSamples ?? [];
   const timesCut = job.excludeTimes ?? [];
-  const cut = samplesCut.length > 0 || timesCut.length > 0 || flatRuns.length > 0 ? new RangeCut(job, samplesCut, timesCut, flatRuns) : null;
+  const cut = samplesCut.length > 0 || timesCut.length > 0 || flatRuns.length > 0 ? new RangeCut(job, samplesCut, timesCut, flatRuns, ctx.alsoInFileNumbers === undefined ? 'the worst loops' : ctx.alsoInFileNumbers) : null;
   if (cut !== null) read = cut.reader(read);
   // samples of the corrected history, from the first full read
   const counted = { samples: -1 };
@@ -74,6 +84,8 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
   };
   const offsetRecords: ((n: number) => CorrectionRecord)[] = [];
   if (job.subtractOffset !== undefined) {
+    // each channel as read: its samples' unit (engine units, or the file's own for a count)
+    const asRead = ctx.options.channels;
     let offsets: number[];
     if (job.subtractOffset === 'mean') {
       const sums = channels.map(() => new NeumaierAdder());
@@ -94,10 +106,11 @@ export async function correctedStream(job: CliJob, givenRead: Read, ctx: Correct
       offsets = sums.map((s) => (n === 0 ? 0 : s.valueOf() / n));
     } else {
       const given = job.subtractOffset;
-      offsets = channels.map((c) => offsetInEngineUnit(c, given));
+      offsets = channels.map((_, k) => offsetInEngineUnit(asRead[k], given));
     }
     const mean = job.subtractOffset === 'mean';
-    channels.forEach((c, k) => offsetRecords.push((n) => offsetRecord(c, mean ? offsetInOwnUnit(c, offsets[k]) : (job.subtractOffset as number), n, mean)));
+    // the record in the job channel's own unit (µε for a microstrain channel), as the offset is given
+    channels.forEach((c, k) => offsetRecords.push((n) => offsetRecord(c, mean ? offsetInOwnUnit(asRead[k], offsets[k]) : (job.subtractOffset as number), n, mean)));
     read = offsetReader(read, offsets);
   }
   if (job.lowPass !== undefined) read = lowPassHeld(job, read, ctx, extra);
@@ -168,12 +181,17 @@ export class RangeCut {
   private places: number[] | null = null;
   private fileSamples = 0;
 
+  /**
+   * @param alsoInFileNumbers - what the caller also gives in the file's sample numbers, for the
+   *   record's summary (`'the worst loops'`), or null for nothing; default null
+   */
   constructor(
-    private readonly job: CliJob,
+    private readonly job: CorrectionJob,
     private readonly samples: readonly SampleCut[],
     private readonly times: readonly TimeCut[],
     /** The flat runs found by the signal checks, flat [first, length] in increasing order (`excludeFlatRuns`). */
     private readonly flatRuns: readonly number[] = [],
+    private readonly alsoInFileNumbers: string | null = null,
   ) {}
 
   /** A reader of the kept samples from `read`, the reader of the file (or of its corrected samples). */
@@ -320,7 +338,7 @@ export class RangeCut {
       places,
       removed,
       parameters,
-      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}${this.flatRuns.length > 0 ? `; they hold the ${this.flatRuns.length / 2} flat run(s) the signal checks found` : ''}); the history is joined across each cut, ${keptSamples} samples kept; its sample numbers count the samples kept (the worst loops are also given in the file's)`,
+      `${places.length / 2} range(s) cut out (${removed} of ${this.fileSamples} samples${where}${this.flatRuns.length > 0 ? `; they hold the ${this.flatRuns.length / 2} flat run(s) the signal checks found` : ''}); the history is joined across each cut, ${keptSamples} samples kept; its sample numbers count the samples kept${this.alsoInFileNumbers === null ? '' : ` (${this.alsoInFileNumbers} are also given in the file's)`}`,
     );
   }
 
@@ -376,7 +394,7 @@ const HELD_CHUNK = 65536;
  * column), filters each channel in place (`zeroPhaseLowPassInto` of @loopwise/signal) and hands
  * it on; every read after it hands on the filtered samples from memory.
  */
-function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: CorrectionRecord[][]): Read {
+function lowPassHeld(job: CorrectionJob, read: Read, ctx: CorrectionContext, records: CorrectionRecord[][]): Read {
   const lp = job.lowPass!;
   let held: { report: IngestReport; channels: Float64Array[]; time: Float64Array | null; length: number } | null = null;
   return async (options) => {
@@ -436,7 +454,7 @@ function lowPassHeld(job: CliJob, read: Read, ctx: CorrectionContext, records: C
 }
 
 /** The sample rate of a file for the low-pass: the one given, or 1 / the mean step of an evenly stepped time column (in seconds). */
-function sampleRateOf(job: CliJob, report: IngestReport, name: string): number {
+function sampleRateOf(job: CorrectionJob, report: IngestReport, name: string): number {
   if (job.time !== undefined && 'sampleRate' in job.time) return job.time.sampleRate;
   const base = timeBaseOf(report, job.timeSecondsPerUnit);
   if (base === null || !(base.step > 0)) {

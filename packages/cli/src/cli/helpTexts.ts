@@ -119,11 +119,27 @@ Usage: loopwise count <file> [options]
   --cycles-out <file>      write every cycle as CSV
   --json                   print the summary as JSON
   --memory-limit <MB>      stop with an error before using more memory (default 1024)
+Corrections of the signal, as for assess (applied in this order before the range is found and
+the cycles counted; the summary lists each one):
+  --interpolate-spikes     the one-sample spikes the signal checks find replaced by the line
+                           between their neighbours (one more read)
+  --exclude-flat-runs      cut out the flat runs the signal checks find (dropouts), as ranges
+  --exclude-samples <a>..<b>, --exclude-time <t0>..<t1>
+                           cut ranges out (repeat, or separate by commas; in increasing order);
+                           the history is joined across each cut and the sample numbers of the
+                           cycles CSV count the samples kept
+  --subtract-offset <x|mean>  subtract x, in the channel's own unit as counted (µε stays µε), or
+                           the mean of the samples kept (one more read)
+  --low-pass <Hz>          zero-phase Butterworth low-pass below half the sample rate (needs
+                           --sample-rate or a time column with even steps); --low-pass-order <n>
+                           per pass, 1 … 16 (default 2). Holds the channel in memory (refused
+                           above half of --memory-limit)
 The file may be - (standard input); an output may be - (standard output).
 
 Examples:
   loopwise count fillet.csv --column strain_ue --quantity strain --unit microstrain --matrix-out fillet-matrix.json
-  loopwise count loads.csv --column 3 --gate-fraction 0.02 --residue repeat`,
+  loopwise count loads.csv --column 3 --gate-fraction 0.02 --residue repeat
+  loopwise count rig.csv --column strain_ue --quantity strain --unit microstrain --interpolate-spikes --exclude-samples 0..4999`,
 
   margin: `loopwise margin: load factor at which the life falls to a target
 

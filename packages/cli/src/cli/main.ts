@@ -6,7 +6,7 @@ import { handbookSteels, type Material } from '@loopwise/material';
 import { CycleTable, FromToMatrix, RainflowCounter, RangeMeanMatrix, type CycleMatrix } from '@loopwise/rainflow';
 import { readDelimited, type TimeSource } from '../ingest';
 import { exitCodeOf, oneLine, UsageError } from './CliError';
-import { checkRoute, readJobFile, type CliChannel, type CliJob } from './CliJob';
+import { checkRoute, readJobFile, type CliChannel, type CliJob, type CorrectionJob } from './CliJob';
 import { parseSnCurveSpec } from './snCurveSpec';
 import { FileAccess, OUTSIDE_OPTION } from './FileAccess';
 import { InputFiles } from './InputFiles';
@@ -17,9 +17,11 @@ import { SpoolFile } from './SpoolFile';
 import { formatCount, formatNumber } from '../report/formatNumber.js';
 import { HELP } from './helpTexts';
 import { chooseColumns, dialectOf, LAYOUT_OPTIONS, surveyFile } from './fileLayout';
-import { jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
+import { correctionJson, jsonReport, stableJson, summaryText, writeCyclesCsv } from './outputs';
 import { resolveMaterial, type MaterialSpec } from './resolveMaterial';
-import { runAssessment, type ChannelResult } from './runAssessment';
+import { checkLowPassMemory, runAssessment, type ChannelResult } from './runAssessment';
+import { correctedStream } from './correctedStream';
+import { checkSignalCorrections } from './signalCorrections';
 import { runMargin } from './marginCommand';
 import { renderChannelsHtml, reportTitle } from './renderChannelsHtml';
 
@@ -65,6 +67,17 @@ const CHANNEL = {
   ...LAYOUT_OPTIONS,
 } as const;
 
+/** The corrections of the signal (assess, margin and count; parsed by {@link signalCorrectionsOf}). */
+const SIGNAL_CORRECTIONS = {
+  'interpolate-spikes': { type: 'boolean' },
+  'exclude-flat-runs': { type: 'boolean' },
+  'exclude-samples': { type: 'string', multiple: true },
+  'exclude-time': { type: 'string', multiple: true },
+  'subtract-offset': { type: 'string' },
+  'low-pass': { type: 'string' },
+  'low-pass-order': { type: 'string' },
+} as const;
+
 const MODEL = {
   ...CHANNEL,
   material: { type: 'string' },
@@ -77,13 +90,7 @@ const MODEL = {
   'walker-gamma': { type: 'string' },
   'sn-curve': { type: 'string' },
   'hot-spot': { type: 'string' },
-  'interpolate-spikes': { type: 'boolean' },
-  'exclude-flat-runs': { type: 'boolean' },
-  'exclude-samples': { type: 'string', multiple: true },
-  'exclude-time': { type: 'string', multiple: true },
-  'subtract-offset': { type: 'string' },
-  'low-pass': { type: 'string' },
-  'low-pass-order': { type: 'string' },
+  ...SIGNAL_CORRECTIONS,
   'hot-spot-modulus': { type: 'string' },
   'stress-factor': { type: 'string' },
   'ultimate-strength': { type: 'string' },
@@ -211,6 +218,34 @@ function rangesOf(values: Record<string, unknown>, name: string): [number, numbe
   return out;
 }
 
+/**
+ * The corrections of the signal given as options (`--interpolate-spikes`, `--exclude-samples`,
+ * `--exclude-time`, `--subtract-offset`, `--low-pass`, `--low-pass-order`), as a job's fields;
+ * only those given. Checks what the options alone say (numbers, whole sample numbers, the order
+ * without the cut-off); checkSignalCorrections checks them against each other and the time base.
+ */
+function signalCorrectionsOf(values: Record<string, unknown>): Pick<CorrectionJob, 'interpolateSpikes' | 'excludeFlatRuns' | 'excludeSamples' | 'excludeTimes' | 'subtractOffset' | 'lowPass'> {
+  const out: Pick<CorrectionJob, 'interpolateSpikes' | 'excludeFlatRuns' | 'excludeSamples' | 'excludeTimes' | 'subtractOffset' | 'lowPass'> = {};
+  if (values['interpolate-spikes']) out.interpolateSpikes = true;
+  if (values['exclude-flat-runs']) out.excludeFlatRuns = true;
+  const samplesCut = rangesOf(values, 'exclude-samples');
+  if (samplesCut.length > 0) {
+    for (const [a, b] of samplesCut) {
+      if (!(Number.isInteger(a) && a >= 0 && Number.isInteger(b) && b >= 0)) throw new UsageError(`--exclude-samples: ${a}..${b}: sample numbers are whole numbers from 0, as the reports give them`);
+    }
+    out.excludeSamples = samplesCut.map(([first, last]) => ({ first, last }));
+  }
+  const timesCut = rangesOf(values, 'exclude-time');
+  if (timesCut.length > 0) out.excludeTimes = timesCut.map(([startTime, endTime]) => ({ startTime, endTime }));
+  const offsetGiven = values['subtract-offset'] as string | undefined;
+  if (offsetGiven !== undefined) out.subtractOffset = offsetGiven.trim() === 'mean' ? 'mean' : (num(values, 'subtract-offset') as number);
+  const cutoff = num(values, 'low-pass');
+  const order = num(values, 'low-pass-order');
+  if (cutoff !== undefined) out.lowPass = { cutoffHz: cutoff, ...(order !== undefined ? { order } : {}) };
+  else if (order !== undefined) throw new UsageError('--low-pass-order: only with --low-pass <cut-off Hz>');
+  return out;
+}
+
 function serviceOf(values: Record<string, unknown>): CliJob['service'] | undefined {
   const s = values.service as string | undefined;
   if (s === undefined) return undefined;
@@ -306,23 +341,7 @@ async function jobFromFlags(values: Record<string, unknown>, positionals: string
   opt('fullScale', 'full-scale');
   opt('cutoffCycles', 'cutoff-cycles');
   opt('criticalDamage', 'critical-damage');
-  if (values['interpolate-spikes']) job.interpolateSpikes = true;
-  if (values['exclude-flat-runs']) job.excludeFlatRuns = true;
-  const samplesCut = rangesOf(values, 'exclude-samples');
-  if (samplesCut.length > 0) {
-    for (const [a, b] of samplesCut) {
-      if (!(Number.isInteger(a) && a >= 0 && Number.isInteger(b) && b >= 0)) throw new UsageError(`--exclude-samples: ${a}..${b}: sample numbers are whole numbers from 0, as the reports give them`);
-    }
-    job.excludeSamples = samplesCut.map(([first, last]) => ({ first, last }));
-  }
-  const timesCut = rangesOf(values, 'exclude-time');
-  if (timesCut.length > 0) job.excludeTimes = timesCut.map(([startTime, endTime]) => ({ startTime, endTime }));
-  const offsetGiven = values['subtract-offset'] as string | undefined;
-  if (offsetGiven !== undefined) job.subtractOffset = offsetGiven.trim() === 'mean' ? 'mean' : (num(values, 'subtract-offset') as number);
-  const cutoff = num(values, 'low-pass');
-  const order = num(values, 'low-pass-order');
-  if (cutoff !== undefined) job.lowPass = { cutoffHz: cutoff, ...(order !== undefined ? { order } : {}) };
-  else if (order !== undefined) throw new UsageError('--low-pass-order: only with --low-pass <cut-off Hz>');
+  Object.assign(job, signalCorrectionsOf(values));
   const service = serviceOf(values);
   if (service) job.service = service;
   if (layout.time) job.time = layout.time;
@@ -440,7 +459,7 @@ async function marginOf(job: CliJob, values: Record<string, unknown>, io: Io, gu
 async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parse(
     args,
-    { ...CHANNEL, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'from-to-out': { type: 'string' }, 'matrix-format': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, 'memory-limit': { type: 'string' } },
+    { ...CHANNEL, ...SIGNAL_CORRECTIONS, residue: { type: 'string' }, 'range-bins': { type: 'string' }, 'mean-bins': { type: 'string' }, 'matrix-out': { type: 'string' }, 'from-to-out': { type: 'string' }, 'matrix-format': { type: 'string' }, 'cycles-out': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, 'memory-limit': { type: 'string' } },
     'count',
   );
   if (values.help) {
@@ -464,6 +483,19 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     if (!Number.isInteger(v) || v < 1 || v > 4096) throw new UsageError(`--${k}: an integer from 1 to 4096, got ${v}`);
   }
   const time = layout.time;
+  // the corrections of the signal as assess takes them, checked before anything is read; the
+  // channel keeps its own unit here (a given offset is in it, and the records say it)
+  const job: CorrectionJob & Pick<CliJob, 'file' | 'fileShown'> = {
+    channels,
+    events: null,
+    file,
+    fileShown: data.shown,
+    ...(time ? { time } : {}),
+    ...(layout.timeSecondsPerUnit !== undefined ? { timeSecondsPerUnit: layout.timeSecondsPerUnit } : {}),
+    ...signalCorrectionsOf(values),
+  };
+  checkSignalCorrections(job);
+  checkLowPassMemory(job, guard);
   // the count stays in the channel's own unit (µε stays µε): the samples are read as they are
   // in the file, so the gate, the matrix, the cycles and the spectrum are all in that unit
   const own = ownUnitOf(channels[0]);
@@ -479,10 +511,14 @@ async function countCommand(args: string[], io: Io): Promise<number> {
   const spool = values['cycles-out'] !== undefined ? new SpoolFile('the cycles') : null;
   if (spool) outputs.add('--cycles-out', values['cycles-out'] as string, (sink) => spool.copyTo(sink));
   if (outputs.usesStdout && values.json) throw new UsageError('--json: the summary cannot go to standard output when an output file is "-"');
+  // every read below is of the corrected samples (the file's own when nothing is asked); after a
+  // cut they are numbered in the history joined across the cuts, as in assess
+  const at = (c: { firstSample: number; length: number }) => () => `while reading ${data.shown} (sample ${c.firstSample + c.length})`;
+  const corrected = await correctedStream(job, (o) => readDelimited(file, o), { options: opts, check: (where) => guard.check(where), at, alsoInFileNumbers: null });
   // first read: the range, for the bins and a gate fraction (memory does not grow with the file)
   let lo = Infinity;
   let hi = -Infinity;
-  const source = await readDelimited(file, {
+  const source = await corrected.read({
     ...opts,
     onChunk: (c) => {
       const v = c.channels[0];
@@ -525,7 +561,7 @@ async function countCommand(args: string[], io: Io): Promise<number> {
         }
       : matrix;
   const counter = new RainflowCounter({ residue: residue as 'half', gate, sink: both });
-  await readDelimited(file, { ...opts, checks: false, onChunk: (c) => { counter.push(c.channels[0]); guard.check(() => `while counting ${data.shown}`); } });
+  await corrected.read({ ...opts, checks: false, onChunk: (c) => { counter.push(c.channels[0]); guard.check(() => `while counting ${data.shown}`); } });
   const result = counter.finish();
   if (spool) flushBatch();
   // exceedance spectrum from the matrix rows: cycles with a range in this bin or above
@@ -552,6 +588,10 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     cycles: matrix.totalCount(),
     largestRange: hi - lo,
     spectrum,
+    // the corrections applied before counting, as assess reports them (empty: as measured)
+    signalCorrections: corrected.records(0).map(correctionJson),
+    // after a cut the cycles' sample numbers count the samples kept (the history joined across the cuts)
+    sampleNumbers: corrected.cut ? 'kept' : 'file',
     warnings: source.warnings.map((w) => w.message),
   };
   try {
@@ -565,6 +605,8 @@ async function countCommand(args: string[], io: Io): Promise<number> {
     const u = summary.unit;
     const lines = [
       `${summary.channel} in ${summary.file}: ${summary.samples} samples, ${summary.turningPoints} turning points`,
+      ...(summary.signalCorrections.length > 0 ? summary.signalCorrections.map((c) => `corrected ${c.summary}`) : ['corrected none: the samples as measured']),
+      ...(corrected.cut ? ["sample numbers (the cycles CSV's start_sample, turn_sample, close_sample) count the samples kept: the history is joined across the cuts"] : []),
       `gate ${formatNumber(gate)} ${u} removed ${summary.removedReversals} reversals; residue counted as ${residue}`,
       `cycles ${formatCount(summary.cycles)}; largest range ${formatNumber(summary.largestRange)} ${u}`,
       'range exceedance (cycles with a range at or above):',

@@ -103,8 +103,8 @@ export function jsonReport(command: string, tool: string, results: ChannelResult
   );
 }
 
-/** A correction record for the JSON report: its kind, one line, the samples it touched, its settings and places (sample number and length of each). */
-function correctionJson(c: ChannelResult['signalCorrections'][number]): unknown {
+/** A correction record for the JSON report (and count's summary): its kind, one line, the samples it touched, its settings and places (sample number and length of each). */
+export function correctionJson(c: ChannelResult['signalCorrections'][number]): { kind: string; summary: string; samples: number; parameters: Readonly<Record<string, number | string>>; places: { first: number; length: number }[] } {
   return { kind: c.kind, summary: c.summary, samples: c.samples, parameters: c.parameters, places: Array.from(c.first, (first, k) => ({ first, length: c.length[k] })) };
 }
 

@@ -54,8 +54,7 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     const plain: EventRead = (event, options) => readDelimitedColumns(event.file, options);
     return runDutyCycle(job, guard, keepLoops, hot && plan ? hotSpotEventReader(plain, hot, gauges, plan) : plain);
   }
-  // the low-pass holds the file's channels in memory: refused up front beyond the memory limit
-  if (job.lowPass !== undefined) guard.checkHeld({ path: job.file as string, shown: job.fileShown ?? (job.file as string) }, job.channels.length + (job.time !== undefined && 'column' in job.time ? 1 : 0), job.jobShown ? `${job.jobShown}: lowPass` : '--low-pass');
+  checkLowPassMemory(job, guard);
   const read = settings.parseThread === false ? readDelimited : readDelimitedParallel;
   const file: StreamRead = (options) => read(job.file as string, options);
   return assessStream(job, hot && plan ? hotSpotReader(file, hot, gauges, plan) : file, {
@@ -65,6 +64,16 @@ export async function runAssessment(job: CliJob, progress?: Progress, settings: 
     ...(settings.onChunk ? { onChunk: settings.onChunk } : {}),
     ...(settings.serviceFromTime ? { serviceFromTime: true } : {}),
   });
+}
+
+/**
+ * The low-pass holds a single file's channels (and its time column) in memory: refused up front
+ * when they would pass half the memory limit (MemoryGuard.checkHeld), naming the setting. Nothing
+ * without a low-pass. Assess and count both ask here.
+ */
+export function checkLowPassMemory(job: Pick<CliJob, 'lowPass' | 'file' | 'fileShown' | 'channels' | 'time' | 'jobShown'>, guard: MemoryGuard): void {
+  if (job.lowPass === undefined) return;
+  guard.checkHeld({ path: job.file as string, shown: job.fileShown ?? (job.file as string) }, job.channels.length + (job.time !== undefined && 'column' in job.time ? 1 : 0), job.jobShown ? `${job.jobShown}: lowPass` : '--low-pass');
 }
 
 async function runDutyCycle(job: CliJob, guard: MemoryGuard, keepLoops: boolean, read: EventRead): Promise<ChannelResult[]> {

@@ -2,7 +2,7 @@ import type { CorrectionKind, CorrectionRecord } from '@loopwise/signal';
 import { channelConversion } from '@loopwise/ingest';
 import { formatNumber } from '../report/formatNumber.js';
 import { UsageError } from './CliError';
-import type { CliChannel, CliJob } from './CliJob';
+import type { CliChannel, CorrectionJob } from './CliJob';
 
 /** Default Butterworth order of each pass of `--low-pass` (as @loopwise/signal's zeroPhaseLowPass). */
 export const DEFAULT_LOW_PASS_ORDER = 2;
@@ -11,12 +11,12 @@ export const DEFAULT_LOW_PASS_ORDER = 2;
  * Where a correction's setting came from, for messages: the job file and field
  * (`job.json: excludeSamples[1].first`), or the option (`--exclude-samples`).
  */
-export function settingName(job: CliJob, field: string, flag: string): string {
+export function settingName(job: CorrectionJob, field: string, flag: string): string {
   return job.jobShown ? `${job.jobShown}: ${field}` : `--${flag}`;
 }
 
 /** Whether the job asks for a correction of the signal that changes the samples (spikes, cuts, offset, low-pass). */
-export function asksSignalCorrections(job: CliJob): boolean {
+export function asksSignalCorrections(job: CorrectionJob): boolean {
   return Boolean(job.interpolateSpikes) || Boolean(job.excludeFlatRuns) || (job.excludeSamples?.length ?? 0) > 0 || (job.excludeTimes?.length ?? 0) > 0 || job.subtractOffset !== undefined || job.lowPass !== undefined;
 }
 
@@ -28,7 +28,7 @@ export function asksSignalCorrections(job: CliJob): boolean {
  * of the job file or the option. What needs the record (a range beyond its end, a cut-off above
  * the Nyquist frequency of a time column) is checked as it is read.
  */
-export function checkSignalCorrections(job: CliJob): void {
+export function checkSignalCorrections(job: CorrectionJob): void {
   const samples = job.excludeSamples ?? [];
   samples.forEach((r, k) => {
     const name = settingName(job, `excludeSamples[${k}]`, 'exclude-samples');
@@ -67,7 +67,7 @@ export function checkSignalCorrections(job: CliJob): void {
 }
 
 /** Refuses a low-pass cut-off at or above half the sample rate (the Nyquist frequency), naming the setting. */
-export function checkCutoff(job: CliJob, sampleRate: number): void {
+export function checkCutoff(job: CorrectionJob, sampleRate: number): void {
   const lp = job.lowPass;
   if (lp === undefined) return;
   if (!(lp.cutoffHz < sampleRate / 2)) {

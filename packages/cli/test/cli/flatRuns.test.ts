@@ -1,4 +1,4 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { assessLife, type LifeJob } from '@loopwise/engine';
@@ -123,6 +123,22 @@ describe('--exclude-flat-runs', () => {
     const b = await cli(['assess', '--job', join(dir, 'bad.json')]);
     expect(b.code).toBe(2);
     expect(b.stderr).toMatch(/excludeFlatRuns.*expected true or false/);
+  });
+});
+
+describe('count --exclude-flat-runs', () => {
+  test('counts as --exclude-samples over the runs does, to the byte of the cycles CSV', async () => {
+    const args = ['count', join(dir, 'g.csv'), '--column', 'gauge_ue', '--quantity', 'strain', '--unit', 'microstrain', '--json'];
+    const a = await cli([...args, '--exclude-flat-runs', '--cycles-out', join(dir, 'a.csv')]);
+    const b = await cli([...args, '--exclude-samples', '1900..2369,6000..6199', '--cycles-out', join(dir, 'b.csv')]);
+    expect(a.stderr).toBe('');
+    expect(readFileSync(join(dir, 'a.csv'), 'utf8')).toBe(readFileSync(join(dir, 'b.csv'), 'utf8'));
+    const ja = JSON.parse(a.stdout);
+    expect(ja.cycles).toBe(JSON.parse(b.stdout).cycles);
+    expect(ja.signalCorrections[0].places).toEqual([
+      { first: DROPOUT.first, length: 470 },
+      { first: STUCK.first, length: 200 },
+    ]);
   });
 });
 
