@@ -212,7 +212,14 @@ export class DelimitedReader {
     });
     this.fields = fields;
     const names = channels.map((c, k) => c.name ?? dialect.names[fields[k]]);
-    this.checks = this.options.checks === false ? null : names.map((n) => new SignalChecks(n, this.options.checks || {}));
+    // the checks run on the engine's values; their messages give the file's (µε stays µε)
+    const shownOf = (k: number) => {
+      const c = this.conversions[k];
+      const spec = channels[k] as ChannelQuantity;
+      const unit = spec.quantity === 'strain' ? (spec.unit === 'microstrain' ? ' µε' : '') : spec.quantity === 'stress' ? ` ${spec.unit}` : '';
+      return { perEngineUnit: c ? c.divisor / c.multiplier : 1, unit };
+    };
+    this.checks = this.options.checks === false ? null : names.map((n, k) => new SignalChecks(n, this.options.checks || {}, shownOf(k)));
     const hasTimeColumn = time !== undefined && 'column' in time;
     const timeCheck = hasTimeColumn ? new TimeAxisCheck() : null;
     this.timeCheck = timeCheck;

@@ -139,9 +139,15 @@ export class SignalChecks {
   private result: SignalWarning[] | null = null;
   private flaggedSamples: ChannelArtefacts | null = null;
 
+  /**
+   * `shown`: how the values in messages are written, as the file gives them: the samples checked
+   * (in the engine's unit) times `perEngineUnit` (10^6 for a microstrain channel), then `unit`
+   * after the number (' µε'). Default: as checked, no unit.
+   */
   constructor(
     readonly channel: string,
     thresholds: Partial<SignalCheckThresholds> = {},
+    private readonly shown: { perEngineUnit: number; unit: string } = { perEngineUnit: 1, unit: '' },
   ) {
     this.t = { ...DEFAULT_SIGNAL_CHECK_THRESHOLDS, ...thresholds };
     for (const key of Object.keys(DEFAULT_SIGNAL_CHECK_THRESHOLDS) as (keyof SignalCheckThresholds)[]) {
@@ -185,6 +191,12 @@ export class SignalChecks {
   artefacts(): ChannelArtefacts {
     if (this.flaggedSamples === null) throw new IngestOptionError('artefacts', undefined, 'known once the checks have finished: call finish()');
     return { spikes: this.flaggedSamples.spikes.slice(), runs: this.flaggedSamples.runs.slice() };
+  }
+
+  /** A value for a message: in the file's unit, to 4 significant digits (no float noise). */
+  private value(engine: number): string {
+    const x = engine * this.shown.perEngineUnit;
+    return `${Number.isFinite(x) ? String(Number(x.toPrecision(4))) : String(x)}${this.shown.unit}`;
   }
 
   private warnings(scan: SignalScan): SignalWarning[] {
@@ -248,7 +260,7 @@ export class SignalChecks {
         samples: n,
         ranges: [{ first: 0, last: n - 1 }],
         rangesOmitted: 0,
-        message: `${ch}: mean ${scan.mean} is more than ${this.t.offsetShare} × the range ${scan.maximum - scan.minimum}: an offset not zeroed?`,
+        message: `${ch}: mean ${this.value(scan.mean)} is more than ${this.t.offsetShare} × the range ${this.value(scan.maximum - scan.minimum)}: an offset not zeroed?`,
       });
     return out;
   }

@@ -84,3 +84,15 @@ describe('the package runs without Node', () => {
     expect(offenders).toEqual([]);
   });
 });
+
+describe('DelimitedReader: signal warnings in the file\'s unit', () => {
+  it('gives the offset warning of a microstrain and a ksi channel in µε and ksi, to 4 significant digits', () => {
+    // a constant 700.125 µε with a 0.5 µε ripple, and 40.0 ksi with a 0.1 ksi ripple (invented)
+    const rows = Array.from({ length: 400 }, (_, i) => `${(700.125 + (i % 2) * 0.5).toFixed(3)},${(40 + (i % 2) * 0.1).toFixed(1)}`);
+    const { report } = read(encode('ue,ksi\n' + rows.join('\n') + '\n'), [], {
+      channels: [{ column: 1, quantity: 'strain', unit: 'microstrain' }, { column: 2, quantity: 'stress', unit: 'ksi' }],
+    });
+    const messages = report.warnings.filter((w) => w.kind === 'large-offset').map((w) => w.message);
+    expect(messages).toEqual(['ue: mean 700.4 µε is more than 0.5 × the range 0.5 µε: an offset not zeroed?', 'ksi: mean 40.05 ksi is more than 0.5 × the range 0.1 ksi: an offset not zeroed?']);
+  });
+});

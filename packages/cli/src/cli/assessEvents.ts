@@ -8,7 +8,7 @@ import type { ChannelResult } from './assessStream';
 import { inOwnUnit, lifeJobOf, mainCorrection, unitLabel, withoutLoops } from './lifeJobOf';
 import { interpolatedWarning } from './spikeInterpolation';
 import { checkCutoff, DEFAULT_LOW_PASS_ORDER, ofEvent, offsetInEngineUnit, offsetRecord, settingName } from './signalCorrections';
-import { timeBaseOf } from './timeBase';
+import { rateOfStep, timeBaseOf } from './timeBase';
 
 /**
  * Reads one event's file whole, with these options (channels, name, time, dialect), into one
@@ -96,7 +96,7 @@ export function correctedEvent(r: Awaited<ReturnType<EventRead>>, job: CliJob, e
   const lp = job.lowPass;
   if (lp !== undefined) {
     const base = job.time !== undefined && 'sampleRate' in job.time ? null : timeBaseOf(r.report, job.timeSecondsPerUnit);
-    const rate = job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : base !== null && base.step > 0 ? 1 / base.step : null;
+    const rate = job.time !== undefined && 'sampleRate' in job.time ? job.time.sampleRate : base !== null && base.step > 0 ? rateOfStep(base.step) : null;
     if (rate === null) throw new UsageError(`${settingName(job, 'lowPass', 'low-pass')}: needs the sample rate, and the time column of event ${event} does not give one (its steps are not even, or time does not increase)`);
     checkCutoff(job, rate);
     channels = channels.map((v, k) => {

@@ -5,7 +5,7 @@ import { UsageError } from './CliError';
 import type { CorrectionJob, SampleCut, TimeCut } from './CliJob';
 import { spikeInterpolatedReader } from './spikeInterpolation';
 import { checkCutoff, DEFAULT_LOW_PASS_ORDER, offsetInEngineUnit, offsetInOwnUnit, offsetRecord, recordOf, settingName, spikeRecord } from './signalCorrections';
-import { timeBaseOf } from './timeBase';
+import { rateOfStep, timeBaseOf } from './timeBase';
 
 type Read = (options: ReaderOptions) => Promise<IngestReport>;
 
@@ -460,5 +460,5 @@ function sampleRateOf(job: CorrectionJob, report: IngestReport, name: string): n
   if (base === null || !(base.step > 0)) {
     throw new UsageError(`${settingName(job, 'lowPass', 'low-pass')}: needs the sample rate, and the time column of ${name} does not give one (its steps are not even, or time does not increase): ${job.jobShown ? 'set "time" to { "sampleRate": … }' : 'give --sample-rate'}`);
   }
-  return 1 / base.step;
+  return rateOfStep(base.step);
 }

@@ -8,7 +8,8 @@ import type { CliChannel, CliEvent, CliJob } from './CliJob';
 import { correctedEvent, type EventRead } from './assessEvents';
 import { hotSpotEventReader, hotSpotPlan, hotSpotReader } from './hotSpotChannel';
 import type { MemoryGuard } from './MemoryGuard';
-import { stableJson } from './outputs';
+import { correctionJson, stableJson } from './outputs';
+import type { CorrectionRecord } from '@loopwise/signal';
 import { lifeJobOf, mainCorrection } from './runAssessment';
 
 /** Which life the target of `loopwise margin` is: the design life (mean life ÷ scatter factor) or the mean life. */
@@ -72,7 +73,7 @@ export async function runMargin(job: CliJob, request: MarginRequest, io: MarginI
   const reader = hot && plan ? hotSpotEventReader(plain, hot, job.channels, plan) : plain;
   for (const channel of plan ? [plan.channel] : job.channels) {
     const name = channel.name ?? String(channel.column);
-    const events = job.events === null && asksSignalCorrections(job) ? await correctedFileOf(job, channel, plan ? job.channels : null, guard) : await eventsOf(job, channel, reader);
+    const { events, records } = job.events === null && asksSignalCorrections(job) ? await correctedFileOf(job, channel, plan ? job.channels : null, guard) : await eventsOf(job, channel, reader);
     const lifeJob = lifeJobOf(job, channel, main);
     target ??= targetOf(job, request, events, lifeJob);
     const t = target;
@@ -81,13 +82,15 @@ export async function runMargin(job: CliJob, request: MarginRequest, io: MarginI
       ...(request.progress ? { onProgress: (done: number, most: number) => io.stderr(`\rmargin: ${name}: assessment ${done} of at most ${most}`) } : {}),
     });
     if (request.progress) io.stderr('\r\x1b[K');
-    rows.push({ channel: name, ...m, designRepeats: m.repeats / t.scatterFactor });
+    rows.push({ channel: name, ...m, designRepeats: m.repeats / t.scatterFactor, signalCorrections: records.map(correctionJson) });
     lines.push(channelLine(name, m, t));
+    // the corrections of the signal the factor scaled, as assess lists them
+    if (asksSignalCorrections(job)) lines.push(...(records.length > 0 ? records.map((c) => `  corrected ${c.summary}`) : ['  corrected none: the samples as measured']));
   }
   const t = target as MarginTarget;
   if (request.json) {
     const targetJson = { of: t.of, repeats: t.repeats, meanRepeats: t.meanRepeats, scatterFactor: t.scatterFactor, service: t.service };
-    io.stdout(stableJson({ format: 'loopwise-cli-margin', version: 2, tool: request.tool, targetRepeats: t.meanRepeats, target: targetJson, channels: rows, caution: CAUTION }) + '\n');
+    io.stdout(stableJson({ format: 'loopwise-cli-margin', version: 3, tool: request.tool, targetRepeats: t.meanRepeats, target: targetJson, channels: rows, caution: CAUTION }) + '\n');
   } else {
     io.stdout([targetLine(t), ...lines, '', `Caution: ${CAUTION}`].join('\n') + '\n');
   }
@@ -144,11 +147,15 @@ function channelLine(name: string, m: MarginResult, t: MarginTarget): string {
  * reads it (`correctedStream`: the same cuts, offset and low-pass), the corrected samples
  * collected in memory (the margin search holds them anyway). `gauges`: a hot-spot job's gauges.
  */
-async function correctedFileOf(job: CliJob, channel: CliChannel, gauges: CliChannel[] | null, guard: MemoryGuard): Promise<DutyEvent[]> {
+async function correctedFileOf(job: CliJob, channel: CliChannel, gauges: CliChannel[] | null, guard: MemoryGuard): Promise<ChannelEvents> {
   const file = job.file as string;
   const name = job.fileShown ?? file;
-  const one = { ...job, channels: [channel] };
-  const options = { channels: [channel], name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
+  // every channel of a plain job is read as assess reads them, together (a flat run on any
+  // channel cuts the row from all); a hot-spot job reads its one channel from the gauges
+  const all = gauges === null ? job.channels : [channel];
+  const k = gauges === null ? job.channels.indexOf(channel) : 0;
+  const one = { ...job, channels: all };
+  const options = { channels: all, name, ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
   const plain = (o: Parameters<typeof readDelimited>[1]) => readDelimited(file, o);
   const hot = job.stressLife?.hotSpot;
   const read = hot && gauges ? hotSpotReader(plain, hot, gauges, hotSpotPlan(hot, gauges, '--hot-spot')) : plain;
@@ -157,14 +164,20 @@ async function correctedFileOf(job: CliJob, channel: CliChannel, gauges: CliChan
   const corrected = await correctedStream(one, read, { options, check, at });
   const parts: Float64Array[] = [];
   let n = 0;
-  await corrected.read({ ...options, checks: false, onChunk: (c) => { parts.push(c.channels[0].slice(0, c.length)); n += c.length; check(at(c)); } });
+  await corrected.read({ ...options, checks: false, onChunk: (c) => { parts.push(c.channels[k].slice(0, c.length)); n += c.length; check(at(c)); } });
   const history = new Float64Array(n);
   let at0 = 0;
   for (const p of parts) {
     history.set(p, at0);
     at0 += p.length;
   }
-  return [{ name: 'history', history, repeats: 1 }];
+  return { events: [{ name: 'history', history, repeats: 1 }], records: corrected.records(k) };
+}
+
+/** A channel's events for the search, and the corrections of the signal applied to them (in order; per event for a duty cycle). */
+interface ChannelEvents {
+  events: DutyEvent[];
+  records: CorrectionRecord[];
 }
 
 /**
@@ -172,11 +185,17 @@ async function correctedFileOf(job: CliJob, channel: CliChannel, gauges: CliChan
  * event, read as assess reads them (the hot-spot channel from its gauges, the spikes interpolated
  * when the job asks).
  */
-async function eventsOf(job: CliJob, channel: CliChannel, read: EventRead): Promise<DutyEvent[]> {
+async function eventsOf(job: CliJob, channel: CliChannel, read: EventRead): Promise<ChannelEvents> {
   const opts = { channels: [channel], ...(job.time ? { time: job.time } : {}), ...(job.dialect ? { dialect: job.dialect } : {}) };
+  const records: CorrectionRecord[] = [];
+  // the event holds this one channel: its corrections (an offset in its unit) are this channel's,
+  // the hot-spot channel's for a hot-spot job (MPa), as assess corrects it
+  const alone = { ...job, channels: [channel] };
   const one = async (e: CliEvent) => {
     const r = await read(e, { ...opts, name: e.shown ?? e.file });
-    return correctedEvent(r, job, e.name).channels[0];
+    const c = correctedEvent(r, alone, e.name);
+    records.push(...c.records[0]);
+    return c.channels[0];
   };
   if (job.events) {
     const out: DutyEvent[] = [];
@@ -185,8 +204,9 @@ async function eventsOf(job: CliJob, channel: CliChannel, read: EventRead): Prom
       if (e.duration !== undefined) d.duration = e.duration;
       out.push(d);
     }
-    return out;
+    return { events: out, records };
   }
   const file = job.file as string;
-  return [{ name: 'history', history: await one({ name: 'history', file, shown: job.fileShown ?? file, repeats: 1 }), repeats: 1 }];
+  const events = [{ name: 'history', history: await one({ name: 'history', file, shown: job.fileShown ?? file, repeats: 1 }), repeats: 1 }];
+  return { events, records };
 }

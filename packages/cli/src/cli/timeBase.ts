@@ -19,8 +19,24 @@ export function timeBaseOf(source: IngestReport, secondsPerUnit?: number): TimeB
   if (t.kind === 'sample-rate') return { start: 0, step: t.timeStep };
   if (!(t.samples >= 2) || t.nonIncreasingSteps > 0) return null;
   if (!(t.meanStep > 0) || t.maxStep - t.minStep > 1e-6 * t.meanStep) return null;
-  const k = secondsPerUnit ?? secondsPerUnitOfName(t.name);
+  const k = secondsPerUnit ?? secondsPerUnitOfUnit(source.dialect?.units?.[t.column - 1]) ?? secondsPerUnitOfName(t.name);
   return { start: t.first * k, step: t.meanStep * k };
+}
+
+/** Seconds per unit of a time column by the unit the file gives it (units row or bracketed header unit), or undefined when it gives none or no time unit. */
+function secondsPerUnitOfUnit(unit: string | undefined): number | undefined {
+  if (unit === undefined || unit.trim() === '') return undefined;
+  const r = recognizeUnit(unit);
+  return r !== null && r.quantity === 'time' ? r.secondsPerUnit : undefined;
+}
+
+/**
+ * The sample rate of an even time step in seconds, rounded to 12 significant digits: 1 / 0.01
+ * is 100.00000000000001 in binary, and a cut-off at exactly half the rate must be refused as it is
+ * with `--sample-rate 100`.
+ */
+export function rateOfStep(step: number): number {
+  return Number((1 / step).toPrecision(12));
 }
 
 /**
